@@ -1,0 +1,50 @@
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+import importX from 'eslint-plugin-import-x';
+import reactHooks from 'eslint-plugin-react-hooks';
+import globals from 'globals';
+
+// The architecture of STYLE.md, checked: shared/ is pure, src/ never imports server/,
+// server/ never imports src/, only server/db touches Knex, migrations import no app code.
+export default tseslint.config(
+  { ignores: ['dist/**', 'node_modules/**', 'test-results/**', 'playwright-report/**', 'data/**', '.tmp/**'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ['**/*.{ts,tsx}'],
+    languageOptions: { globals: { ...globals.browser, ...globals.node } },
+    plugins: { 'import-x': importX, 'react-hooks': reactHooks },
+    settings: { 'import-x/resolver': { typescript: true, node: true } },
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-explicit-any': 'warn',
+      'react-hooks/rules-of-hooks': 'error',
+      'import-x/no-cycle': ['error', { maxDepth: 6 }],
+      'import-x/no-restricted-paths': ['error', {
+        zones: [
+          { target: './shared', from: './src', message: 'shared/ is pure: no client code' },
+          { target: './shared', from: './server', message: 'shared/ is pure: no server code' },
+          { target: './src', from: './server', message: 'the client never imports the server' },
+          { target: './server', from: './src', message: 'the server never imports the client' },
+          { target: './migrations', from: ['./src', './server', './shared'], message: 'migrations import no app code' },
+        ],
+      }],
+      'no-restricted-imports': 'off',
+    },
+  },
+  {
+    files: ['shared/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [
+        { group: ['node:*', 'fs', 'path', 'http', 'crypto', 'knex', 'react', 'react-dom', 'express'], message: 'shared/ has no Node, React or database imports' },
+      ] }],
+    },
+  },
+  {
+    files: ['server/**/*.ts'],
+    ignores: ['server/db/**'],
+    rules: {
+      'no-restricted-imports': ['error', { paths: [{ name: 'knex', message: 'only server/db touches Knex' }] }],
+    },
+  },
+);
