@@ -1,0 +1,2 @@
+export * from './schemas';
+export * from './types';
