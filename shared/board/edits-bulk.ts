@@ -1,0 +1,112 @@
+/**
+ * Edits over many parts at once: copy / paste of a fragment and turning a live document into a board
+ * (snapshot restore, import into an open board). Each paste or replace is one transaction.
+ */
+import * as Y from 'yjs';
+import type { BoardFile, Fragment, Part, Wire } from './schema';
+import { splitPinRef } from './validate';
+import { newPartId, newWireId } from './ids';
+import {
+  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap, wiresMap,
+} from './ydoc';
+
+/** The chosen parts and the wires running between two of them, as a clipboard fragment. */
+export function copyFragment(doc: Y.Doc, partIds: string[]): Fragment {
+  const parts = partsMap(doc);
+  const chosen = new Set(partIds.filter((id) => parts.has(id)));
+  const wires: Wire[] = [];
+  for (const w of wiresMap(doc).values()) {
+    const wire = readWire(w);
+    const a = splitPinRef(wire.from);
+    const b = splitPinRef(wire.to);
+    if (a && b && chosen.has(a.part) && chosen.has(b.part)) wires.push(wire);
+  }
+  return { format: 'gatefold-fragment', parts: [...chosen].map((id) => readPart(parts.get(id)!)), wires };
+}
+
+/** `label`, or `label_2`, `label_3`… — the first one not in `used`. */
+export function dedupeLabel(label: string, used: Set<string>): string {
+  if (!used.has(label)) return label;
+  for (let n = 2; ; n++) if (!used.has(`${label}_${n}`)) return `${label}_${n}`;
+}
+
+/**
+ * Pastes a fragment moved by `offset`: every part and wire gets a fresh id, wires follow their parts,
+ * labels already on the board get a `_2`, `_3`… suffix. Wires to parts outside the fragment are dropped.
+ */
+export function pasteFragment(
+  doc: Y.Doc, fragment: Fragment, offset: { x: number; y: number }, origin: unknown,
+): { partIds: string[]; wireIds: string[] } {
+  const parts = partsMap(doc);
+  const wires = wiresMap(doc);
+  const used = new Set<string>();
+  for (const p of parts.values()) if (typeof p.get('label') === 'string') used.add(p.get('label') as string);
+  const idMap = new Map<string, string>();
+  const partIds: string[] = [];
+  const wireIds: string[] = [];
+  doc.transact(() => {
+    let order = nextOrder(parts);
+    for (const part of fragment.parts) {
+      const id = newPartId(doc, part.kind);
+      idMap.set(part.id, id);
+      const copy: Part = { ...part, id, x: part.x + offset.x, y: part.y + offset.y };
+      if (part.label) {
+        copy.label = dedupeLabel(part.label, used);
+        used.add(copy.label);
+      }
+      parts.set(id, partToYMap(copy, order++));
+      partIds.push(id);
+    }
+    order = nextOrder(wires);
+    for (const wire of fragment.wires) {
+      const a = splitPinRef(wire.from);
+      const b = splitPinRef(wire.to);
+      const pa = a && idMap.get(a.part);
+      const pb = b && idMap.get(b.part);
+      if (!a || !b || !pa || !pb) continue;
+      const id = newWireId(doc);
+      wires.set(id, wireToYMap({ id, from: `${pa}.${a.pin}`, to: `${pb}.${b.pin}` }, order++));
+      wireIds.push(id);
+    }
+  }, origin);
+  return { partIds, wireIds };
+}
+
+function syncFields(ymap: Y.Map<unknown>, record: Record<string, unknown>, fields: readonly string[], order: number): void {
+  for (const field of fields) {
+    const want = record[field];
+    if (want === undefined) {
+      if (ymap.has(field)) ymap.delete(field);
+    } else if (ymap.get(field) !== want) ymap.set(field, want);
+  }
+  if (ymap.get('order') !== order) ymap.set('order', order);
+}
+
+/**
+ * Turns the live document into `board`'s content as one ordinary transaction: parts and wires not in
+ * the board are deleted, changed fields updated, new ones added, and the order set to the board's.
+ * Connected clients see an ordinary edit (and the caller's UndoManager can undo it).
+ */
+export function replaceWithBoard(doc: Y.Doc, board: BoardFile, origin: unknown): void {
+  const parts = partsMap(doc);
+  const wires = wiresMap(doc);
+  const meta = metaMap(doc);
+  doc.transact(() => {
+    if (meta.get('title') !== board.title) meta.set('title', board.title);
+    if (meta.get('family') !== board.family) meta.set('family', board.family);
+    const keepParts = new Set(board.parts.map((p) => p.id));
+    const keepWires = new Set(board.wires.map((w) => w.id));
+    for (const id of [...wires.keys()]) if (!keepWires.has(id)) wires.delete(id);
+    for (const id of [...parts.keys()]) if (!keepParts.has(id)) parts.delete(id);
+    board.parts.forEach((part, i) => {
+      const existing = parts.get(part.id);
+      if (existing) syncFields(existing, part as unknown as Record<string, unknown>, PART_FIELDS, i + 1);
+      else parts.set(part.id, partToYMap(part, i + 1));
+    });
+    board.wires.forEach((wire, i) => {
+      const existing = wires.get(wire.id);
+      if (existing) syncFields(existing, wire as unknown as Record<string, unknown>, ['id', 'from', 'to'], i + 1);
+      else wires.set(wire.id, wireToYMap(wire, i + 1));
+    });
+  }, origin);
+}

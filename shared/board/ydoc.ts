@@ -1,0 +1,154 @@
+/**
+ * The board as a Yjs document (CONTRACTS §4) and the pure conversion between a document and a board file.
+ *
+ * Layout: `parts` (id → Y.Map of the part's §1 fields, plain values), `wires` (id → Y.Map {id, from, to}),
+ * `meta` ({title, family}). Every part and wire map also keeps an `order` number, set when it is added,
+ * so that a file's order of parts and wires survives import → export; `order` is never exported.
+ */
+import * as Y from 'yjs';
+import { pinsOf, type PartKind } from './kinds';
+import type { BoardFile, FamilyId, Part, Wire } from './schema';
+import { splitPinRef } from './validate';
+
+/** The part fields of CONTRACTS §1, in the order an exported file lists them. */
+export const PART_FIELDS = [
+  'id', 'kind', 'label', 'inputs', 'x', 'y', 'rotation',
+  'on', 'pressed', 'bounce', 'period', 'value', 'init', 'text',
+] as const;
+export type PartField = (typeof PART_FIELDS)[number];
+
+/** A part or wire inside the document. */
+export type YRecord = Y.Map<unknown>;
+
+export const DEFAULT_TITLE = 'Untitled board';
+export const DEFAULT_FAMILY: FamilyId = 'ideal';
+
+/** The map of parts (id → Y.Map). */
+export function partsMap(doc: Y.Doc): Y.Map<YRecord> {
+  return doc.getMap<YRecord>('parts');
+}
+/** The map of wires (id → Y.Map). */
+export function wiresMap(doc: Y.Doc): Y.Map<YRecord> {
+  return doc.getMap<YRecord>('wires');
+}
+/** The board's title and logic family. */
+export function metaMap(doc: Y.Doc): Y.Map<unknown> {
+  return doc.getMap<unknown>('meta');
+}
+
+/** Reads one part's fields from its map, in file order, leaving out absent fields. */
+export function readPart(ymap: YRecord): Part {
+  const out: Record<string, unknown> = {};
+  for (const field of PART_FIELDS) {
+    const value = ymap.get(field);
+    if (value !== undefined) out[field] = value;
+  }
+  return out as Part;
+}
+
+/** Reads one wire from its map. */
+export function readWire(ymap: YRecord): Wire {
+  return { id: String(ymap.get('id')), from: String(ymap.get('from')), to: String(ymap.get('to')) };
+}
+
+function orderOf(ymap: YRecord): number {
+  const o = ymap.get('order');
+  return typeof o === 'number' ? o : Number.MAX_SAFE_INTEGER;
+}
+
+/** Entries of a parts or wires map sorted by `order`, then id (ties can come from concurrent adds). */
+export function sortedEntries(map: Y.Map<YRecord>): [string, YRecord][] {
+  return [...map.entries()].sort(([ia, a], [ib, b]) => orderOf(a) - orderOf(b) || (ia < ib ? -1 : ia > ib ? 1 : 0));
+}
+
+/** The next `order` number for a map (one more than the largest in use). */
+export function nextOrder(map: Y.Map<YRecord>): number {
+  let max = 0;
+  for (const item of map.values()) {
+    const o = item.get('order');
+    if (typeof o === 'number' && o > max) max = o;
+  }
+  return max + 1;
+}
+
+/** Builds the Y.Map of a part (fields of §1 plus `order`). Not yet attached to a document. */
+export function partToYMap(part: Part, order: number): YRecord {
+  const ymap = new Y.Map<unknown>();
+  const record = part as unknown as Record<string, unknown>;
+  for (const field of PART_FIELDS) {
+    if (record[field] !== undefined) ymap.set(field, record[field]);
+  }
+  ymap.set('order', order);
+  return ymap;
+}
+
+/** Builds the Y.Map of a wire. Not yet attached to a document. */
+export function wireToYMap(wire: Wire, order: number): YRecord {
+  const ymap = new Y.Map<unknown>();
+  ymap.set('id', wire.id);
+  ymap.set('from', wire.from);
+  ymap.set('to', wire.to);
+  ymap.set('order', order);
+  return ymap;
+}
+
+/**
+ * Fills an empty document with a board, in one transaction (`origin` is passed to `doc.transact`).
+ * Parts and wires keep the file's order.
+ */
+export function boardToDoc(board: BoardFile, doc: Y.Doc, origin?: unknown): void {
+  doc.transact(() => {
+    const meta = metaMap(doc);
+    meta.set('title', board.title);
+    meta.set('family', board.family);
+    const parts = partsMap(doc);
+    const wires = wiresMap(doc);
+    let order = nextOrder(parts);
+    for (const part of board.parts) parts.set(part.id, partToYMap(part, order++));
+    order = nextOrder(wires);
+    for (const wire of board.wires) wires.set(wire.id, wireToYMap(wire, order++));
+  }, origin);
+}
+
+/** True when `ref` (`part.pin`) names a pin that exists on a part of the document. */
+export function pinExists(parts: Map<string, Part>, ref: string): boolean {
+  const split = splitPinRef(ref);
+  if (!split) return false;
+  const part = parts.get(split.part);
+  if (!part) return false;
+  const pins = pinsOf(part.kind as PartKind, 'inputs' in part && typeof part.inputs === 'number' ? part.inputs : 2);
+  return pins.inputs.includes(split.pin) || pins.outputs.includes(split.pin);
+}
+
+/**
+ * The board file a document holds; `JSON.stringify` of it is the export. Pure: reads only.
+ * Wires whose ends no longer exist (one user deleted a part while another wired to it, concurrently)
+ * are left out, so the result always passes `parseBoardFile` as far as wiring goes.
+ */
+export function docToBoard(doc: Y.Doc): BoardFile {
+  const meta = metaMap(doc);
+  const title = meta.get('title');
+  const family = meta.get('family');
+  const parts = sortedEntries(partsMap(doc)).map(([, ymap]) => readPart(ymap));
+  const byId = new Map(parts.map((p) => [p.id, p]));
+  const wires = sortedEntries(wiresMap(doc))
+    .map(([, ymap]) => readWire(ymap))
+    .filter((w) => pinExists(byId, w.from) && pinExists(byId, w.to));
+  return {
+    format: 'gatefold-board',
+    version: 1,
+    title: typeof title === 'string' ? title : DEFAULT_TITLE,
+    family: (typeof family === 'string' ? family : DEFAULT_FAMILY) as FamilyId,
+    parts,
+    wires,
+  };
+}
+
+/** Puts a board's parts in the canonical key order of an export (what `docToBoard` would give). */
+export function canonicalBoard(board: BoardFile): BoardFile {
+  const doc = new Y.Doc();
+  boardToDoc(board, doc);
+  const out = docToBoard(doc);
+  doc.destroy();
+  return out;
+}
