@@ -1,0 +1,21 @@
+/**
+ * Gatefold simulator — public API (pure TypeScript, no DOM or Node APIs).
+ *
+ * ```ts
+ * const netlist = compileBoard(board);            // nets, drivers, readers, problems
+ * const sim = new Simulator(netlist, { seed: 1 });
+ * sim.setInput('a', true);
+ * const report = sim.settle();                    // {settled, oscillating, conflicts, undrivenInputs, …}
+ * sim.outputValues();                             // { S: '1', C: '0' }
+ * ```
+ * See docs/decisions/002-simulation-model.md for the model (four values, delays, initial state).
+ */
+export type { Level } from './levels';
+export { LEVELS } from './levels';
+export type {
+  PinRef, NetInfo, CompiledPart, NetProblem, Netlist, SettleReport, SimulatorOptions, SimStats, ChangeListener,
+} from './types';
+export { compileBoard, partPins, type CompileOptions } from './compile';
+export { Simulator, DEFAULT_CLOCK_PERIOD_GATE_DELAYS } from './simulator';
+export { FAMILIES, familyOf, familyDelays, type FamilyData } from './families';
+export { mulberry32 } from './bounce';

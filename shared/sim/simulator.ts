@@ -1,0 +1,394 @@
+/**
+ * The event-driven four-valued simulator (see docs/decisions/002-simulation-model.md).
+ * Nets and driver slots live in typed arrays; events go through a time wheel; gates have inertial
+ * delays (a change that reverts before its delay is over is swallowed, as a real gate does).
+ */
+import { isInputKind, isOutputKind } from '../board';
+import type { Level } from './levels';
+import { L0, L1, LX, LZ, NONE, levelCode, levelName } from './codes';
+import { EventWheel } from './event-wheel';
+import { familyDelays, familyOf } from './families';
+import { evaluatePart, stateSize } from './parts';
+import { isRisingEdge } from './parts/flip-flop';
+import { initialSourceLevel, sourceOutputs } from './parts/sources';
+import { Bouncer } from './bounce';
+import type { ChangeListener, CompiledPart, Netlist, SettleReport, SimStats, SimulatorOptions } from './types';
+
+/** A clock toggles every half period; its period defaults to this many of the slowest gate delay. */
+export const DEFAULT_CLOCK_PERIOD_GATE_DELAYS = 32;
+
+/** Simulates a compiled board. */
+export class Simulator {
+  readonly netlist: Netlist;
+  readonly floating: Level;
+  readonly stats: SimStats = { events: 0, evaluations: 0, settles: 0 };
+  private now = 0;
+  private readonly budget: number;
+  private readonly parts: CompiledPart[];
+  private readonly floatCode: number;
+  private readonly rise: Int32Array;
+  private readonly fall: Int32Array;
+  private readonly inStart: Int32Array;
+  private readonly inNet: Int32Array;
+  private readonly slotStart: Int32Array;
+  private readonly slotNet: Int32Array;
+  private readonly slotPart: Int32Array;
+  private readonly slotVal: Uint8Array;
+  private readonly slotPend: Uint8Array;
+  private readonly slotPendTime: Float64Array;
+  private readonly netVal: Uint8Array;
+  private readonly netDrivers: Int32Array;
+  private readonly netChange: Float64Array;
+  private readonly fanStart: Int32Array;
+  private readonly fanPart: Int32Array;
+  private readonly state: Uint8Array;
+  private readonly stateOff: Int32Array;
+  private readonly sourceLevel: Uint8Array;
+  private readonly dirty: Int32Array;
+  private readonly dirtyMark: Uint8Array;
+  private dirtyCount = 0;
+  private readonly wheel: EventWheel;
+  private readonly bouncer: Bouncer;
+  private readonly clocks: { part: number; half: number; next: number }[] = [];
+  private readonly inp = new Uint8Array(8);
+  private readonly out = new Uint8Array(2);
+  private readonly listeners = new Set<ChangeListener>();
+  private readonly applyBound = (s: number) => this.applySlot(s);
+  private observing = false;
+  private readonly seen: Uint8Array;
+  private readonly seenList: Int32Array;
+  private seenCount = 0;
+  private races = new Set<string>();
+  private readonly undrivenInputList: string[];
+
+  constructor(netlist: Netlist, opts: SimulatorOptions = {}) {
+    this.netlist = netlist;
+    this.parts = netlist.parts;
+    const fam = familyOf(opts.family ?? netlist.family);
+    this.floating = fam.floating;
+    this.floatCode = levelCode(fam.floating);
+    const n = this.parts.length;
+    const nNets = netlist.nets.length;
+    this.budget = opts.eventBudget ?? Math.max(20_000, 200 * n);
+    const delays = opts.family && opts.family !== netlist.family ? familyDelays(opts.family) : null;
+    this.rise = Int32Array.from(this.parts, (p) => (delays && p.rise ? delays.rise : p.rise));
+    this.fall = Int32Array.from(this.parts, (p) => (delays && p.fall ? delays.fall : p.fall));
+    let maxDelay = 1;
+    for (let i = 0; i < n; i++) maxDelay = Math.max(maxDelay, this.rise[i], this.fall[i]);
+
+    this.inStart = new Int32Array(n + 1);
+    this.slotStart = new Int32Array(n + 1);
+    this.stateOff = new Int32Array(n);
+    let nIn = 0, nSlots = 0, nState = 0;
+    this.parts.forEach((p, i) => {
+      this.inStart[i] = nIn; nIn += p.inputs.length;
+      this.slotStart[i] = nSlots; nSlots += p.outputs.length;
+      this.stateOff[i] = nState; nState += stateSize(p.kind);
+    });
+    this.inStart[n] = nIn;
+    this.slotStart[n] = nSlots;
+    this.inNet = new Int32Array(nIn);
+    this.slotNet = new Int32Array(nSlots);
+    this.slotPart = new Int32Array(nSlots);
+    this.parts.forEach((p, i) => {
+      this.inNet.set(p.inputs, this.inStart[i]);
+      p.outputs.forEach((net, k) => { this.slotNet[this.slotStart[i] + k] = net; this.slotPart[this.slotStart[i] + k] = i; });
+    });
+    this.slotVal = new Uint8Array(nSlots);
+    this.slotPend = new Uint8Array(nSlots);
+    this.slotPendTime = new Float64Array(nSlots);
+    this.state = new Uint8Array(nState);
+    this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
+
+    this.netVal = new Uint8Array(nNets);
+    this.netChange = new Float64Array(nNets).fill(-1);
+    // a net's single driver slot, −1 undriven, −2 conflict
+    this.netDrivers = new Int32Array(nNets).fill(-1);
+    for (let s = 0; s < nSlots; s++) {
+      const net = this.slotNet[s];
+      this.netDrivers[net] = this.netDrivers[net] === -1 ? s : -2;
+    }
+    // fan-out: parts reading each net, once per part
+    const fan: number[][] = Array.from({ length: nNets }, () => []);
+    this.parts.forEach((p, i) => { for (const net of new Set(p.inputs)) fan[net].push(i); });
+    this.fanStart = new Int32Array(nNets + 1);
+    let f = 0;
+    fan.forEach((list, net) => { this.fanStart[net] = f; f += list.length; });
+    this.fanStart[nNets] = f;
+    this.fanPart = Int32Array.from(fan.flat());
+    this.dirty = new Int32Array(n);
+    this.dirtyMark = new Uint8Array(n);
+    this.seen = new Uint8Array(nNets);
+    this.seenList = new Int32Array(nNets);
+
+    this.bouncer = new Bouncer(opts.seed ?? 1, Math.max(1, maxDelay));
+    this.wheel = new EventWheel(maxDelay);
+    this.parts.forEach((p, i) => {
+      if (p.kind !== 'clock' || p.part.kind !== 'clock') return;
+      const period = p.part.period ?? DEFAULT_CLOCK_PERIOD_GATE_DELAYS * maxDelay;
+      const half = Math.max(1, Math.round(period / 2));
+      this.clocks.push({ part: i, half, next: half });
+    });
+    this.undrivenInputList = netlist.undriven.flatMap((net) => netlist.nets[net].readers
+      .filter((r) => { const part = netlist.partById(r.part); return part !== undefined && !isOutputKind(part.kind); })
+      .map((r) => `${r.part}.${r.pin}`));
+    this.powerOn();
+  }
+
+  /** Current simulation time (integer time units). */
+  get time(): number {
+    return this.now;
+  }
+
+  /** Gate outputs to X, storage to its `init` (or 0), inputs kept at their levels, queue emptied. */
+  private powerOn(): void {
+    this.wheel.clear();
+    this.bouncer.clear();
+    this.slotVal.fill(LX);
+    this.slotPend.fill(NONE);
+    for (let net = 0; net < this.netVal.length; net++) {
+      const v = this.netDrivers[net] === -1 ? LZ : LX;
+      if (this.netVal[net] !== v || this.netChange[net] < 0) this.setNetRaw(net, v);
+    }
+    this.parts.forEach((p, i) => {
+      if (isInputKind(p.kind)) { this.driveSource(i, this.sourceLevel[i]); return; }
+      const sz = stateSize(p.kind);
+      if (sz === 0) return;
+      const o = this.stateOff[i];
+      const init = 'init' in p.part && p.part.init === 1 ? L1 : L0;
+      this.state[o] = init;
+      this.state[o + 1] = init === L1 ? L0 : L1;
+      this.driveSlot(this.slotStart[i], this.state[o]);
+      this.driveSlot(this.slotStart[i] + 1, this.state[o + 1]);
+    });
+    // Gates evaluate at once. Storage keeps its power-on state until an input changes, unless all its
+    // inputs are already known (so a power-on X from a not yet settled gate does not wipe `init`).
+    this.dirtyMark.fill(0);
+    this.dirtyCount = 0;
+    this.parts.forEach((p, i) => {
+      if (isInputKind(p.kind) || p.outputs.length === 0) return;
+      const sz = stateSize(p.kind);
+      if (sz === 0) { this.markDirty(i); return; }
+      const a = this.inStart[i];
+      // a flip-flop's last clock is the clock at power-on: power-on is not an edge
+      if (sz > 2) this.state[this.stateOff[i] + 2] = this.read(this.inNet[a + 1]);
+      let known = true;
+      for (let k = a; k < this.inStart[i + 1]; k++) if (this.read(this.inNet[k]) === LX) known = false;
+      if (known) this.markDirty(i);
+    });
+  }
+
+  /** Storage back to its initial value, gate outputs to X; input levels stay. */
+  resetState(): void {
+    this.powerOn();
+  }
+
+  /**
+   * Sets an input part: switch `on`, button `pressed` (with the contact-bounce model when the part has
+   * `bounce`), clock level, constant value. Takes effect at the current time; call settle() after.
+   */
+  setInput(partId: string, value: boolean | 0 | 1 | Level): void {
+    const p = this.netlist.partById(partId);
+    if (!p || !isInputKind(p.kind)) throw new Error(`${partId} is not an input part`);
+    const v = levelCode(value);
+    this.bouncer.cancel(p.index);
+    const changed = this.sourceLevel[p.index] !== v;
+    this.driveSource(p.index, v);
+    const clock = this.clocks.find((c) => c.part === p.index);
+    if (clock) clock.next = this.now + clock.half;
+    if (changed && p.part.kind === 'button' && p.part.bounce && (v === L0 || v === L1)) this.bouncer.bounce(p.index, v, this.now);
+  }
+
+  private driveSource(i: number, v: number): void {
+    this.sourceLevel[i] = v;
+    sourceOutputs(v, this.out);
+    const s0 = this.slotStart[i];
+    for (let s = s0; s < this.slotStart[i + 1]; s++) this.driveSlot(s, this.out[s - s0]);
+  }
+
+  private driveSlot(s: number, v: number): void {
+    this.slotVal[s] = v;
+    this.slotPend[s] = NONE;
+    const net = this.slotNet[s];
+    if (this.netDrivers[net] === s) this.setNet(net, v);
+  }
+
+  private setNetRaw(net: number, v: number): void {
+    this.netVal[net] = v;
+    this.netChange[net] = this.now;
+    if (this.listeners.size) for (const cb of this.listeners) cb(this.now, net, levelName(v));
+  }
+
+  private setNet(net: number, v: number): void {
+    if (this.netVal[net] === v) return;
+    this.setNetRaw(net, v);
+    this.stats.events++;
+    if (this.observing && !this.seen[net]) { this.seen[net] = 1; this.seenList[this.seenCount++] = net; }
+    for (let k = this.fanStart[net]; k < this.fanStart[net + 1]; k++) this.markDirty(this.fanPart[k]);
+  }
+
+  private markDirty(p: number): void {
+    if (this.dirtyMark[p]) return;
+    this.dirtyMark[p] = 1;
+    this.dirty[this.dirtyCount++] = p;
+  }
+
+  private applySlot(s: number): void {
+    if (this.slotPend[s] === NONE || this.slotPendTime[s] !== this.now) return;
+    const v = this.slotPend[s];
+    this.slotPend[s] = NONE;
+    this.slotVal[s] = v;
+    const net = this.slotNet[s];
+    if (this.netDrivers[net] === s) this.setNet(net, v);
+  }
+
+  private read(net: number): number {
+    const v = this.netVal[net];
+    return v === LZ ? this.floatCode : v;
+  }
+
+  private evalDirty(): void {
+    for (let i = 0; i < this.dirtyCount; i++) {
+      const p = this.dirty[i];
+      this.dirtyMark[p] = 0;
+      this.evaluate(p);
+    }
+    this.dirtyCount = 0;
+  }
+
+  private evaluate(p: number): void {
+    const part = this.parts[p];
+    const kind = part.kind;
+    const a = this.inStart[p];
+    const n = this.inStart[p + 1] - a;
+    const slot0 = this.slotStart[p];
+    const nOut = this.slotStart[p + 1] - slot0;
+    if (nOut === 0 || isInputKind(kind)) return;
+    for (let k = 0; k < n; k++) this.inp[k] = this.read(this.inNet[a + k]);
+    const o = this.stateOff[p];
+    // D changing in the same instant as the clock edge: the order decides, so report it
+    if (kind === 'dff' && isRisingEdge(this.state[o + 2], this.inp[1]) && this.netChange[this.inNet[a]] === this.now) this.races.add(part.id);
+    this.stats.evaluations++;
+    if (evaluatePart(kind, this.inp, n, this.state, o, this.out)) this.races.add(part.id);
+    for (let k = 0; k < nOut; k++) this.schedule(slot0 + k, this.out[k], p);
+  }
+
+  private schedule(s: number, v: number, p: number): void {
+    const pend = this.slotPend[s];
+    if (pend !== NONE) {
+      if (pend === v) return;
+      this.slotPend[s] = NONE; // inertial: the earlier change is swallowed
+    }
+    if (v === this.slotVal[s]) return;
+    const d = v === L1 ? this.rise[p] : v === L0 ? this.fall[p] : Math.min(this.rise[p], this.fall[p]);
+    const t = this.now + Math.max(1, d);
+    this.slotPend[s] = v;
+    this.slotPendTime[s] = t;
+    this.wheel.push(t, s);
+  }
+
+  private nextTime(): number {
+    return Math.min(this.wheel.next(this.now), this.bouncer.next());
+  }
+
+  /** Moves to time t (≥ now) and processes everything due then. */
+  private advance(t: number): void {
+    this.now = t;
+    this.bouncer.due(t, (part, v) => this.driveSource(part, v));
+    if (this.wheel.queued) this.wheel.drain(t, this.applyBound);
+    this.evalDirty();
+  }
+
+  /**
+   * Runs until nothing changes, or until the event budget is spent: then watches a little longer and
+   * names the nets that keep changing (oscillating). Clocks do not run here (see runFor).
+   */
+  settle(): SettleReport {
+    this.stats.settles++;
+    this.races = new Set();
+    const start = this.stats.events;
+    const window = Math.max(256, 4 * this.netVal.length);
+    let settled = true;
+    this.evalDirty();
+    for (;;) {
+      const t = this.nextTime();
+      if (t === Infinity) break;
+      const spent = this.stats.events - start;
+      if (!this.observing && spent >= this.budget) { this.observing = true; this.seenCount = 0; }
+      if (this.observing && spent >= this.budget + window) { settled = false; break; }
+      this.advance(t);
+    }
+    const oscillating: string[] = [];
+    if (this.observing) {
+      for (let i = 0; i < this.seenCount; i++) { const net = this.seenList[i]; this.seen[net] = 0; if (!settled) oscillating.push(this.netlist.nets[net].name); }
+      this.observing = false;
+      this.seenCount = 0;
+    }
+    return {
+      settled, time: this.now, events: this.stats.events - start, oscillating,
+      conflicts: this.netlist.conflicts.map((id) => this.netlist.nets[id].name),
+      undrivenInputs: [...this.undrivenInputList],
+      races: [...this.races],
+    };
+  }
+
+  /** Runs for dt time units, clocks toggling every half period; returns the events processed. */
+  runFor(dt: number): number {
+    const start = this.stats.events;
+    const end = this.now + Math.max(0, Math.floor(dt));
+    this.evalDirty();
+    for (;;) {
+      let t = this.nextTime();
+      for (const c of this.clocks) t = Math.min(t, c.next);
+      if (t > end) break;
+      this.now = t;
+      for (const c of this.clocks) {
+        if (c.next !== t) continue;
+        this.driveSource(c.part, this.sourceLevel[c.part] === L1 ? L0 : L1);
+        c.next = t + c.half;
+      }
+      this.advance(t);
+    }
+    this.now = end;
+    return this.stats.events - start;
+  }
+
+  /** Level of a net (Z when undriven, X when its drivers conflict). */
+  level(netId: number): Level {
+    return levelName(this.netVal[netId]);
+  }
+
+  /** Level at a pin: what an input pin reads (floating value on an undriven net), or an output pin's net. */
+  pinLevel(partId: string, pin: string): Level {
+    const part = this.netlist.partById(partId);
+    const net = this.netlist.netOf(partId, pin);
+    return part && part.inputPins.includes(pin) && !isOutputKind(part.kind) ? levelName(this.read(net)) : this.level(net);
+  }
+
+  /** Every pin's level, keyed `partId.pin`. */
+  levels(): Map<string, Level> {
+    const map = new Map<string, Level>();
+    for (const p of this.parts) for (const pin of [...p.inputPins, ...p.outputPins]) map.set(`${p.id}.${pin}`, this.pinLevel(p.id, pin));
+    return map;
+  }
+
+  /** Lamp and probe levels by label (or id). */
+  outputValues(): Record<string, Level> {
+    const r: Record<string, Level> = {};
+    for (const p of this.netlist.outputs) r[p.name] = this.level(p.inputs[0]);
+    return r;
+  }
+
+  /** Input part levels by label (or id). */
+  inputValues(): Record<string, Level> {
+    const r: Record<string, Level> = {};
+    for (const p of this.netlist.inputs) r[p.name] = levelName(this.sourceLevel[p.index]);
+    return r;
+  }
+
+  /** Subscribes to net changes; returns the unsubscribe function. */
+  onChange(cb: ChangeListener): () => void {
+    this.listeners.add(cb);
+    return () => { this.listeners.delete(cb); };
+  }
+}
