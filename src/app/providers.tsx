@@ -1,0 +1,27 @@
+import { QueryClientProvider } from '@tanstack/react-query';
+import { useState, type ReactNode } from 'react';
+import { Toaster } from 'sonner';
+import { createQueryClient } from '../lib/query-client';
+
+/** Server state (TanStack Query) and the toaster, around the whole app. */
+export function Providers({ children }: { children: ReactNode }) {
+  const [client] = useState(createQueryClient);
+  return (
+    <QueryClientProvider client={client}>
+      {children}
+      <Toaster
+        theme="dark"
+        position="bottom-right"
+        closeButton
+        toastOptions={{
+          classNames: {
+            toast: '!bg-bench-800 !border !border-bench-600 !text-slate-100 !font-sans',
+            description: '!text-slate-300',
+            success: '[&_[data-icon]]:!text-amber-glow',
+            error: '[&_[data-icon]]:!text-rose-400',
+          },
+        }}
+      />
+    </QueryClientProvider>
+  );
+}

@@ -1,0 +1,76 @@
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
+import { ErrorState } from '../../components/ui/error-state';
+import { RoleBadge } from '../../components/ui/role-badge';
+import { LoadingState } from '../../components/ui/spinner';
+import { meQueryOptions } from '../../features/auth/api';
+import { boardQueryOptions } from '../../features/boards/api';
+import { BoardTitleEditor } from '../../features/boards/components/board-title-editor';
+import { DeleteBoardButton } from '../../features/boards/components/delete-board-button';
+import { FamilyPicker } from '../../features/boards/components/family-picker';
+import { SafetyCaution } from '../../features/boards/components/safety-caution';
+import { MemberAvatars } from '../../features/members/components/member-avatars';
+import { MemberListPanel } from '../../features/members/components/member-list-panel';
+import { canEdit, isOwner } from '../../lib/roles';
+import { PageColumn } from '../layout';
+import { useIdParam } from '../../lib/use-id-param';
+
+/**
+ * One board: a compact header (title, role, family, members, owner actions) and below it the whole
+ * remaining area for the workspace.
+ */
+export function BoardPage() {
+  const boardId = useIdParam();
+  const board = useQuery({ ...boardQueryOptions(boardId ?? 0), enabled: boardId !== null });
+  const me = useQuery(meQueryOptions);
+
+  if (boardId === null) return <BadId />;
+  if (board.isPending) return <LoadingState label="Opening the board…" />;
+  if (board.isError)
+    return (
+      <PageColumn width="narrow">
+        <ErrorState error={board.error} onRetry={() => board.refetch()} />
+      </PageColumn>
+    );
+
+  const b = board.data;
+  return (
+    <div className="flex min-h-0 flex-1 flex-col" data-testid="board-page">
+      <header className="flex min-h-11 shrink-0 flex-wrap items-center gap-x-4 gap-y-1 border-b border-bench-700 bg-bench-900/90 px-4 py-1.5">
+        <BoardTitleEditor board={b} editable={canEdit(b.role)} />
+        <span className="flex items-center gap-1.5 text-xs text-slate-400">
+          you are <RoleBadge role={b.role} />
+        </span>
+        <FamilyPicker board={b} editable={canEdit(b.role)} />
+        <div className="ml-auto flex items-center gap-3">
+          <MemberAvatars boardId={b.id} />
+          {isOwner(b.role) && (
+            <>
+              <Link to={`/boards/${b.id}/members`} className="rounded px-2 py-1 text-sm text-amber-300 hover:bg-bench-800">
+                Members
+              </Link>
+              <DeleteBoardButton board={b} />
+            </>
+          )}
+        </div>
+      </header>
+      <SafetyCaution family={b.family} />
+      <div className="flex min-h-0 flex-1">
+        {/* board workspace: canvas, bench and analysis panels mount here */}
+        <div className="flex flex-1 items-start justify-end p-4">
+          <div className="w-72">
+            <MemberListPanel boardId={b.id} currentUserId={me.data?.id} />
+          </div>
+        </div>
+      </div>
+    </div>
+  );
+}
+
+function BadId() {
+  return (
+    <PageColumn width="narrow">
+      <ErrorState error={new Error('A board address ends in its number, like /boards/12.')} title="Not a board address" />
+    </PageColumn>
+  );
+}

@@ -1,0 +1,44 @@
+import { useQuery } from '@tanstack/react-query';
+import { useNavigate } from 'react-router-dom';
+import { Card, CardBody, CardHeader } from '../../components/ui/card';
+import { EmptyState } from '../../components/ui/empty-state';
+import { ErrorState } from '../../components/ui/error-state';
+import { LoadingState } from '../../components/ui/spinner';
+import { boardsQueryOptions } from '../../features/boards/api';
+import { BoardsTable } from '../../features/boards/components/boards-table';
+import { CreateBoardForm } from '../../features/boards/components/create-board-form';
+import { PageColumn } from '../layout';
+
+export function BoardsListPage() {
+  const boards = useQuery(boardsQueryOptions());
+  const navigate = useNavigate();
+  return (
+    <PageColumn>
+      <div className="flex flex-col gap-6">
+        <Card>
+          <CardHeader title="New board" subtitle="Start an empty schematic; invite people once it exists." />
+          <CardBody>
+            <CreateBoardForm onCreated={(b) => navigate(`/boards/${b.id}`)} />
+          </CardBody>
+        </Card>
+        <section aria-labelledby="boards-heading" className="flex flex-col gap-3">
+          <h1 id="boards-heading" className="text-lg font-semibold text-slate-100">
+            Your boards
+          </h1>
+          {boards.isPending ? (
+            <LoadingState label="Loading your boards…" />
+          ) : boards.isError ? (
+            <ErrorState error={boards.error} onRetry={() => boards.refetch()} />
+          ) : boards.data.length === 0 ? (
+            <EmptyState title="No boards yet">
+              Give your first circuit a title above — a half adder is a good start — and it opens on an empty bench, ready for
+              parts from the parts tray.
+            </EmptyState>
+          ) : (
+            <BoardsTable boards={boards.data} />
+          )}
+        </section>
+      </div>
+    </PageColumn>
+  );
+}

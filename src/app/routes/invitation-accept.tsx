@@ -1,0 +1,34 @@
+import { useQuery } from '@tanstack/react-query';
+import { useNavigate, useParams } from 'react-router-dom';
+import { ErrorState } from '../../components/ui/error-state';
+import { LoadingState } from '../../components/ui/spinner';
+import { meQueryOptions } from '../../features/auth/api';
+import { invitationQueryOptions } from '../../features/members/api';
+import { InvitationCard } from '../../features/members/components/invitation-card';
+import { isApiError } from '../../lib/api-client';
+import { PageColumn } from '../layout';
+
+export function InvitationAcceptPage() {
+  const { token = '' } = useParams();
+  const invitation = useQuery(invitationQueryOptions(token));
+  const me = useQuery(meQueryOptions);
+  const navigate = useNavigate();
+
+  let body;
+  if (invitation.isPending || me.isPending) body = <LoadingState label="Reading the invitation…" />;
+  else if (invitation.isError)
+    body =
+      isApiError(invitation.error) && invitation.error.status === 404 ? (
+        <ErrorState
+          error={invitation.error}
+          title="Invitation not found"
+          message="This invitation link is unknown or has already been used. Ask the board's owner to invite you again."
+        />
+      ) : (
+        <ErrorState error={invitation.error} onRetry={() => invitation.refetch()} />
+      );
+  else if (me.isError) body = <ErrorState error={me.error} onRetry={() => me.refetch()} />;
+  else body = <InvitationCard token={token} invitation={invitation.data} user={me.data} onAccepted={(id) => navigate(`/boards/${id}`, { replace: true })} />;
+
+  return <PageColumn width="narrow">{body}</PageColumn>;
+}

@@ -1,0 +1,30 @@
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { AuthCard } from '../../features/auth/components/auth-card';
+import { NewPasswordForm } from '../../features/auth/components/new-password-form';
+import { notifySuccess } from '../../lib/notify';
+import { PageColumn } from '../layout';
+
+export function ResetPasswordPage() {
+  const { token = '' } = useParams();
+  const navigate = useNavigate();
+  return (
+    <PageColumn width="narrow">
+      <AuthCard
+        title="Choose a new password"
+        footer={
+          <Link to="/reset" className="hover:text-slate-200 hover:underline">
+            Need a new link?
+          </Link>
+        }
+      >
+        <NewPasswordForm
+          token={token}
+          onDone={() => {
+            notifySuccess('Password changed', 'Sign in with your new password.');
+            navigate('/signin', { replace: true });
+          }}
+        />
+      </AuthCard>
+    </PageColumn>
+  );
+}

@@ -1,0 +1,22 @@
+import { Link } from 'react-router-dom';
+import { AuthCard } from '../../features/auth/components/auth-card';
+import { ResetRequestForm } from '../../features/auth/components/reset-request-form';
+import { PageColumn } from '../layout';
+
+export function ResetRequestPage() {
+  return (
+    <PageColumn width="narrow">
+      <AuthCard
+        title="Reset your password"
+        subtitle="We will e-mail you a link to choose a new one."
+        footer={
+          <Link to="/signin" className="text-amber-300 hover:underline">
+            Back to sign in
+          </Link>
+        }
+      >
+        <ResetRequestForm />
+      </AuthCard>
+    </PageColumn>
+  );
+}
