@@ -1,0 +1,194 @@
+import * as Y from 'yjs';
+import * as syncProtocol from 'y-protocols/sync';
+import * as awarenessProtocol from 'y-protocols/awareness';
+import * as encoding from 'lib0/encoding';
+import * as decoding from 'lib0/decoding';
+import { WebSocket } from 'ws';
+import { nowIso } from '../db/knex';
+import type { NewBoardUpdate } from '../db/board-updates';
+import { ServerOrigin, appendBoardChanges, compactBoardRows } from '../services/board-docs';
+import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
+
+/** Message types of the y-websocket protocol. */
+export const MSG = { sync: 0, awareness: 1, auth: 2, queryAwareness: 3 } as const;
+const SYNC = { step1: 0, step2: 1, update: 2 } as const;
+
+/** One open socket in a room. */
+export interface Conn {
+  ws: WebSocket;
+  peer: Peer;
+  /** awareness client ids this socket speaks for (removed when it leaves) */
+  clients: Set<number>;
+}
+
+/**
+ * One board's live document and its sockets. Every update applied to the document is queued for the
+ * database in the same tick it is applied (the write itself follows at once, in order); updates from
+ * viewers are never applied. A malformed message closes only its own socket.
+ */
+export class Room {
+  readonly conns = new Map<WebSocket, Conn>();
+  readonly awareness: awarenessProtocol.Awareness;
+  private pending: NewBoardUpdate[] = [];
+  private writing: Promise<void> = Promise.resolve();
+  private discarded = false;
+
+  constructor(
+    private readonly ctx: CollabContext,
+    readonly boardId: number,
+    readonly doc: Y.Doc,
+    private seq: number,
+    private rows: number,
+    private readonly options: () => CollabOptions,
+  ) {
+    this.awareness = new awarenessProtocol.Awareness(doc);
+    this.awareness.setLocalState(null);
+    doc.on('update', this.onDocUpdate);
+    this.awareness.on('update', this.onAwarenessUpdate);
+  }
+
+  private onDocUpdate = (update: Uint8Array, origin: unknown): void => {
+    const userId = origin instanceof ServerOrigin ? origin.userId : (this.conns.get(origin as WebSocket)?.peer.userId ?? null);
+    this.pending.push({ seq: ++this.seq, data: update, userId, createdAt: nowIso() });
+    void this.flush();
+    const enc = encoding.createEncoder();
+    encoding.writeVarUint(enc, MSG.sync);
+    syncProtocol.writeUpdate(enc, update);
+    this.broadcast(encoding.toUint8Array(enc), origin);
+  };
+
+  private onAwarenessUpdate = (
+    { added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown,
+  ): void => {
+    const conn = this.conns.get(origin as WebSocket);
+    if (conn) {
+      added.forEach((id) => conn.clients.add(id));
+      removed.forEach((id) => conn.clients.delete(id));
+    }
+    const changed = [...added, ...updated, ...removed];
+    const enc = encoding.createEncoder();
+    encoding.writeVarUint(enc, MSG.awareness);
+    encoding.writeVarUint8Array(enc, awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed));
+    // To everyone, the sender too: a lone client's own renewals are what keep its socket from timing out.
+    this.broadcast(encoding.toUint8Array(enc), null);
+  };
+
+  /** Writes every queued update, in order; compacts when the board has too many rows. */
+  flush(): Promise<void> {
+    this.writing = this.writing.then(async () => {
+      const batch = this.pending.splice(0);
+      if (!batch.length || this.discarded) return;
+      try {
+        await appendBoardChanges(this.ctx, this.boardId, batch);
+        this.rows += batch.length;
+        if (this.rows > this.options().compactThreshold) {
+          await compactBoardRows(this.ctx, this.boardId, this.doc, batch[batch.length - 1].seq);
+          this.rows = 1;
+        }
+      } catch (err) {
+        if (!this.discarded) console.error(`collab: board ${this.boardId}: storing ${batch.length} update(s) failed:`, err);
+      }
+    });
+    return this.writing;
+  }
+
+  /** Adds a socket: it gets our sync step 1 and everyone's awareness at once. */
+  join(ws: WebSocket, peer: Peer): Conn {
+    const conn: Conn = { ws, peer, clients: new Set() };
+    this.conns.set(ws, conn);
+    const enc = encoding.createEncoder();
+    encoding.writeVarUint(enc, MSG.sync);
+    syncProtocol.writeSyncStep1(enc, this.doc);
+    this.send(conn, encoding.toUint8Array(enc));
+    const states = [...this.awareness.getStates().keys()];
+    if (states.length) this.send(conn, this.awarenessMessage(states));
+    return conn;
+  }
+
+  /** Removes a socket and the awareness states it spoke for. */
+  leave(ws: WebSocket): void {
+    const conn = this.conns.get(ws);
+    if (!conn) return;
+    this.conns.delete(ws);
+    awarenessProtocol.removeAwarenessStates(this.awareness, [...conn.clients], null);
+  }
+
+  /** Handles one message; a bad one is logged and closes that socket only. */
+  receive(conn: Conn, data: Uint8Array): void {
+    try {
+      const reply = this.handle(conn, data);
+      if (reply) this.send(conn, reply);
+    } catch (err) {
+      const code = err instanceof CollabError ? err.code : 'malformed_message';
+      if (this.ctx.config.logErrors) console.warn(`collab: board ${this.boardId}: closing a socket after a bad message (${code}): ${(err as Error).message}`);
+      conn.ws.close(CLOSE.invalidData, code);
+    }
+  }
+
+  private handle(conn: Conn, data: Uint8Array): Uint8Array | null {
+    const decoder = decoding.createDecoder(data);
+    const type = decoding.readVarUint(decoder);
+    switch (type) {
+      case MSG.sync: {
+        const step = decoding.readVarUint(decoder);
+        const enc = encoding.createEncoder();
+        encoding.writeVarUint(enc, MSG.sync);
+        if (step === SYNC.step1) {
+          syncProtocol.readSyncStep1(decoder, enc, this.doc);
+          return encoding.toUint8Array(enc);
+        }
+        if (step !== SYNC.step2 && step !== SYNC.update) throw new CollabError('unknown_message', `unknown sync step ${step}`);
+        const update = decoding.readVarUint8Array(decoder);
+        // Read-only on the server: a viewer's document changes are never applied (y-protocols PROTOCOL.md).
+        if (conn.peer.role === 'viewer') return null;
+        Y.decodeUpdate(update); // throws on a malformed update before anything touches the document
+        Y.applyUpdate(this.doc, update, conn.ws);
+        return null;
+      }
+      case MSG.awareness:
+        awarenessProtocol.applyAwarenessUpdate(this.awareness, decoding.readVarUint8Array(decoder), conn.ws);
+        return null;
+      case MSG.queryAwareness:
+        return this.awarenessMessage([...this.awareness.getStates().keys()]);
+      case MSG.auth:
+        throw new CollabError('unknown_message', 'auth messages are not used; the session decides');
+      default:
+        throw new CollabError('unknown_message', `unknown message type ${type}`);
+    }
+  }
+
+  private awarenessMessage(clients: number[]): Uint8Array {
+    const enc = encoding.createEncoder();
+    encoding.writeVarUint(enc, MSG.awareness);
+    encoding.writeVarUint8Array(enc, awarenessProtocol.encodeAwarenessUpdate(this.awareness, clients));
+    return encoding.toUint8Array(enc);
+  }
+
+  private send(conn: Conn, data: Uint8Array): void {
+    if (conn.ws.readyState !== WebSocket.OPEN) return;
+    conn.ws.send(data, (err) => {
+      if (err) conn.ws.terminate();
+    });
+  }
+
+  private broadcast(data: Uint8Array, except: unknown): void {
+    for (const conn of this.conns.values()) if (conn.ws !== except) this.send(conn, data);
+  }
+
+  /** Closes every socket with `code`. */
+  closeAll(code: number, reason: string): void {
+    for (const conn of [...this.conns.values()]) conn.ws.close(code, reason);
+  }
+
+  /** The board is gone: drop queued updates (their rows would have no board) and stop writing. */
+  discard(): void {
+    this.discarded = true;
+    this.pending = [];
+  }
+
+  destroy(): void {
+    this.doc.off('update', this.onDocUpdate);
+    this.awareness.destroy();
+    this.doc.destroy();
+  }
+}

@@ -1,0 +1,141 @@
+import * as Y from 'yjs';
+import type { BoardFile } from '../../shared/board/schema';
+import { boardToDoc, docToBoard, partsMap, wiresMap } from '../../shared/board/ydoc';
+import { replaceWithBoard } from '../../shared/board/edits';
+import type { Db } from '../db/knex';
+import { nowIso } from '../db/knex';
+import {
+  appendBoardUpdates, countBoardUpdates, loadBoardUpdates, maxBoardUpdateSeq, replaceBoardUpdates,
+  type NewBoardUpdate,
+} from '../db/board-updates';
+
+/**
+ * A board's content lives as Yjs updates in `board_updates`. This service loads and stores them, and
+ * reads / writes a whole board file — through the live room when one is open (so connected screens
+ * update), else straight in the database. Rooms (server/collab) register themselves here.
+ */
+
+/** What the service needs of the app context. */
+export interface BoardDocsContext {
+  db: Db;
+}
+
+/** The origin of changes the server makes itself (import, seed, restore); `userId` is who asked. */
+export class ServerOrigin {
+  constructor(readonly userId: number | null, readonly reason: string) {}
+}
+
+/** A board open in a live room. */
+export interface LiveBoard {
+  doc: Y.Doc;
+  /** Resolves when every applied update is in the database. */
+  flush(): Promise<void>;
+}
+/** Looks up open rooms; the collaboration server registers one per app context. */
+export type LiveBoards = (boardId: number) => LiveBoard | undefined;
+
+const liveByCtx = new WeakMap<object, LiveBoards>();
+const locksByCtx = new WeakMap<object, Map<number, Promise<unknown>>>();
+
+/** Registers the collaboration server's room lookup for this context. */
+export function registerLiveBoards(ctx: BoardDocsContext, lookup: LiveBoards): void {
+  liveByCtx.set(ctx, lookup);
+}
+
+/**
+ * Runs `fn` while holding the board's lock, so that opening a room, unloading it and writing a file
+ * never interleave (a file written while a room loads would otherwise be missed by the room).
+ */
+export async function withBoardLock<T>(ctx: BoardDocsContext, boardId: number, fn: () => Promise<T>): Promise<T> {
+  let locks = locksByCtx.get(ctx);
+  if (!locks) locksByCtx.set(ctx, (locks = new Map()));
+  const before = locks.get(boardId) ?? Promise.resolve();
+  const run = before.catch(() => undefined).then(fn);
+  const tail = run.catch(() => undefined);
+  locks.set(boardId, tail);
+  void tail.then(() => {
+    if (locks.get(boardId) === tail) locks.delete(boardId);
+  });
+  return run;
+}
+
+/** A loaded board: a fresh document holding the merge of its rows, the last seq and the row count. */
+export interface LoadedBoard {
+  doc: Y.Doc;
+  seq: number;
+  rows: number;
+}
+
+/** Loads a board's stored updates into a fresh Y.Doc (an unknown board gives an empty document). */
+export async function loadBoardDoc(ctx: BoardDocsContext, boardId: number): Promise<LoadedBoard> {
+  const rows = await loadBoardUpdates(ctx.db, boardId);
+  const doc = new Y.Doc();
+  doc.transact(() => {
+    for (const row of rows) Y.applyUpdate(doc, row.data);
+  });
+  return { doc, seq: rows.length ? rows[rows.length - 1].seq : 0, rows: rows.length };
+}
+
+/** Appends updates to a board's stored history. */
+export async function appendBoardChanges(ctx: BoardDocsContext, boardId: number, updates: NewBoardUpdate[]): Promise<void> {
+  await appendBoardUpdates(ctx.db, boardId, updates);
+}
+
+/**
+ * Compaction: `doc` (which holds at least every row up to `uptoSeq`) re-encoded as one update replaces
+ * those rows. Re-encoding from a Y.Doc (not Y.mergeUpdates) drops garbage-collected deleted content.
+ */
+export async function compactBoardRows(ctx: BoardDocsContext, boardId: number, doc: Y.Doc, uptoSeq: number): Promise<void> {
+  await replaceBoardUpdates(ctx.db, boardId, uptoSeq, Y.encodeStateAsUpdate(doc), nowIso());
+}
+
+/** Compacts a board that is not open in a room; returns the remaining row count. */
+export async function compactStoredBoard(ctx: BoardDocsContext, boardId: number): Promise<number> {
+  return withBoardLock(ctx, boardId, async () => {
+    if (liveByCtx.get(ctx)?.(boardId)) return countBoardUpdates(ctx.db, boardId);
+    const { doc, seq, rows } = await loadBoardDoc(ctx, boardId);
+    if (rows > 1) await compactBoardRows(ctx, boardId, doc, seq);
+    doc.destroy();
+    return countBoardUpdates(ctx.db, boardId);
+  });
+}
+
+/** The board file of a board: from its live room if open, else from the database. */
+export async function readBoardFile(ctx: BoardDocsContext, boardId: number): Promise<BoardFile> {
+  const live = liveByCtx.get(ctx)?.(boardId);
+  if (live) return docToBoard(live.doc);
+  return withBoardLock(ctx, boardId, async () => {
+    const open = liveByCtx.get(ctx)?.(boardId);
+    if (open) return docToBoard(open.doc);
+    const { doc } = await loadBoardDoc(ctx, boardId);
+    const board = docToBoard(doc);
+    doc.destroy();
+    return board;
+  });
+}
+
+/**
+ * Makes the board's content `file`: an empty board gets it directly; a board with content (live or
+ * stored) is turned into it by `replaceWithBoard`, an ordinary change every connected screen receives.
+ */
+export async function writeBoardFile(ctx: BoardDocsContext, boardId: number, file: BoardFile, userId: number | null): Promise<void> {
+  await withBoardLock(ctx, boardId, async () => {
+    const origin = new ServerOrigin(userId, 'write-board-file');
+    const live = liveByCtx.get(ctx)?.(boardId);
+    if (live) {
+      replaceWithBoard(live.doc, file, origin);
+      await live.flush();
+      return;
+    }
+    const { doc } = await loadBoardDoc(ctx, boardId);
+    const empty = partsMap(doc).size === 0 && wiresMap(doc).size === 0;
+    const updates: Uint8Array[] = [];
+    doc.on('update', (u: Uint8Array) => updates.push(u));
+    if (empty) boardToDoc(file, doc, origin);
+    else replaceWithBoard(doc, file, origin);
+    doc.destroy();
+    let seq = await maxBoardUpdateSeq(ctx.db, boardId);
+    const now = nowIso();
+    await appendBoardChanges(ctx, boardId, updates.map((data) => ({ seq: ++seq, data, userId, createdAt: now })));
+  });
+}
