@@ -1,4 +1,6 @@
+import { readFileSync } from 'node:fs';
 import * as Y from 'yjs';
+import { parseBoardFile } from '../../shared/board/validate';
 import type { BoardFile } from '../../shared/board/schema';
 import { boardToDoc, docToBoard, partsMap, wiresMap } from '../../shared/board/ydoc';
 import { replaceWithBoard } from '../../shared/board/edits';
@@ -138,4 +140,22 @@ export async function writeBoardFile(ctx: BoardDocsContext, boardId: number, fil
     const now = nowIso();
     await appendBoardChanges(ctx, boardId, updates.map((data) => ({ seq: ++seq, data, userId, createdAt: now })));
   });
+}
+
+/** Reads `examples/<slug>.gatefold.json` (the demo boards' content), checked like an import. */
+export function readExampleBoard(slug: string): BoardFile {
+  if (!/^[a-z0-9-]+$/.test(slug)) throw new Error(`bad example name "${slug}"`);
+  const raw: unknown = JSON.parse(readFileSync(new URL(`../../examples/${slug}.gatefold.json`, import.meta.url), 'utf8'));
+  const parsed = parseBoardFile(raw);
+  if (!parsed.ok) throw new Error(`examples/${slug}.gatefold.json: ${parsed.problems.map((p) => p.message).join('; ')}`);
+  return parsed.board;
+}
+
+/** The `ctx.boardContent` hook of the demo seed: each demo board gets its example file. */
+export function exampleBoardContent(ctx: BoardDocsContext): { seed(boardId: number, slug: string, ownerId: number): Promise<void> } {
+  return {
+    async seed(boardId, slug, ownerId) {
+      await writeBoardFile(ctx, boardId, readExampleBoard(slug), ownerId);
+    },
+  };
 }

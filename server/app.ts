@@ -1,0 +1,118 @@
+import express, { type Express, type RequestHandler } from 'express';
+import type { AppConfig } from './config';
+import { openDb, type Db } from './db/knex';
+import { migrateLatest } from './db/migrate';
+import { createSessionStore, stopSessionStore } from './db/session-store';
+import { countUsers } from './db/users';
+import { apiNotFound, errorHandler } from './http/errors';
+import { createSessionMiddleware } from './http/middleware/session';
+import { originCheck } from './http/middleware/origin';
+import { createRateLimits } from './http/middleware/rate-limits';
+import { securityHeaders } from './http/middleware/security';
+import { clientRouter } from './http/middleware/static';
+import { authRouter } from './http/routes/auth';
+import { boardsRouter } from './http/routes/boards';
+import { healthRouter } from './http/routes/health';
+import { invitationsRouter } from './http/routes/invitations';
+import { membersRouter } from './http/routes/members';
+import { outboxRouter } from './http/routes/outbox';
+import { createServices, type Services } from './services';
+import { APP_DB_KEY } from './services/authz';
+import { createEvents, type AppEvents } from './services/events';
+import { createMailer, type Mailer } from './services/mail';
+import { seedDemo, type BoardContentSeeder } from './seed/demo';
+
+/** Everything a feature needs from the running app. */
+export interface AppContext {
+  app: Express;
+  db: Db;
+  config: AppConfig;
+  /** The express-session middleware; run it on a websocket upgrade request to read `req.session.userId`. */
+  sessionMiddleware: RequestHandler;
+  services: Services;
+  events: AppEvents;
+  mail: Mailer;
+  /** Set by the collaboration feature: fills a new demo board's document. */
+  boardContent?: BoardContentSeeder;
+  /** Async shutdown work of features, run (last registered first) before the mail catcher and Knex close. */
+  onClose: Array<() => Promise<void>>;
+  /** Runs and empties `onClose` (startServer calls it before waiting for open connections). */
+  closeFeatures(): Promise<void>;
+  /** Closes features, the mail catcher and the database. Safe to call twice. */
+  close(): Promise<void>;
+}
+
+/** Builds the app (migrated database, mail, sessions, routes) without listening. */
+export async function createApp(config: AppConfig): Promise<AppContext> {
+  const db = openDb(config.databaseFile);
+  let mail: Mailer | undefined;
+  try {
+    await migrateLatest(db);
+    mail = await createMailer(config, db);
+  } catch (err) {
+    await db.destroy();
+    throw err;
+  }
+  const store = createSessionStore(db);
+  await store.ready;
+  const events = createEvents();
+  const services = createServices(db, config, events, mail);
+  const sessionMiddleware = createSessionMiddleware(config, store);
+  const limits = createRateLimits(config);
+
+  const app = express();
+  app.locals[APP_DB_KEY] = db;
+  app.disable('x-powered-by');
+  // Behind an https proxy the cookie is Secure; Express must trust X-Forwarded-Proto to send it.
+  if (config.publicUrl?.startsWith('https:')) app.set('trust proxy', 'loopback, linklocal, uniquelocal');
+
+  app.use(securityHeaders(config));
+  app.use('/api', express.json({ limit: config.jsonLimit }));
+  app.use('/api', sessionMiddleware);
+  app.use('/api', originCheck(config));
+
+  app.use('/api', healthRouter(config.version));
+  app.use('/api', authRouter(services, config, limits));
+  app.use('/api', boardsRouter(services));
+  app.use('/api', membersRouter(services, config));
+  app.use('/api', invitationsRouter(services));
+  app.use('/api', outboxRouter(services));
+
+  const onClose: Array<() => Promise<void>> = [];
+  const closeFeatures = async () => {
+    for (let fn = onClose.pop(); fn; fn = onClose.pop()) {
+      try {
+        await fn();
+      } catch (err) {
+        console.error('a shutdown hook failed:', err);
+      }
+    }
+  };
+  let closing: Promise<void> | undefined;
+  const ctx: AppContext = {
+    app, db, config, sessionMiddleware, services, events, mail, onClose, closeFeatures,
+    close: () =>
+      (closing ??= (async () => {
+        await closeFeatures();
+        stopSessionStore(store);
+        await mail.close();
+        await db.destroy();
+      })()),
+  };
+
+  // routers of other features are mounted here (before the /api 404 below), e.g.
+  //   app.use('/api', snapshotsRouter(ctx));   and set ctx.boardContent / ctx.onClose.push(...) here.
+
+  app.use('/api', apiNotFound);
+  const client = clientRouter(config.distDir);
+  if (client) app.use(client);
+  app.use(errorHandler(config.logErrors));
+
+  try {
+    if (config.seedDemo && (await countUsers(db)) === 0) await seedDemo(ctx);
+  } catch (err) {
+    await ctx.close();
+    throw err;
+  }
+  return ctx;
+}

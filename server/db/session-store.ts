@@ -1,0 +1,20 @@
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import type { Db } from './knex';
+
+/** Sessions live in the same SQLite file, table `sessions` (the store creates it). */
+export function createSessionStore(db: Db): ConnectSessionKnexStore {
+  return new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 10 * 60 * 1000 });
+}
+
+/** Stops the store's periodic clean-up so the process can exit and Knex can close. */
+export function stopSessionStore(store: ConnectSessionKnexStore): void {
+  if (store.nextDbCleanup) clearTimeout(store.nextDbCleanup);
+  store.nextDbCleanup = undefined;
+}
+
+/** Signs a user out everywhere (after a password reset), except the session `keepSid`. */
+export async function deleteSessionsOfUser(db: Db, userId: number, keepSid?: string): Promise<number> {
+  const q = db('sessions').whereRaw("json_extract(sess, '$.userId') = ?", [userId]);
+  if (keepSid) q.whereNot('sid', keepSid);
+  return q.del();
+}

@@ -1,0 +1,89 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError, type ZodType } from 'zod';
+
+/** An error with an HTTP status and a snake_case code; the error middleware turns it into the contract's shape. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = 'HttpError';
+  }
+}
+
+export const badRequest = (code: string, message: string, fields?: Record<string, string>) =>
+  new HttpError(400, code, message, fields);
+export const notSignedIn = () => new HttpError(401, 'not_signed_in', 'Sign in first');
+export const forbidden = (code: string, message: string) => new HttpError(403, code, message);
+export const notFound = (code: string, message: string) => new HttpError(404, code, message);
+export const conflict = (code: string, message: string) => new HttpError(409, code, message);
+
+/** Zod issues → `{field: message}`, first message per field; nested paths joined with dots. */
+export function zodFields(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.length ? issue.path.map(String).join('.') : '_';
+    if (!(key in fields)) fields[key] = issue.message;
+  }
+  return fields;
+}
+
+/** Validates `value` (a body, or a params object) with `schema`, or throws 400 `invalid_input` with fields. */
+export function parseInput<T>(schema: ZodType<T>, value: unknown): T {
+  const r = schema.safeParse(value ?? {});
+  if (!r.success) {
+    const fields = zodFields(r.error);
+    const first = Object.values(fields)[0] ?? 'Invalid input';
+    throw badRequest('invalid_input', first, fields);
+  }
+  return r.data;
+}
+
+/** Every unknown /api route. */
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(notFound('not_found', `No such API route: ${req.method} ${req.originalUrl.split('?')[0]}`));
+};
+
+interface ParserError {
+  type?: string;
+  status?: number;
+  statusCode?: number;
+  code?: string;
+  expose?: boolean;
+}
+
+/** Maps anything thrown to `{status, body}`; unknown errors become a bare 500 (details stay in the log). */
+export function toErrorResponse(err: unknown): { status: number; body: { error: { code: string; message: string; fields?: Record<string, string> } }; log: boolean } {
+  if (err instanceof HttpError) {
+    const error = { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) };
+    return { status: err.status, body: { error }, log: false };
+  }
+  if (err instanceof ZodError) {
+    const fields = zodFields(err);
+    return { status: 400, body: { error: { code: 'invalid_input', message: Object.values(fields)[0] ?? 'Invalid input', fields } }, log: false };
+  }
+  const e = (err ?? {}) as ParserError;
+  // body-parser (express.json) errors
+  if (e.type === 'entity.parse.failed') return { status: 400, body: { error: { code: 'malformed_json', message: 'The request body is not valid JSON' } }, log: false };
+  if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') return { status: 413, body: { error: { code: 'too_large', message: 'The request body is too large' } }, log: false };
+  if (e.type === 'encoding.unsupported' || e.type === 'charset.unsupported') return { status: 415, body: { error: { code: 'unsupported_encoding', message: 'Unsupported content encoding' } }, log: false };
+  const status = e.status ?? e.statusCode;
+  if (typeof status === 'number' && status >= 400 && status < 500) {
+    const message = e.expose && err instanceof Error ? err.message : 'Bad request';
+    return { status, body: { error: { code: 'bad_request', message } }, log: false };
+  }
+  return { status: 500, body: { error: { code: 'internal_error', message: 'Something went wrong on the server' } }, log: true };
+}
+
+/** The one error middleware. Never sends a stack trace. */
+export function errorHandler(logErrors: boolean): ErrorRequestHandler {
+  return (err, req, res, next) => {
+    if (res.headersSent) return next(err);
+    const { status, body, log } = toErrorResponse(err);
+    if (log && logErrors) console.error(`error in ${req.method} ${req.originalUrl}:`, err);
+    res.status(status).json(body);
+  };
+}

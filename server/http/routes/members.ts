@@ -1,0 +1,45 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { AddMemberSchema, IdParamSchema, UpdateMemberSchema } from '../../../shared/api/schemas';
+import type { AppConfig } from '../../config';
+import type { Services } from '../../services';
+import { requireBoardRole } from '../../services/authz';
+import { parseInput } from '../errors';
+import { requestOrigin } from '../middleware/origin';
+
+const UserParams = z.object({ userId: IdParamSchema });
+const InvitationParams = z.object({ invitationId: IdParamSchema });
+
+export function membersRouter(services: Services, config: AppConfig): Router {
+  const r = Router();
+
+  r.get('/boards/:id/members', requireBoardRole('viewer'), async (_req, res) => {
+    res.json(await services.members.list(res.locals.boardId, res.locals.boardRole));
+  });
+
+  r.post('/boards/:id/members', requireBoardRole('owner'), async (req, res) => {
+    const body = parseInput(AddMemberSchema, req.body);
+    res.status(201).json(await services.members.add(res.locals.boardId, res.locals.userId, body, requestOrigin(req, config)));
+  });
+
+  r.patch('/boards/:id/members/:userId', requireBoardRole('owner'), async (req, res) => {
+    const { userId } = parseInput(UserParams, req.params);
+    const { role } = parseInput(UpdateMemberSchema, req.body);
+    res.json({ member: await services.members.changeRole(res.locals.boardId, userId, role) });
+  });
+
+  // Any member may leave; only the owner may remove someone else (checked in the service).
+  r.delete('/boards/:id/members/:userId', requireBoardRole('viewer'), async (req, res) => {
+    const { userId } = parseInput(UserParams, req.params);
+    await services.members.remove(res.locals.boardId, userId, res.locals.userId, res.locals.boardRole);
+    res.status(204).end();
+  });
+
+  r.delete('/boards/:id/invitations/:invitationId', requireBoardRole('owner'), async (req, res) => {
+    const { invitationId } = parseInput(InvitationParams, req.params);
+    await services.invitations.revoke(res.locals.boardId, invitationId);
+    res.status(204).end();
+  });
+
+  return r;
+}

@@ -1,0 +1,21 @@
+import { EventEmitter } from 'node:events';
+import type { BoardRole } from '../../shared/api/types';
+
+/** Events other features listen to (e.g. websocket rooms close or downgrade sockets). */
+export interface AppEventMap {
+  /** A user's role on a board changed; `role` null = no longer a member. */
+  'membership-changed': [{ boardId: number; userId: number; role: BoardRole | null }];
+  /** A board was deleted (its rows are gone). */
+  'board-deleted': [{ boardId: number }];
+  /** A board's title or family changed through the API. */
+  'board-updated': [{ boardId: number; title: string; family: string }];
+}
+
+export type AppEvents = EventEmitter<AppEventMap>;
+
+export function createEvents(): AppEvents {
+  const events = new EventEmitter<AppEventMap>();
+  // Every open board room may listen; do not warn at the default of 10.
+  events.setMaxListeners(0);
+  return events;
+}

@@ -1,0 +1,33 @@
+import type { AppConfig } from '../config';
+import type { Db } from '../db/knex';
+import { createAuthService, type AuthService } from './auth';
+import { createBoardsService, type BoardsService } from './boards';
+import type { AppEvents } from './events';
+import { createInvitationsService, type InvitationsService } from './invitations';
+import type { Mailer } from './mail';
+import { createMembersService, type MembersService } from './members';
+import { createOutboxService, type OutboxService } from './outbox';
+import { createUsersService, type UsersService } from './users';
+
+/** The business services of the foundation; features add their own beside these. */
+export interface Services {
+  auth: AuthService;
+  users: UsersService;
+  boards: BoardsService;
+  members: MembersService;
+  invitations: InvitationsService;
+  outbox: OutboxService;
+}
+
+export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer): Services {
+  const boards = createBoardsService(db, events);
+  const invitations = createInvitationsService(db, events, mailer, boards);
+  return {
+    auth: createAuthService(db, config, mailer),
+    users: createUsersService(db),
+    boards,
+    members: createMembersService(db, events, mailer, invitations),
+    invitations,
+    outbox: createOutboxService(db),
+  };
+}
