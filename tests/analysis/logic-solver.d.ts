@@ -1,0 +1,18 @@
+// Minimal typing of the parts of logic-solver (a SAT solver on npm) the analysis tests use.
+declare module 'logic-solver' {
+  export type Formula = string | object;
+  export class Solver {
+    require(...f: Formula[]): void;
+    forbid(...f: Formula[]): void;
+    solve(): { getTrueVars(): string[] } | null;
+  }
+  export function and(...f: Formula[]): Formula;
+  export function or(...f: Formula[]): Formula;
+  export function not(f: Formula): Formula;
+  export function xor(...f: Formula[]): Formula;
+  export function equiv(a: Formula, b: Formula): Formula;
+  export const TRUE: Formula;
+  export const FALSE: Formula;
+  const Logic: { Solver: typeof Solver; and: typeof and; or: typeof or; not: typeof not; xor: typeof xor; equiv: typeof equiv; TRUE: Formula; FALSE: Formula };
+  export default Logic;
+}
