@@ -21,6 +21,8 @@ import { APP_DB_KEY } from './services/authz';
 import { createEvents, type AppEvents } from './services/events';
 import { createMailer, type Mailer } from './services/mail';
 import { seedDemo, type BoardContentSeeder } from './seed/demo';
+import { boardFileRouter } from './http/routes/board-file';
+import { exampleBoardContent } from './services/board-docs';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -102,6 +104,8 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
 
   // routers of other features are mounted here (before the /api 404 below), e.g.
   //   app.use('/api', snapshotsRouter(ctx));   and set ctx.boardContent / ctx.onClose.push(...) here.
+  app.use('/api', boardFileRouter(ctx));
+  ctx.boardContent = exampleBoardContent(ctx);
 
   app.use('/api', apiNotFound);
   const client = clientRouter(config.distDir);

@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { pathToFileURL } from 'node:url';
 import { createApp, type AppContext } from './app';
 import { loadConfig, type AppConfig } from './config';
+import { attachCollab } from './collab';
 
 export interface RunningServer {
   server: http.Server;
@@ -16,6 +17,7 @@ export async function startServer(config: AppConfig): Promise<RunningServer> {
   const ctx = await createApp(config);
   const server = http.createServer(ctx.app);
   // Collaboration attaches its websocket upgrade handler here: attachCollab(server, ctx);
+  attachCollab(server, ctx);
 
   try {
     await new Promise<void>((resolve, reject) => {
