@@ -4,7 +4,8 @@
  * delays; an even N settles (latches) instead.
  */
 import { describe, expect, it } from 'vitest';
-import { compileBoard, familyDelays, Simulator, type FamilyId } from '../../shared/sim';
+import type { FamilyId } from '../../shared/board';
+import { compileBoard, familyDelays, Simulator } from '../../shared/sim';
 import { BoardBuilder } from './board-builder';
 import { inverterRing, ringOscillator } from './circuits';
 
