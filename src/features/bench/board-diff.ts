@@ -1,0 +1,29 @@
+import type { BoardFile, Part } from '../../../shared/board';
+
+/** Fields that never change what the circuit does (position, look) or that are input values set live. */
+const NON_STRUCTURAL = new Set(['x', 'y', 'rotation', 'text', 'on', 'pressed']);
+
+/**
+ * A key that changes only when the circuit itself changes (parts, their wiring, kinds, labels, family),
+ * not when a part moves or a switch flips. Equal keys let the worker keep its simulator — and with it
+ * every stored bit — and only set the new input values.
+ */
+export function structureKey(board: BoardFile): string {
+  const parts = board.parts
+    .filter((p) => p.kind !== 'note')
+    .map((p) => Object.entries(p).filter(([k]) => !NON_STRUCTURAL.has(k)).sort(([a], [b]) => (a < b ? -1 : 1)));
+  const wires = board.wires.map((w) => [w.from, w.to]);
+  return JSON.stringify([board.family, parts, wires]);
+}
+
+/** The value a document gives an input part (switch `on`, button `pressed`), undefined for other kinds. */
+export function documentValue(part: Part): boolean | undefined {
+  switch (part.kind) {
+    case 'switch':
+      return part.on;
+    case 'button':
+      return part.pressed;
+    default:
+      return undefined;
+  }
+}

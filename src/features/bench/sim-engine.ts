@@ -1,0 +1,261 @@
+import type { BoardFile, Part } from '../../../shared/board';
+import { compileBoard, DEFAULT_CLOCK_PERIOD_GATE_DELAYS, Simulator } from '../../../shared/sim';
+import { familyOf } from '../../../shared/sim/families';
+import type { Level } from '../../../shared/sim/levels';
+import type { Netlist, SettleReport } from '../../../shared/sim/types';
+import { partBadges } from './badges';
+import { documentValue, structureKey } from './board-diff';
+import { ClockDriver, type Timers } from './clock-driver';
+import { encodeLevels, levelCode, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+
+/**
+ * Half a clock period in time units, as the Simulator computes it for a clock part: the first clock's
+ * `period`, else DEFAULT_CLOCK_PERIOD_GATE_DELAYS slowest gate delays. Also the pause before an input change.
+ */
+export function halfPeriod(netlist: Netlist): number {
+  const slowest = Math.max(1, ...netlist.parts.map((p) => Math.max(p.rise, p.fall)));
+  const clock = netlist.inputs.find((p) => p.part.kind === 'clock');
+  const period = clock?.part.kind === 'clock' && clock.part.period ? clock.part.period : DEFAULT_CLOCK_PERIOD_GATE_DELAYS * slowest;
+  return Math.max(1, Math.round(period / 2));
+}
+
+/** Recorded numbers kept between two state messages (3 per change); beyond this a burst is cut short. */
+const TRACE_BUDGET = 3 * 60_000;
+
+const EMPTY_REPORT: SettleReport = { settled: true, time: 0, events: 0, oscillating: [], conflicts: [], undrivenInputs: [], races: [] };
+
+/**
+ * The simulation side of the bench, free of worker plumbing so tests can drive it directly: it keeps
+ * one Simulator for the board, recompiles only when the circuit itself changes (a moved part or a
+ * flipped switch keeps every stored bit), drives the clock, and records chosen nets for the timing strip.
+ */
+export class BenchEngine {
+  private key = '';
+  private board: BoardFile | null = null;
+  private current = new Map<string, Part>();
+  private netlist: Netlist | null = null;
+  private sim: Simulator | null = null;
+  private keys: string[] = [];
+  private tryOut = new Map<string, boolean>();
+  private applied = new Map<string, boolean>();
+  private report: SettleReport = EMPTY_REPORT;
+  private half = 10;
+  private lastEdgeAt = 0;
+  private signals: string[] = [];
+  private netSignals = new Map<number, number[]>();
+  private trace: number[] = [];
+  private edges: number[] = [];
+  private traceReset: { signals: string[]; at: number } | undefined;
+  private unsubscribe: (() => void) | undefined;
+  readonly clock: ClockDriver;
+
+  constructor(private readonly post: (msg: FromWorker, transfer?: Transferable[]) => void, timers?: Timers) {
+    this.clock = new ClockDriver((n) => {
+      this.halfCycles(n);
+      this.flush();
+    }, timers);
+  }
+
+  handle(msg: ToWorker): void {
+    try {
+      this.dispatch(msg);
+    } catch (err) {
+      this.post({ type: 'error', message: (err as Error).message });
+    }
+  }
+
+  private dispatch(msg: ToWorker): void {
+    switch (msg.type) {
+      case 'load':
+        this.tryOut = new Map(msg.tryOut);
+        this.load(msg.board);
+        break;
+      case 'set-input':
+        this.tryOut.set(msg.partId, msg.value);
+        this.apply(true);
+        break;
+      case 'clear-try-out':
+        this.tryOut.clear();
+        this.apply(true);
+        break;
+      case 'clock':
+        if (msg.action === 'run') this.clock.run();
+        else if (msg.action === 'pause') this.clock.pause();
+        else this.halfCycles(this.clock.phase ? 3 : 2);
+        break;
+      case 'rate':
+        this.clock.setRate(msg.hz);
+        break;
+      case 'reset-state':
+        if (this.sim) {
+          this.sim.resetState();
+          this.report = this.sim.settle();
+        }
+        break;
+      case 'subscribe':
+        this.signals = msg.signals;
+        this.resubscribe();
+        break;
+      default: {
+        const never: never = msg;
+        throw new Error(`unknown message ${JSON.stringify(never)}`);
+      }
+    }
+    this.flush();
+  }
+
+  private load(board: BoardFile): void {
+    this.board = board;
+    this.current = new Map(board.parts.map((p) => [p.id, p]));
+    const key = structureKey(board);
+    if (key === this.key && this.sim) {
+      this.apply(true);
+      return;
+    }
+    this.key = key;
+    this.compile(board);
+  }
+
+  private compile(board: BoardFile): void {
+    this.unsubscribe?.();
+    this.sim = null;
+    const netlist = compileBoard(board, { family: board.family });
+    const sim = new Simulator(netlist, { family: board.family });
+    this.netlist = netlist;
+    this.sim = sim;
+    this.applied.clear();
+    this.clock.restart();
+    this.lastEdgeAt = 0;
+    this.keys = netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`));
+    this.half = halfPeriod(netlist);
+    const port = (p: Netlist['parts'][number], pin: string): PortInfo => ({ partId: p.id, label: p.name, kind: p.kind, net: netlist.nets[netlist.netOf(p.id, pin)].name });
+    const family = familyOf(board.family);
+    this.post({
+      type: 'compiled',
+      keys: this.keys,
+      inputs: netlist.inputs.map((p) => port(p, 'out')),
+      outputs: netlist.outputs.map((p) => port(p, 'in')),
+      nets: netlist.nets.map((n) => n.name),
+      family: family.id,
+      timeUnitNs: family.timeUnitNs,
+      problems: netlist.problems.map((p) => p.message),
+    });
+    this.apply(false);
+    if (!this.applied.size) this.report = sim.settle();
+    this.unsubscribe = sim.onChange((time, net, level) => this.record(time, net, level));
+    this.resubscribe();
+  }
+
+  /** Sets every input whose value differs from what the simulator has, then settles. */
+  private apply(gap: boolean): void {
+    const sim = this.sim;
+    if (!sim || !this.netlist) return;
+    const changes: [string, boolean][] = [];
+    for (const input of this.netlist.inputs) {
+      const part = this.current.get(input.id) ?? input.part;
+      let value: boolean;
+      if (part.kind === 'clock') value = this.clock.phase;
+      else if (part.kind === 'const') value = part.value === 1;
+      else value = this.tryOut.get(part.id) ?? documentValue(part) ?? false;
+      if (this.applied.get(part.id) !== value) changes.push([part.id, value]);
+    }
+    if (!changes.length) return;
+    if (gap) this.idle(this.half);
+    for (const [id, value] of changes) {
+      sim.setInput(id, value);
+      this.applied.set(id, value);
+    }
+    this.report = sim.settle();
+  }
+
+  /** Runs `n` clock half-cycles; each edge comes half a period after the last one (or after settling). */
+  private halfCycles(n: number): void {
+    const sim = this.sim;
+    if (!sim) return;
+    for (let i = 0; i < n; i++) {
+      const target = Math.max(sim.time, this.lastEdgeAt + this.half);
+      if (target > sim.time) this.idle(target - sim.time);
+      this.lastEdgeAt = sim.time;
+      this.clock.toggle();
+      if (this.clock.phase) this.edges.push(sim.time);
+      this.apply(false);
+    }
+  }
+
+  /**
+   * Lets simulated time pass with the inputs held. The Simulator's runFor would also toggle clock parts
+   * on their own period; the bench drives clocks itself (run, pause, step), so it re-sets each clock to
+   * its level first, which restarts that clock's half period, and never runs a whole half period.
+   */
+  private idle(dt: number): void {
+    const sim = this.sim!;
+    const clocks = this.netlist!.inputs.filter((p) => p.kind === 'clock');
+    for (const c of clocks) sim.setInput(c.id, this.applied.get(c.id) ?? false);
+    const span = clocks.length ? Math.min(dt, this.half - 1) : dt;
+    if (span > 0) sim.runFor(span);
+  }
+
+  private resubscribe(): void {
+    const sim = this.sim;
+    const netlist = this.netlist;
+    this.netSignals.clear();
+    this.trace = [];
+    this.edges = [];
+    if (!sim || !netlist) return;
+    const byName = new Map(netlist.nets.map((n) => [n.name, n.id]));
+    const names = this.signals.filter((s) => byName.has(s));
+    names.forEach((name, i) => {
+      const net = byName.get(name)!;
+      this.netSignals.set(net, [...(this.netSignals.get(net) ?? []), i]);
+      this.trace.push(i, sim.time, levelCode(sim.level(net)));
+    });
+    this.traceReset = { signals: names, at: sim.time };
+  }
+
+  private record(time: number, net: number, level: Level): void {
+    const idx = this.netSignals.get(net);
+    if (!idx || this.trace.length >= TRACE_BUDGET) return;
+    for (const i of idx) this.trace.push(i, time, levelCode(level));
+  }
+
+  /** Posts the current state (levels, report, badges, values, new trace) to the page. */
+  flush(): void {
+    const sim = this.sim;
+    const netlist = this.netlist;
+    if (!sim || !netlist || !this.board) return;
+    const levels = encodeLevels(this.keys, sim.levels());
+    const values: Record<string, Level> = {};
+    for (const p of netlist.inputs) values[p.id] = sim.pinLevel(p.id, 'out');
+    for (const p of netlist.outputs) values[p.id] = sim.pinLevel(p.id, 'in');
+    const oscillating = new Set(this.report.oscillating);
+    const pulsing = netlist.nets.filter((n) => oscillating.has(n.name)).flatMap((n) => [...n.drivers, ...n.readers].map((r) => `${r.part}.${r.pin}`));
+    const badges = [...partBadges(netlist, this.report, familyOf(this.board.family))].map(([id, b]) => [id, b.tone, b.text] as [string, typeof b.tone, string]);
+    const { settled, oscillating: osc, conflicts, undrivenInputs } = this.report;
+    this.post(
+      {
+        type: 'state',
+        levels,
+        report: { settled, oscillating: osc, conflicts, undrivenInputs },
+        values,
+        time: sim.time,
+        events: sim.stats.events,
+        lastEvents: this.report.events,
+        clock: { running: this.clock.running, rate: this.clock.rate, cycles: this.clock.cycles },
+        trace: this.trace,
+        edges: this.edges,
+        badges,
+        pulsing,
+        traceReset: this.traceReset,
+      },
+      [levels.buffer],
+    );
+    this.trace = [];
+    this.edges = [];
+    this.traceReset = undefined;
+  }
+
+  dispose(): void {
+    this.clock.pause();
+    this.unsubscribe?.();
+  }
+}

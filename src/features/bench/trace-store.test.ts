@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { emptyTrace } from '../timing/trace';
+import { levelCode } from './protocol';
+import { applyTrace } from './trace-store';
+
+describe('applyTrace', () => {
+  it('starts afresh on a reset and folds triples into compressed changes', () => {
+    const c = levelCode;
+    const first = applyTrace(emptyTrace(['OLD']), {
+      traceReset: { signals: ['CLK', 'Q'], at: 5 },
+      trace: [0, 5, c('0'), 1, 5, c('X'), 1, 7, c('0'), 0, 15, c('1'), 0, 15, c('1'), 1, 18, c('1')],
+      edges: [15],
+      time: 20,
+    });
+    expect(first.changed).toBe(true);
+    expect(first.trace.start).toBe(5);
+    expect(first.trace.signals.map((s) => s.name)).toEqual(['CLK', 'Q']);
+    expect(first.trace.signals[0].changes).toEqual([{ t: 5, v: '0' }, { t: 15, v: '1' }]);
+    expect(first.trace.signals[1].changes).toEqual([{ t: 5, v: 'X' }, { t: 7, v: '0' }, { t: 18, v: '1' }]);
+    expect(first.trace.edges).toEqual([15]);
+    expect(first.trace.end).toBe(20);
+
+    const again = applyTrace(first.trace, { trace: [0, 25, c('1'), 5, 25, c('0')], edges: [], time: 20 });
+    expect(again.trace).toBe(first.trace);
+    expect(again.changed).toBe(false); // a repeat level and an unknown signal index change nothing
+  });
+});

@@ -1,0 +1,35 @@
+import { emptyTrace, pushChange, type Trace } from '../timing/trace';
+import { codeLevel, type FromWorker } from './protocol';
+
+type StateMsg = Extract<FromWorker, { type: 'state' }>;
+
+/**
+ * Folds one state message's recording into the page's trace: a reset starts a new trace, then each
+ * [signal, time, code] triple becomes a compressed change and rising edges are appended.
+ * Returns the trace to keep (the same object unless the recording restarted) and whether it changed.
+ */
+export function applyTrace(trace: Trace, msg: Pick<StateMsg, 'trace' | 'edges' | 'traceReset' | 'time'>): { trace: Trace; changed: boolean } {
+  let changed = false;
+  if (msg.traceReset) {
+    trace = emptyTrace(msg.traceReset.signals, msg.traceReset.at);
+    changed = true;
+  }
+  const { trace: flat } = msg;
+  for (let i = 0; i + 2 < flat.length; i += 3) {
+    const signal = trace.signals[flat[i]];
+    const t = flat[i + 1];
+    if (!signal) continue;
+    const last = signal.changes[signal.changes.length - 1];
+    if (last && t < last.t) continue; // a late change cannot rewrite drawn history
+    changed = pushChange(signal.changes, t, codeLevel(flat[i + 2])) || changed;
+  }
+  for (const t of msg.edges) {
+    trace.edges.push(t);
+    changed = true;
+  }
+  if (trace.signals.length && msg.time > trace.end) {
+    trace.end = msg.time;
+    changed = true;
+  }
+  return { trace, changed };
+}
