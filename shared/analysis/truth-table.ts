@@ -1,0 +1,128 @@
+import { Simulator, type Netlist } from '../sim';
+import { BitParallelEvaluator } from './bit-parallel';
+import { levelise, type Levelised } from './levelise';
+import { familyFloating } from './floating';
+import type { TableSpec } from './table-spec';
+
+/** Level codes in a table: 0, 1, 2 = X, 3 = Z (as in the simulator). */
+export const CODE_CHARS = ['0', '1', 'X', 'Z'] as const;
+
+/** A truth table: per output one level code per row; row r spells the inputs in binary, first most significant. */
+export interface TruthTable {
+  inputs: string[];
+  outputs: string[];
+  inputIds: string[];
+  outputIds: string[];
+  rowCount: number;
+  /** per output, Uint8Array of codes (0, 1, 2 = X, 3 = Z) */
+  values: Uint8Array[];
+  /** per output: its value can depend on stored state (storage part or feedback loop in its fan-in) */
+  sequential: boolean[];
+  /** per output: the path that computed it */
+  method: ('bit-parallel' | 'event')[];
+}
+
+/** Progress of an enumeration. */
+export interface TableProgress { done: number; total: number }
+
+export interface EnumerateOptions {
+  /** rows per chunk between progress reports (rounded to whole words; default 65,536) */
+  chunkRows?: number;
+  /** force the event simulator for every output (the reference path, used by tests and the benchmark) */
+  eventOnly?: boolean;
+}
+
+/**
+ * Enumerates a truth table in chunks: a generator that yields progress after each chunk and returns
+ * the table. Combinational outputs use the bit-parallel path; outputs that depend on stored state use
+ * the event simulator, each row from power-on with the inputs set, so a held value shows as X (or as a
+ * storage part's power-on state).
+ */
+export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: EnumerateOptions = {}): Generator<TableProgress, TruthTable> {
+  const k = spec.inputs.length;
+  const rowCount = 2 ** k;
+  const lev: Levelised = levelise(netlist);
+  const sequential = spec.outputs.map((o) => lev.stateful[o.inputs[0]] === 1);
+  const useEvent = spec.outputs.map((_, i) => opts.eventOnly === true || sequential[i]);
+  const values = spec.outputs.map(() => new Uint8Array(rowCount));
+  const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 65536) / 32) * 32);
+  const total = rowCount * (useEvent.some((u) => !u) ? 1 : 0) + rowCount * (useEvent.some((u) => u) ? 1 : 0);
+  let done = 0;
+  if (useEvent.some((u) => !u)) {
+    const bp = new BitParallelEvaluator(netlist, lev, spec.inputs, familyFloating(netlist.family));
+    const wordsPer = chunk / 32;
+    const totalWords = Math.ceil(rowCount / 32);
+    for (let w0 = 0; w0 < totalWords; w0 += wordsPer) {
+      const count = Math.min(wordsPer, totalWords - w0);
+      const { T, F } = bp.evaluate(w0, count);
+      spec.outputs.forEach((o, i) => {
+        if (useEvent[i]) return;
+        const net = o.inputs[0];
+        const out = values[i];
+        if (netlist.nets[net].drivers.length === 0) { out.fill(3, w0 * 32, Math.min(rowCount, (w0 + count) * 32)); return; }
+        for (let j = 0; j < count; j++) {
+          const t = T[net * count + j];
+          const f = F[net * count + j];
+          const base = (w0 + j) * 32;
+          const end = Math.min(32, rowCount - base);
+          for (let b = 0; b < end; b++) out[base + b] = (t >>> b) & 1 ? 1 : (f >>> b) & 1 ? 0 : 2;
+        }
+      });
+      done += Math.min(count * 32, rowCount - w0 * 32);
+      yield { done, total };
+    }
+  }
+  if (useEvent.some((u) => u)) {
+    const sim = new Simulator(netlist);
+    for (let r = 0; r < rowCount; r++) {
+      spec.inputs.forEach((p, i) => sim.setInput(p.id, ((r >>> (k - 1 - i)) & 1) as 0 | 1));
+      sim.resetState();
+      const report = sim.settle();
+      const wobbly = new Set(report.oscillating);
+      spec.outputs.forEach((o, i) => {
+        if (!useEvent[i]) return;
+        const net = o.inputs[0];
+        values[i][r] = wobbly.has(netlist.nets[net].name) ? 2 : codeOf(sim.level(net));
+      });
+      done++;
+      if (done % chunk === 0) yield { done, total };
+    }
+    yield { done, total };
+  }
+  return {
+    inputs: spec.inputs.map((p) => p.name), outputs: spec.outputs.map((p) => p.name),
+    inputIds: spec.inputs.map((p) => p.id), outputIds: spec.outputs.map((p) => p.id),
+    rowCount, values, sequential, method: useEvent.map((u) => (u ? 'event' : 'bit-parallel')),
+  };
+}
+
+function codeOf(l: string): number {
+  return l === '0' ? 0 : l === '1' ? 1 : l === 'Z' ? 3 : 2;
+}
+
+/** The whole table at once. */
+export function enumerateTable(netlist: Netlist, spec: TableSpec, opts: EnumerateOptions = {}): TruthTable {
+  const gen = enumerateChunks(netlist, spec, opts);
+  for (;;) {
+    const step = gen.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * The table with progress reports and cancellation, yielding to the event loop between chunks (so a
+ * worker can hear its cancel message). Rejects with an AbortError-named Error when `signal` aborts.
+ */
+export async function enumerateTableAsync(
+  netlist: Netlist, spec: TableSpec,
+  opts: EnumerateOptions & { onProgress?: (p: TableProgress) => void; signal?: AbortSignal } = {},
+): Promise<TruthTable> {
+  const gen = enumerateChunks(netlist, spec, opts);
+  for (;;) {
+    if (opts.signal?.aborted) { const e = new Error('enumeration cancelled'); e.name = 'AbortError'; throw e; }
+    const step = gen.next();
+    if (step.done) return step.value;
+    opts.onProgress?.(step.value);
+    await new Promise((resolve) => setTimeout(resolve, 0));
+  }
+}
