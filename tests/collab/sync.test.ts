@@ -1,0 +1,103 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import WebSocket from 'ws';
+import { startTestServer, type TestServer } from '../helpers/test-app';
+import { addPart, connect, movePart, relabelPart } from '../../shared/board/edits';
+import { docToBoard } from '../../shared/board/ydoc';
+import { addMember, connectClient, createBoard, signUp, waitFor, type Client, type User } from './helpers';
+
+const ME = { local: 'test' };
+let server: TestServer;
+let owner: User;
+let editor: User;
+const clients: Client[] = [];
+const open = (boardId: number, user: User) => {
+  const c = connectClient(server, boardId, user.cookie);
+  clients.push(c);
+  return c;
+};
+const same = (a: Client, b: Client) => JSON.stringify(docToBoard(a.doc)) === JSON.stringify(docToBoard(b.doc));
+
+beforeAll(async () => {
+  server = await startTestServer();
+  owner = await signUp(server, 'Owner');
+  editor = await signUp(server, 'Editor');
+});
+afterAll(async () => {
+  clients.forEach((c) => c.destroy());
+  await server.close();
+});
+
+describe('live board sync', () => {
+  it('two clients converge after concurrent edits of different parts and of the same part', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, editor, 'editor');
+    const a = open(boardId, owner);
+    const b = open(boardId, editor);
+    await Promise.all([a.synced, b.synced]);
+    addPart(a.doc, { id: 'sw1', kind: 'switch', label: 'A', x: 0, y: 0, on: false }, ME);
+    await waitFor(() => b.doc.getMap('parts').has('sw1'), 'b to see sw1');
+    // concurrent: different parts and the same part's position and label, before either hears the other
+    addPart(a.doc, { id: 'l1', kind: 'lamp', label: 'Y', x: 200, y: 0 }, ME);
+    addPart(b.doc, { id: 'g1', kind: 'not', x: 100, y: 0 }, ME);
+    movePart(a.doc, [{ id: 'sw1', x: 20, y: 40 }], ME);
+    movePart(b.doc, [{ id: 'sw1', x: 60, y: 80 }], ME);
+    relabelPart(b.doc, 'sw1', 'IN', ME);
+    await waitFor(() => a.doc.getMap('parts').size === 3 && b.doc.getMap('parts').size === 3 && same(a, b), 'convergence');
+    expect(connect(a.doc, 'sw1.out', 'g1.in0', ME).ok).toBe(true);
+    expect(connect(b.doc, 'g1.out', 'l1.in', ME).ok).toBe(true);
+    await waitFor(() => a.doc.getMap('wires').size === 2 && b.doc.getMap('wires').size === 2 && same(a, b), 'wires to converge');
+    const board = docToBoard(a.doc);
+    expect(board.parts.find((p) => p.id === 'sw1')!.label).toBe('IN');
+    // A late joiner gets the same document from the server's room.
+    const c = open(boardId, owner);
+    await c.synced;
+    await waitFor(() => same(a, c), 'late joiner');
+  });
+
+  it('a malformed frame closes only that socket; the room keeps working for the others', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, editor, 'editor');
+    const a = open(boardId, owner);
+    const b = open(boardId, editor);
+    await Promise.all([a.synced, b.synced]);
+    const raw = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: editor.cookie } });
+    await new Promise((r) => raw.once('open', r));
+    const closed = new Promise<number>((r) => raw.once('close', (code) => r(code)));
+    // message type sync (0), step "update" (2), then a length prefix promising bytes that are garbage
+    raw.send(new Uint8Array([0, 2, 5, 0xff, 0xff, 0xff, 0xff, 0xff]));
+    expect(await closed).toBe(1007);
+    const raw2 = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: editor.cookie } });
+    await new Promise((r) => raw2.once('open', r));
+    const closed2 = new Promise<number>((r) => raw2.once('close', (code) => r(code)));
+    raw2.send(new Uint8Array([42, 1, 2, 3])); // unknown message type
+    expect(await closed2).toBe(1007);
+    // well framed, but the update inside is not a Yjs update
+    const raw3 = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: editor.cookie } });
+    await new Promise((r) => raw3.once('open', r));
+    const closed3 = new Promise<number>((r) => raw3.once('close', (code) => r(code)));
+    raw3.send(new Uint8Array([0, 2, 6, 9, 200, 7, 7, 7, 7]));
+    expect(await closed3).toBe(1007);
+    addPart(a.doc, { id: 'k1', kind: 'const', value: 1, x: 0, y: 0 }, ME);
+    await waitFor(() => b.doc.getMap('parts').has('k1'), 'the room to keep working');
+    expect(a.provider.wsconnected && b.provider.wsconnected).toBe(true);
+  });
+
+  it('a message over the size limit closes the socket with 1009', async () => {
+    const boardId = await createBoard(server, owner);
+    const raw = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: owner.cookie } });
+    await new Promise((r) => raw.once('open', r));
+    const closed = new Promise<number>((r) => raw.once('close', (code) => r(code)));
+    raw.send(new Uint8Array(2 * 1024 * 1024 + 10));
+    expect(await closed).toBe(1009);
+  });
+
+  it('awareness (cursors) passes between clients', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, editor, 'viewer');
+    const a = open(boardId, owner);
+    const b = open(boardId, editor);
+    await Promise.all([a.synced, b.synced]);
+    b.provider.awareness.setLocalState({ user: { id: editor.id, name: 'Editor', color: '#888' }, cursor: { x: 5, y: 6 }, selection: [] });
+    await waitFor(() => [...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 5), 'a viewer cursor to arrive');
+  });
+});
