@@ -28,7 +28,8 @@ export interface AuthService {
 
 export function createAuthService(db: Db, config: AppConfig, mailer: Mailer): AuthService {
   // Compared against when the address is unknown, so both failures take as long.
-  const dummyHash = bcrypt.hashSync('gatefold-timing-equaliser', config.bcryptCost);
+  let dummyHash: Promise<string> | undefined;
+  const dummy = () => (dummyHash ??= bcrypt.hash('gatefold-timing-equaliser', config.bcryptCost));
 
   return {
     async signUp(body, opts) {
@@ -47,7 +48,7 @@ export function createAuthService(db: Db, config: AppConfig, mailer: Mailer): Au
 
     async logIn(body) {
       const row = await findUserByEmail(db, body.email);
-      const ok = await bcrypt.compare(body.password, row?.password_hash ?? dummyHash);
+      const ok = await bcrypt.compare(body.password, row?.password_hash ?? (await dummy()));
       if (!row || !ok) throw new HttpError(401, 'bad_credentials', 'Wrong e-mail or password');
       return toApiUser(row);
     },
