@@ -23,6 +23,7 @@ import { createMailer, type Mailer } from './services/mail';
 import { seedDemo, type BoardContentSeeder } from './seed/demo';
 import { boardFileRouter } from './http/routes/board-file';
 import { exampleBoardContent } from './services/board-docs';
+import { analyzeRouter } from './http/routes/analyze';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -105,6 +106,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   // routers of other features are mounted here (before the /api 404 below), e.g.
   //   app.use('/api', snapshotsRouter(ctx));   and set ctx.boardContent / ctx.onClose.push(...) here.
   app.use('/api', boardFileRouter(ctx));
+  app.use('/api', analyzeRouter());
   ctx.boardContent = exampleBoardContent(ctx);
 
   app.use('/api', apiNotFound);

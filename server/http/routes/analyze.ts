@@ -1,0 +1,56 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { AnalysisError, analyzeBoardFile } from '../../../shared/analysis';
+import { HttpError, badRequest, parseInput } from '../errors';
+import { requireUser } from '../middleware/require-user';
+
+/** A list of labels as a comma-separated string or an array. */
+const LabelListSchema = z.union([
+  z.string().transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean)),
+  z.array(z.string().min(1)),
+]);
+
+/** The optional analysis fields, from the query string or the body. */
+export const AnalyzeOptionsSchema = z.object({
+  inputs: LabelListSchema.optional(),
+  outputs: LabelListSchema.optional(),
+  select: LabelListSchema.optional(),
+  dontCares: z.union([
+    z.array(z.number().int().min(0)),
+    z.record(z.string(), z.array(z.number().int().min(0))),
+    z.string().transform((s, ctx) => {
+      const rows = s.split(',').filter(Boolean).map(Number);
+      if (rows.some((r) => !Number.isInteger(r) || r < 0)) ctx.addIssue({ code: 'custom', message: 'dontCares: row numbers separated by commas' });
+      return rows;
+    }),
+  ]).optional(),
+});
+
+/**
+ * `POST /api/analyze`: a board file in (the body itself, or `{board, inputs?, select?, …}`), the
+ * `analyze` JSON of CONTRACTS §2 out. Signed-in users only; the body size limit of the JSON parser
+ * answers 413; a bad board 400 naming its ids in `fields`.
+ */
+export function analyzeRouter(): Router {
+  const r = Router();
+  r.post('/analyze', requireUser, (req, res) => {
+    const body = (req.body ?? {}) as Record<string, unknown>;
+    if (typeof body !== 'object' || Array.isArray(body)) throw badRequest('invalid_board', 'Send a board file as the JSON body', { _: 'not an object' });
+    const board = body.board && typeof body.board === 'object' ? body.board : body;
+    const fromBody = { inputs: body.inputs, outputs: body.outputs, select: body.select, dontCares: body.dontCares };
+    const q = req.query as Record<string, unknown>;
+    const fromQuery = { inputs: q.inputs, outputs: q.outputs, select: q.select, dontCares: q.dontCares };
+    const pick = (k: keyof typeof fromBody) => fromBody[k] ?? fromQuery[k];
+    const opts = parseInput(AnalyzeOptionsSchema, { inputs: pick('inputs'), outputs: pick('outputs'), select: pick('select'), dontCares: pick('dontCares') });
+    try {
+      res.json(analyzeBoardFile(board, opts));
+    } catch (err) {
+      if (err instanceof AnalysisError) {
+        const invalidBoard = !('inputs' in err.fields || 'outputs' in err.fields || 'select' in err.fields || 'dontCares' in err.fields);
+        throw new HttpError(400, invalidBoard ? 'invalid_board' : 'invalid_input', err.message, err.fields);
+      }
+      throw err;
+    }
+  });
+  return r;
+}

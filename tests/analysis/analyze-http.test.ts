@@ -1,0 +1,57 @@
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+const halfAdder = JSON.parse(readFileSync(new URL('./fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
+
+describe('POST /api/analyze', () => {
+  let app: TestApp;
+  beforeAll(async () => { app = await createTestApp({ jsonLimit: '20kb' }); });
+  afterAll(async () => { await app.close(); });
+
+  // Expected values: CONTRACTS §2 half-adder example (S = A XOR B, C = A AND B — common practice, no source).
+  it('answers the analyze JSON of the contract for a signed-in user', async () => {
+    const agent = await app.signUp('Ada Larkspur', 'ada@larkspur.test');
+    const res = await agent.post('/api/analyze').send(halfAdder);
+    expect(res.status).toBe(200);
+    expect(res.body.rows).toEqual([{ in: '00', out: '00' }, { in: '01', out: '10' }, { in: '10', out: '10' }, { in: '11', out: '01' }]);
+    expect(res.body.outputsInfo.S).toMatchObject({ sop: 'A & ~B | ~A & B', pos: '(A | B) & (~A | ~B)', function: 'XOR' });
+    expect(res.body.sequential).toBe(false);
+  });
+
+  it('takes inputs, select and dontCares from the query string or the body', async () => {
+    const agent = await app.signUp('Ben Room', 'ben@room14.test');
+    const q = await agent.post('/api/analyze?inputs=B,A&select=B').send(halfAdder);
+    expect(q.status).toBe(200);
+    expect(q.body.inputs).toEqual(['B', 'A']);
+    expect(q.body.functionMap.map((e: { select: string; functions: { S: { sop: string } } }) => [e.select, e.functions.S.sop])).toEqual([['0', 'A'], ['1', '~A']]);
+    const b = await agent.post('/api/analyze').send({ board: halfAdder, dontCares: { S: [3] } });
+    expect(b.status).toBe(200);
+    // row 11 of S free: A | B is the smaller cover (common practice, no source)
+    expect(b.body.outputsInfo.S.sop).toBe('A | B');
+  });
+
+  it('answers 400 naming the offending ids for a bad board', async () => {
+    const agent = await app.signUp('Cy Larkspur', 'cy@larkspur.test');
+    const bad = { ...halfAdder, wires: [...halfAdder.wires, { id: 'w9', from: 'g1.out', to: 'ghost.in' }] };
+    const res = await agent.post('/api/analyze').send(bad);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toContain('w9');
+    const many = { ...halfAdder, parts: [...halfAdder.parts, ...Array.from({ length: 21 }, (_, i) => ({ id: `k${i}`, kind: 'switch', label: `K${i}`, x: 0, y: 0 }))] };
+    const tooMany = await agent.post('/api/analyze').send(many);
+    expect(tooMany.status).toBe(400);
+    expect(tooMany.body.error.message).toMatch(/limited to 20 inputs/);
+    const unknown = await agent.post('/api/analyze?select=Q').send(halfAdder);
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.fields).toEqual({ select: 'Q' });
+  });
+
+  it('answers 401 to an anonymous caller and 413 to a body over the limit', async () => {
+    expect((await app.request().post('/api/analyze').send(halfAdder)).status).toBe(401);
+    const agent = await app.signUp('Di Room', 'di@room14.test');
+    const big = { ...halfAdder, parts: [...halfAdder.parts, { id: 'n1', kind: 'note', text: 'x'.repeat(3000), x: 0, y: 0 }], title: 'y'.repeat(150) };
+    const padded = { ...big, wires: [...big.wires, ...Array.from({ length: 400 }, (_, i) => ({ id: `pad${i}`, from: 'a.out', to: 's.in' }))] };
+    const res = await agent.post('/api/analyze').send(padded);
+    expect(res.status).toBe(413);
+  });
+});
