@@ -27,3 +27,13 @@ export function documentValue(part: Part): boolean | undefined {
       return undefined;
   }
 }
+
+/** The input values a board sets (switches and buttons, in file order), as one comparable string. */
+export function inputSignature(board: BoardFile): string {
+  let sig = '';
+  for (const p of board.parts) {
+    const v = documentValue(p);
+    if (v !== undefined) sig += `${p.id}=${v ? 1 : 0};`;
+  }
+  return sig;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cycleAt, emptyTrace, levelAt, pushChange, readout, segmentsIn, type Change } from './trace';
+import { cycleAt, emptyTrace, levelAt, pushChange, readout, risingEdges, segmentsIn, type Change } from './trace';
 
 describe('pushChange', () => {
   it('drops repeats of the current level and keeps time order', () => {
@@ -79,5 +79,12 @@ describe('segmentsIn', () => {
     expect(segs.some((s) => s.v === 'busy' && s.from === 100 && s.to >= 199)).toBe(true);
     expect(segs[segs.length - 1]).toEqual({ from: 200, to: 300, v: '1' });
     expect(segs.length).toBeLessThanOrEqual(4);
+  });
+});
+
+describe('risingEdges', () => {
+  it('counts only 0 → 1 changes', () => {
+    const list: Change[] = [{ t: 0, v: 'X' }, { t: 1, v: '1' }, { t: 2, v: '0' }, { t: 3, v: '1' }, { t: 4, v: 'Z' }, { t: 5, v: '1' }, { t: 6, v: '0' }, { t: 7, v: '1' }];
+    expect(risingEdges(list)).toBe(2);
   });
 });

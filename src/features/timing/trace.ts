@@ -119,3 +119,10 @@ export function segmentsIn(list: readonly Change[], t0: number, t1: number, unit
   }
   return out.length ? out : [{ from: t0, to: t1, v: levelAt(list, t0) }];
 }
+
+/** Rising edges (a change to 1 from 0) in a change list — the count a builder checks on a clock line. */
+export function risingEdges(list: readonly Change[]): number {
+  let n = 0;
+  for (let i = 1; i < list.length; i++) if (list[i].v === '1' && list[i - 1].v === '0') n++;
+  return n;
+}

@@ -1,0 +1,41 @@
+import type * as Y from 'yjs';
+import { FamilySchema, type FamilyId } from '../../../shared/board';
+import { setMeta } from '../../../shared/board/edits';
+import { FAMILY_LABELS, FAMILY_OPTIONS, safetyCautionFor } from '../../lib/families';
+
+/**
+ * The board's logic family, read from the document; editors change it with a document edit, so
+ * every screen re-simulates with the new floating-input reading and delays at once.
+ */
+export function FamilyField({ family, readOnly, doc, origin }: { family: FamilyId; readOnly: boolean; doc: Y.Doc; origin: object }) {
+  const caution = safetyCautionFor(family);
+  return (
+    <div className="space-y-1.5 text-xs">
+      <label className="flex items-center gap-2 text-slate-400">
+        Logic family
+        {readOnly ? (
+          <span className="text-slate-200">{FAMILY_LABELS[family]}</span>
+        ) : (
+          <select
+            aria-label="Bench logic family"
+            value={family}
+            onChange={(e) => {
+              const next = FamilySchema.safeParse(e.target.value);
+              if (next.success) setMeta(doc, { family: next.data }, origin);
+            }}
+            className="h-7 flex-1 rounded border border-bench-600 bg-bench-950 px-2 text-slate-200 focus:border-amber-glow focus:outline-none"
+          >
+            {FAMILY_OPTIONS.map((o) => (
+              <option key={o.value} value={o.value}>{o.label}</option>
+            ))}
+          </select>
+        )}
+      </label>
+      {caution && (
+        <p role="note" data-testid="bench-safety" className="rounded border border-amber-600/50 bg-amber-600/10 p-2 text-amber-200">
+          <strong>Caution:</strong> {caution}
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,168 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type * as Y from 'yjs';
+import type { BoardFile } from '../../../shared/board';
+import { setPartField } from '../../../shared/board/edits';
+import type { Level } from '../../../shared/sim/levels';
+import { emptyTrace, type Trace } from '../timing/trace';
+import type { SignalChoice } from '../timing/signal-picker';
+import type { Badge } from './badges';
+import { decodeLevels, type BenchReport, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+import { pulsingWireIds } from './pulse-style';
+import { applyTrace } from './trace-store';
+
+/** What the hook needs of a board session (the canvas's `BoardSession` fits). */
+export interface LiveSimSession {
+  board: BoardFile;
+  doc: Y.Doc;
+  origin: object;
+  readOnly: boolean;
+}
+
+type Compiled = Extract<FromWorker, { type: 'compiled' }>;
+type State = Extract<FromWorker, { type: 'state' }>;
+
+export interface PortValue extends PortInfo {
+  value: Level;
+}
+
+const NO_REPORT: BenchReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [] };
+
+/**
+ * The live simulation of a board, in a Web Worker. With `tryOut` (viewers) input changes stay private
+ * to this page and are never sent; otherwise they are document edits everyone sees.
+ */
+export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolean }) {
+  const worker = useRef<Worker | null>(null);
+  const [compiled, setCompiled] = useState<Compiled | null>(null);
+  const [state, setState] = useState<State | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [tryOutValues, setTryOutValues] = useState<ReadonlyMap<string, boolean>>(() => new Map());
+  const [chosen, setChosen] = useState<string[] | null>(null);
+  const traceRef = useRef<Trace>(emptyTrace());
+  const [traceVersion, setTraceVersion] = useState(0);
+  const tryOutRef = useRef(tryOutValues);
+  tryOutRef.current = tryOutValues;
+
+  const send = useCallback((msg: ToWorker) => worker.current?.postMessage(msg), []);
+
+  useEffect(() => {
+    const w = new Worker(new URL('./sim-worker.ts', import.meta.url), { type: 'module' });
+    worker.current = w;
+    w.onmessage = (e: MessageEvent<FromWorker>) => {
+      const msg = e.data;
+      switch (msg.type) {
+        case 'compiled':
+          setCompiled(msg);
+          setError(null);
+          break;
+        case 'state': {
+          const next = applyTrace(traceRef.current, msg);
+          traceRef.current = next.trace;
+          if (next.changed) setTraceVersion((v) => v + 1);
+          setState(msg);
+          break;
+        }
+        case 'error':
+          setError(msg.message);
+          break;
+        default: {
+          const never: never = msg;
+          throw new Error(`unknown worker message ${JSON.stringify(never)}`);
+        }
+      }
+    };
+    w.onerror = (e) => setError(e.message || 'the simulation worker failed');
+    return () => {
+      w.terminate();
+      worker.current = null;
+    };
+  }, []);
+
+  // The session's board changes at most once a frame; each change is one load message.
+  useEffect(() => {
+    if (session.board.parts.length === 0 && !session.board.title) return;
+    send({ type: 'load', board: session.board, tryOut: [...tryOutRef.current] });
+  }, [session.board, send]);
+
+  const available = useMemo<SignalChoice[]>(() => {
+    if (!compiled) return [];
+    const seen = new Set<string>();
+    const out: SignalChoice[] = [];
+    const addOne = (name: string, group: SignalChoice['group']) => {
+      if (seen.has(name)) return;
+      seen.add(name);
+      out.push({ name, group });
+    };
+    compiled.inputs.forEach((p) => addOne(p.net, 'input'));
+    compiled.outputs.forEach((p) => addOne(p.net, 'output'));
+    compiled.nets.forEach((n) => addOne(n, 'net'));
+    return out;
+  }, [compiled]);
+  const signals = useMemo(() => chosen ?? available.filter((s) => s.group !== 'net').map((s) => s.name), [chosen, available]);
+  const signalsKey = signals.join('\n');
+  useEffect(() => {
+    if (compiled) send({ type: 'subscribe', signals: signalsKey ? signalsKey.split('\n') : [] });
+  }, [signalsKey, compiled, send]);
+
+  const setTry = useCallback((partId: string, _field: 'on' | 'pressed', value: boolean) => {
+    setTryOutValues((m) => new Map(m).set(partId, value));
+    send({ type: 'set-input', partId, value });
+  }, [send]);
+  const clearTry = useCallback(() => {
+    setTryOutValues(new Map());
+    send({ type: 'clear-try-out' });
+  }, [send]);
+
+  /** Sets an input from the bench: a private try-out for viewers, a document edit for editors. */
+  const setInput = useCallback((partId: string, value: boolean) => {
+    const part = session.board.parts.find((p) => p.id === partId);
+    if (!part || (part.kind !== 'switch' && part.kind !== 'button')) return;
+    const field = part.kind === 'switch' ? 'on' : 'pressed';
+    if (tryOut) setTry(partId, field, value);
+    else setPartField(session.doc, partId, field, value, session.origin);
+  }, [session.board, session.doc, session.origin, tryOut, setTry]);
+
+  const levels = useMemo(() => (compiled && state ? decodeLevels(compiled.keys, state.levels) : new Map<string, Level>()), [compiled, state]);
+  const partBadges = useMemo(() => new Map<string, Badge>((state?.badges ?? []).map(([id, tone, text]) => [id, { tone, text }])), [state]);
+  const pulsing = useMemo<ReadonlySet<string>>(() => new Set(state?.pulsing ?? []), [state]);
+  const pulsingWires = useMemo(() => pulsingWireIds(session.board.wires, pulsing), [session.board.wires, pulsing]);
+  const withValue = (ports: PortInfo[] | undefined): PortValue[] => (ports ?? []).map((p) => ({ ...p, value: state?.values[p.partId] ?? 'X' }));
+
+  return {
+    ready: Boolean(compiled && state),
+    error,
+    problems: compiled?.problems ?? [],
+    family: compiled?.family ?? session.board.family,
+    levels,
+    pulsing,
+    pulsingWires,
+    report: state?.report ?? NO_REPORT,
+    partBadges,
+    inputs: withValue(compiled?.inputs),
+    outputs: withValue(compiled?.outputs),
+    setInput,
+    stats: { time: state?.time ?? 0, events: state?.events ?? 0, lastEvents: state?.lastEvents ?? 0 },
+    clock: {
+      running: state?.clock.running ?? false,
+      rate: state?.clock.rate ?? 1,
+      cycles: state?.clock.cycles ?? 0,
+      run: () => send({ type: 'clock', action: 'run' }),
+      pause: () => send({ type: 'clock', action: 'pause' }),
+      step: () => send({ type: 'clock', action: 'step' }),
+      setRate: (hz: number) => send({ type: 'rate', hz }),
+    },
+    resetState: () => send({ type: 'reset-state' }),
+    tryOut: { active: tryOut, values: tryOutValues, set: setTry, clear: clearTry },
+    timing: {
+      trace: traceRef.current,
+      version: traceVersion,
+      available,
+      chosen: signals,
+      onChoose: setChosen,
+      timeUnitNs: compiled?.timeUnitNs ?? 1,
+      title: session.board.title,
+    },
+  };
+}
+
+export type LiveSim = ReturnType<typeof useLiveSim>;
