@@ -1,3 +1,4 @@
+import { mkdirSync } from 'node:fs';
 import express, { type Express, type RequestHandler } from 'express';
 import type { AppConfig } from './config';
 import { openDb, type Db } from './db/knex';
@@ -47,6 +48,7 @@ export interface AppContext {
 
 /** Builds the app (migrated database, mail, sessions, routes) without listening. */
 export async function createApp(config: AppConfig): Promise<AppContext> {
+  mkdirSync(config.uploadDir, { recursive: true });
   const db = openDb(config.databaseFile);
   let mail: Mailer | undefined;
   try {

@@ -70,6 +70,9 @@ export function toErrorResponse(err: unknown): { status: number; body: { error: 
   if (e.type === 'entity.parse.failed') return { status: 400, body: { error: { code: 'malformed_json', message: 'The request body is not valid JSON' } }, log: false };
   if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') return { status: 413, body: { error: { code: 'too_large', message: 'The request body is too large' } }, log: false };
   if (e.type === 'encoding.unsupported' || e.type === 'charset.unsupported') return { status: 415, body: { error: { code: 'unsupported_encoding', message: 'Unsupported content encoding' } }, log: false };
+  if (err instanceof Error && err.name === 'MulterError') {
+    return { status: 400, body: { error: { code: 'bad_upload', message: err.message } }, log: false };
+  }
   const status = e.status ?? e.statusCode;
   if (typeof status === 'number' && status >= 400 && status < 500) {
     const message = e.expose && err instanceof Error ? err.message : 'Bad request';
