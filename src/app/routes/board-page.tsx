@@ -14,6 +14,8 @@ import { MemberListPanel } from '../../features/members/components/member-list-p
 import { canEdit, isOwner } from '../../lib/roles';
 import { PageColumn } from '../layout';
 import { useIdParam } from '../../lib/use-id-param';
+import { BoardWorkspace, useBoardSession } from '../../features/canvas';
+import type { ApiBoard } from '../../../shared/api/types';
 
 /**
  * One board: a compact header (title, role, family, members, owner actions) and below it the whole
@@ -57,13 +59,17 @@ export function BoardPage() {
       <SafetyCaution family={b.family} />
       <div className="flex min-h-0 flex-1">
         {/* board workspace: canvas, bench and analysis panels mount here */}
-        <div className="flex flex-1 items-start justify-end p-4">
-          <div className="w-72">
-            <MemberListPanel boardId={b.id} currentUserId={me.data?.id} />
-          </div>
-        </div>
+        <LiveBoard board={b} me={me.data ?? null} />
       </div>
     </div>
+  );
+}
+
+/** The live canvas of the board (its session lives as long as this is shown). */
+function LiveBoard({ board, me }: { board: ApiBoard; me: { id: number; name: string } | null }) {
+  const session = useBoardSession(String(board.id), board.role, me ? { user: me } : {});
+  return (
+    <BoardWorkspace session={session} panels={<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div>} />
   );
 }
 

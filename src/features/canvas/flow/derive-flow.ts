@@ -1,0 +1,161 @@
+/**
+ * Pure derivation of React Flow nodes and edges from a board. Unchanged parts and wires keep the
+ * very same node/edge objects from one derivation to the next, so memoised components do not
+ * re-render and nothing is allocated for them.
+ */
+import type { BoardFile, Part, Wire } from '../../../../shared/board/schema';
+import { allPins, splitPinRef } from '../../../../shared/board/validate';
+import type { Level } from '../../../../shared/sim/levels';
+import { placedShape } from '../lib/geometry';
+import type { PartBadge, PartNode, WireEdge } from './types';
+
+export interface DeriveNodesInput {
+  parts: readonly Part[];
+  levels?: ReadonlyMap<string, Level>;
+  badges?: ReadonlyMap<string, PartBadge>;
+  highlight?: ReadonlySet<string>;
+  tryOut?: ReadonlyMap<string, boolean>;
+  /** part id → colour of a collaborator who has it selected */
+  remoteSelection?: ReadonlyMap<string, string>;
+  /** part id → live position while a collaborator drags it */
+  remoteDrag?: ReadonlyMap<string, { x: number; y: number }>;
+  readOnly: boolean;
+}
+
+/** Pin levels of a part as a short string (one character per pin, '-' where unknown). */
+export function pinLevels(part: Part, levels: ReadonlyMap<string, Level> | undefined): string {
+  if (!levels || levels.size === 0) return '';
+  let s = '';
+  for (const pin of allPins(part)) s += levels.get(`${part.id}.${pin}`) ?? '-';
+  return s;
+}
+
+function shownState(part: Part, tryOut: ReadonlyMap<string, boolean> | undefined): boolean {
+  const mine = tryOut?.get(part.id);
+  if (part.kind === 'switch') return mine ?? part.on;
+  if (part.kind === 'button') return mine ?? part.pressed;
+  return false;
+}
+
+/** Nodes for `input.parts`, reusing the node in `prev` (by id) wherever nothing it shows has changed. */
+export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, PartNode>): PartNode[] {
+  const out: PartNode[] = new Array(input.parts.length);
+  input.parts.forEach((part, i) => {
+    const old = prev.get(part.id);
+    const levels = pinLevels(part, input.levels);
+    const shown = shownState(part, input.tryOut);
+    const badge = input.badges?.get(part.id);
+    const highlight = input.highlight?.has(part.id) ?? false;
+    const remoteColor = input.remoteSelection?.get(part.id);
+    const drag = input.remoteDrag?.get(part.id);
+    const x = drag ? drag.x : part.x;
+    const y = drag ? drag.y : part.y;
+    if (old) {
+      const d = old.data;
+      if (d.part === part && d.levels === levels && d.shown === shown && d.badge === badge && d.highlight === highlight
+        && d.remoteColor === remoteColor && d.readOnly === input.readOnly && old.position.x === x && old.position.y === y) {
+        out[i] = old;
+        return;
+      }
+    }
+    const shape = old && old.data.part === part ? { w: old.width as number, h: old.height as number } : placedShape(part);
+    out[i] = {
+      id: part.id,
+      type: 'part',
+      position: old && old.position.x === x && old.position.y === y ? old.position : { x, y },
+      width: shape.w,
+      height: shape.h,
+      draggable: !input.readOnly,
+      connectable: !input.readOnly,
+      deletable: !input.readOnly,
+      data: { part, levels, shown, badge, highlight, remoteColor, readOnly: input.readOnly },
+    };
+  });
+  return out;
+}
+
+/** Edges for the wires, coloured by the level of each wire's `from` pin; unchanged wires keep their edge. */
+export function deriveEdges(wires: readonly Wire[], levels: ReadonlyMap<string, Level> | undefined, readOnly: boolean,
+  prev: ReadonlyMap<string, WireEdge>): WireEdge[] {
+  const out: WireEdge[] = [];
+  for (const wire of wires) {
+    const from = splitPinRef(wire.from);
+    const to = splitPinRef(wire.to);
+    if (!from || !to) continue;
+    const level = levels?.get(wire.from);
+    const old = prev.get(wire.id);
+    if (old && old.source === from.part && old.sourceHandle === from.pin && old.target === to.part && old.targetHandle === to.pin
+      && old.data?.level === level && old.deletable === !readOnly) {
+      out.push(old);
+      continue;
+    }
+    out.push({ id: wire.id, type: 'wire', source: from.part, sourceHandle: from.pin, target: to.part, targetHandle: to.pin,
+      deletable: !readOnly, data: { level } });
+  }
+  return out;
+}
+
+/** Index of a derived list by id (the `prev` of the next derivation). */
+export function byId<T extends { id: string }>(list: readonly T[]): Map<string, T> {
+  const m = new Map<string, T>();
+  for (const item of list) m.set(item.id, item);
+  return m;
+}
+
+type Local = { id: string; selected?: boolean; dragging?: boolean; measured?: unknown; position?: { x: number; y: number } };
+
+/**
+ * Joins freshly derived items with React Flow's local view state (selection, measured size, a drag in
+ * progress), which never goes into the shared document. `bases` remembers which derived item each
+ * local item was made from, so an unchanged derived item keeps the local object as it is.
+ * Returns `local` itself when nothing changed.
+ */
+export function mergeLocal<T extends Local>(derived: readonly T[], local: readonly T[], bases: Map<string, T>): readonly T[] {
+  const localById = byId(local);
+  let changed = derived.length !== local.length;
+  const out = derived.map((d, i) => {
+    const l = localById.get(d.id);
+    let next: T;
+    if (!l) next = d;
+    else if (bases.get(d.id) === d) next = l;
+    else if (d.position === undefined) next = { ...d, selected: l.selected };
+    else next = { ...d, selected: l.selected, measured: l.measured, dragging: l.dragging, position: l.dragging ? l.position : d.position };
+    bases.set(d.id, d);
+    if (next !== local[i]) changed = true;
+    return next;
+  });
+  if (bases.size > derived.length * 2 + 64) {
+    const keep = new Set(derived.map((d) => d.id));
+    for (const id of bases.keys()) if (!keep.has(id)) bases.delete(id);
+  }
+  return changed ? out : local;
+}
+
+/** The board with unchanged parts and wires taken from `prev` (same objects); `prev` itself if nothing changed. */
+export function stabilizeBoard(prev: BoardFile | null, next: BoardFile): BoardFile {
+  if (!prev) return next;
+  const oldParts = byId(prev.parts);
+  const oldWires = byId(prev.wires);
+  let same = prev.title === next.title && prev.family === next.family && prev.parts.length === next.parts.length
+    && prev.wires.length === next.wires.length;
+  const parts = next.parts.map((p, i) => {
+    const o = oldParts.get(p.id);
+    const keep = o && shallowEqual(o, p) ? o : p;
+    if (keep !== prev.parts[i]) same = false;
+    return keep;
+  });
+  const wires = next.wires.map((w, i) => {
+    const o = oldWires.get(w.id);
+    const keep = o && o.from === w.from && o.to === w.to ? o : w;
+    if (keep !== prev.wires[i]) same = false;
+    return keep;
+  });
+  return same ? prev : { ...next, parts, wires };
+}
+
+function shallowEqual(a: object, b: object): boolean {
+  const ka = Object.keys(a);
+  if (ka.length !== Object.keys(b).length) return false;
+  for (const k of ka) if ((a as Record<string, unknown>)[k] !== (b as Record<string, unknown>)[k]) return false;
+  return true;
+}

@@ -1,0 +1,54 @@
+/**
+ * One part on the bench: its IEEE Std 91 symbol, a handle per pin (named as in the board file),
+ * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
+ * Memoised: React Flow re-renders it only when its node object changes.
+ */
+import { memo, useMemo } from 'react';
+import { Handle, Position, type NodeProps } from '@xyflow/react';
+import { allPins } from '../../../../shared/board/validate';
+import type { Level } from '../../../../shared/sim/levels';
+import { levelColor } from '../lib/colors';
+import { placedShape, rotationTransform, type Side } from '../lib/geometry';
+import { PartSymbol } from '../symbols';
+import { NoteSymbol } from '../symbols/note-symbol';
+import type { PartNode } from './types';
+
+const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
+
+function PartNodeView({ data, selected }: NodeProps<PartNode>) {
+  const { part, levels, shown, badge, highlight, remoteColor, readOnly } = data;
+  const shape = useMemo(() => placedShape(part), [part]);
+  const pinNames = useMemo(() => allPins(part), [part]);
+  const level = (pin: string): Level | undefined => {
+    const c = levels[pinNames.indexOf(pin)];
+    return c === '0' || c === '1' || c === 'X' || c === 'Z' ? c : undefined;
+  };
+  const classes = ['gf-part', `gf-kind-${part.kind}`];
+  if (selected) classes.push('gf-selected');
+  if (highlight) classes.push('gf-highlight');
+  const outline = remoteColor && !selected ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
+  return (
+    <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
+      style={{ width: shape.w, height: shape.h, ...outline }}>
+      {part.label ? <div className="gf-label">{part.label}</div> : null}
+      {part.kind === 'note' ? (
+        <NoteSymbol part={part} />
+      ) : (
+        <svg width={shape.w} height={shape.h} viewBox={`0 0 ${shape.w} ${shape.h}`} className="gf-symbol" overflow="visible">
+          <g transform={rotationTransform(shape.baseW, shape.baseH, shape.rotation)}>
+            <PartSymbol part={part} w={shape.baseW} h={shape.baseH} level={level} shown={shown} />
+          </g>
+        </svg>
+      )}
+      {shape.pins.map((spot) => (
+        <Handle key={spot.pin} id={spot.pin} type={spot.output ? 'source' : 'target'} position={POSITION[spot.side]}
+          isConnectable={!readOnly} data-testid={`pin-${part.id}-${spot.pin}`} title={`${part.id}.${spot.pin}`}
+          className={spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'}
+          style={{ left: spot.x, top: spot.y, right: 'auto', bottom: 'auto', transform: 'translate(-50%, -50%)', borderColor: levelColor(level(spot.pin)) }} />
+      ))}
+      {badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null}
+    </div>
+  );
+}
+
+export const PartNodeComponent = memo(PartNodeView);

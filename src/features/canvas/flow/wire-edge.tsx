@@ -1,0 +1,23 @@
+/**
+ * A wire: a right-angled path coloured by its net's level (high glows amber, Z is dashed grey,
+ * no level is neutral grey). Memoised like the parts.
+ */
+import { memo } from 'react';
+import { BaseEdge, getSmoothStepPath, type EdgeProps } from '@xyflow/react';
+import { levelColor } from '../lib/colors';
+import type { WireEdge } from './types';
+
+function WireEdgeView({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<WireEdge>) {
+  const [path] = getSmoothStepPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, borderRadius: 4, offset: 12 });
+  const level = data?.level;
+  const color = levelColor(level);
+  const style = {
+    stroke: selected ? '#e6edf3' : color,
+    strokeWidth: selected ? 3 : 2,
+    strokeDasharray: level === 'Z' ? '5 4' : undefined,
+    filter: level === '1' ? 'drop-shadow(0 0 3px rgba(255,179,71,0.7))' : undefined,
+  };
+  return <BaseEdge id={id} path={path} style={style} interactionWidth={12} className={level ? `gf-wire gf-level-${level}` : 'gf-wire'} />;
+}
+
+export const WireEdgeComponent = memo(WireEdgeView);

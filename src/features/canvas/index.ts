@@ -1,0 +1,7 @@
+/** The live shared canvas: the board session (Yjs + y-websocket + per-user undo) and the workspace that shows it. */
+export { useBoardSession } from './session/use-board-session';
+export type { BoardSession, BoardSessionOptions, BoardRole, ConnectionStatus } from './session/use-board-session';
+export { BoardWorkspace } from './workspace/board-workspace';
+export type { BoardWorkspaceProps } from './workspace/board-workspace';
+export type { PartBadge, BadgeTone } from './flow/types';
+export { ImportBoardButton } from './io/import-board-button';

@@ -1,0 +1,170 @@
+/**
+ * The live board of one user: a Y.Doc synced through y-websocket at `/collab/<boardId>`, a per-user
+ * undo manager that tracks only this session's own origin (so undo never removes a collaborator's
+ * edit), awareness for presence, and the board file derived from the document at most once per frame.
+ */
+import { useEffect, useMemo, useRef, useState } from 'react';
+import * as Y from 'yjs';
+import { WebsocketProvider } from 'y-websocket';
+import type { BoardFile } from '../../../../shared/board/schema';
+import { docToBoard, metaMap, partsMap, wiresMap } from '../../../../shared/board/ydoc';
+import { presenceColor } from '../lib/colors';
+import { stabilizeBoard } from '../flow/derive-flow';
+import type { PresenceUser } from './awareness';
+
+export type BoardRole = 'owner' | 'editor' | 'viewer';
+export type ConnectionStatus = 'connecting' | 'live' | 'reconnecting' | 'offline';
+
+export interface BoardSession {
+  boardId: string;
+  doc: Y.Doc;
+  provider: WebsocketProvider;
+  /** the origin of this session's own edits (the undo manager tracks only it) */
+  origin: object;
+  role: BoardRole;
+  readOnly: boolean;
+  status: ConnectionStatus;
+  synced: boolean;
+  /** derived from the doc, updated at most once per animation frame, same object until something changes */
+  board: BoardFile;
+  user: PresenceUser;
+  undo(): void;
+  redo(): void;
+  canUndo: boolean;
+  canRedo: boolean;
+}
+
+export interface BoardSessionOptions {
+  /** who this is, for presence; read from `/api/auth/me` when left out */
+  user?: { id: string | number; name: string };
+  /** a share link's token (guests); read from `?share=` of the page when left out */
+  shareToken?: string;
+}
+
+const EMPTY_BOARD: BoardFile = { format: 'gatefold-board', version: 1, title: '', family: 'ideal', parts: [], wires: [] };
+
+function wsBase(): string {
+  return `${location.protocol === 'https:' ? 'wss' : 'ws'}://${location.host}/collab`;
+}
+
+interface Live { doc: Y.Doc; provider: WebsocketProvider; undo: Y.UndoManager; origin: object }
+
+/** Teardowns waiting to see whether a session is mounted again (React StrictMode remounts at once). */
+const teardowns = new WeakMap<Live, ReturnType<typeof setTimeout>>();
+
+function createLive(boardId: string, shareToken: string | undefined): Live {
+  const doc = new Y.Doc();
+  const params: Record<string, string> = shareToken ? { share: shareToken } : {};
+  const provider = new WebsocketProvider(wsBase(), boardId, doc, { connect: false, params, maxBackoffTime: 4000 });
+  const origin = { session: boardId, client: doc.clientID };
+  const undo = new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 300 });
+  return { doc, provider, undo, origin };
+}
+
+function guestName(): string {
+  return new URLSearchParams(location.search).get('name') || 'Guest';
+}
+
+/** The live board session of `boardId` for a user of `role`. */
+export function useBoardSession(boardId: string, role: BoardRole, options: BoardSessionOptions = {}): BoardSession {
+  const shareToken = options.shareToken ?? (new URLSearchParams(location.search).get('share') || undefined);
+  const live = useMemo(() => createLive(boardId, shareToken), [boardId, shareToken]);
+  const [board, setBoard] = useState<BoardFile>(EMPTY_BOARD);
+  const [status, setStatus] = useState<ConnectionStatus>('connecting');
+  const [synced, setSynced] = useState(false);
+  const [stacks, setStacks] = useState({ canUndo: false, canRedo: false });
+  const [me, setMe] = useState<{ id: string | number; name: string } | null>(options.user ?? null);
+  const everConnected = useRef(false);
+
+  const user = useMemo<PresenceUser>(() => {
+    const id = String(me?.id ?? `guest-${live.doc.clientID}`);
+    return { id, name: me?.name ?? guestName(), color: presenceColor(id) };
+  }, [me, live]);
+
+  // Who am I (for presence): the caller may say; otherwise ask the API (a guest gets 401 and stays "Guest").
+  useEffect(() => {
+    if (options.user) { setMe(options.user); return; }
+    let stop = false;
+    fetch('/api/auth/me', { credentials: 'same-origin' })
+      .then((r) => (r.ok ? r.json() : null))
+      .then((body: { user?: { id: number; name: string } } | null) => { if (!stop && body?.user) setMe(body.user); })
+      .catch(() => undefined);
+    return () => { stop = true; };
+  }, [options.user?.id, options.user?.name]);
+
+  useEffect(() => {
+    const aw = live.provider.awareness;
+    const prev = (aw.getLocalState() ?? {}) as Record<string, unknown>;
+    aw.setLocalState({ ...prev, user, cursor: prev.cursor ?? null, selection: prev.selection ?? [] });
+  }, [live, user]);
+
+  // Connect on mount; StrictMode's unmount/remount of the same session only disconnects and reconnects,
+  // the real teardown waits a moment to see whether the session is mounted again.
+  useEffect(() => {
+    const { doc, provider, undo } = live;
+    let alive = true;
+    let raf = 0;
+    everConnected.current = false;
+    const publish = () => {
+      raf = 0;
+      if (alive) setBoard((prev) => stabilizeBoard(prev === EMPTY_BOARD ? null : prev, docToBoard(doc)));
+    };
+    const onUpdate = () => { if (!raf) raf = requestAnimationFrame(publish); };
+    const onStatus = ({ status: s }: { status: 'connected' | 'disconnected' | 'connecting' }) => {
+      if (s === 'connected') { everConnected.current = true; setStatus('live'); }
+      else if (!navigator.onLine) setStatus('offline');
+      else setStatus(everConnected.current ? 'reconnecting' : 'connecting');
+    };
+    const onSync = (isSynced: boolean) => { setSynced(isSynced); if (isSynced) onUpdate(); };
+    const onStacks = () => setStacks({ canUndo: undo.canUndo(), canRedo: undo.canRedo() });
+    const onOffline = () => setStatus('offline');
+    const onOnline = () => setStatus(provider.wsconnected ? 'live' : 'reconnecting');
+    doc.on('update', onUpdate);
+    provider.on('status', onStatus);
+    provider.on('sync', onSync);
+    undo.on('stack-item-added', onStacks);
+    undo.on('stack-item-popped', onStacks);
+    undo.on('stack-cleared', onStacks);
+    window.addEventListener('offline', onOffline);
+    window.addEventListener('online', onOnline);
+    provider.connect();
+    publish();
+    clearTimeout(teardowns.get(live));
+    return () => {
+      alive = false;
+      if (raf) cancelAnimationFrame(raf);
+      doc.off('update', onUpdate);
+      provider.off('status', onStatus);
+      provider.off('sync', onSync);
+      undo.off('stack-item-added', onStacks);
+      undo.off('stack-item-popped', onStacks);
+      undo.off('stack-cleared', onStacks);
+      window.removeEventListener('offline', onOffline);
+      window.removeEventListener('online', onOnline);
+      provider.disconnect();
+      teardowns.set(live, setTimeout(() => {
+        undo.destroy();
+        provider.destroy();
+        doc.destroy();
+      }, 1000));
+    };
+  }, [live]);
+
+  const readOnly = role === 'viewer';
+  return useMemo<BoardSession>(() => ({
+    boardId,
+    doc: live.doc,
+    provider: live.provider,
+    origin: live.origin,
+    role,
+    readOnly,
+    status,
+    synced,
+    board,
+    user,
+    undo: () => { if (!readOnly) live.undo.undo(); },
+    redo: () => { if (!readOnly) live.undo.redo(); },
+    canUndo: !readOnly && stacks.canUndo,
+    canRedo: !readOnly && stacks.canRedo,
+  }), [boardId, live, role, readOnly, status, synced, board, user, stacks]);
+}

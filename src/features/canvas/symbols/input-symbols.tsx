@@ -1,0 +1,89 @@
+/**
+ * Input parts: a changeover toggle switch drawn as a lever that swings between its two throws,
+ * a momentary push button whose plunger drops while held, a clock with a square-wave glyph,
+ * and a constant 0 or 1.
+ */
+import type { PointerEvent } from 'react';
+import type { Part } from '../../../../shared/board/schema';
+import { INK, SIGNAL } from '../lib/colors';
+import { usePartActions } from '../flow/part-actions';
+import { Stub, monoFont, strokeProps, type SymbolProps } from './common';
+
+type SwitchPart = Extract<Part, { kind: 'switch' }>;
+
+/** `on` drives `out` high (the lever on the upper throw), `outn` is its complement. */
+export function SwitchSymbol({ part, w, level, shown }: SymbolProps<SwitchPart> & { shown: boolean }) {
+  const actions = usePartActions();
+  const pivot = { x: 22, y: 30 };
+  // The lever points at the upper throw (y = 20) when on, the lower one (y = 40) when off.
+  const angle = shown ? -14 : 14;
+  return (
+    <>
+      <rect x={4} y={4} width={w - 20} height={52} rx={6} {...strokeProps} strokeWidth={1.5} />
+      <Stub x1={60} y1={20} x2={w} y2={20} level={level('out')} />
+      <Stub x1={60} y1={40} x2={w} y2={40} level={level('outn')} />
+      <circle cx={60} cy={20} r={3} fill={INK.stroke} />
+      <circle cx={60} cy={40} r={3} fill={INK.stroke} />
+      <g className="gf-lever" style={{ transform: `rotate(${angle}deg)`, transformOrigin: `${pivot.x}px ${pivot.y}px`, transition: 'transform 120ms ease-out' }}>
+        <line x1={pivot.x} y1={pivot.y} x2={58} y2={pivot.y} stroke={shown ? SIGNAL.high : INK.stroke} strokeWidth={3} strokeLinecap="round" />
+      </g>
+      <circle cx={pivot.x} cy={pivot.y} r={5} fill={INK.stroke} />
+      <text x={10} y={54} fontFamily={monoFont} fontSize={8} fill={INK.dim}>{shown ? 'ON' : 'OFF'}</text>
+      {/* the whole switch face is the actuator: a click flips it (nodrag keeps the click from moving the part) */}
+      <rect x={4} y={4} width={w - 20} height={52} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
+        style={{ cursor: 'pointer' }} onClick={(e) => { e.stopPropagation(); actions.toggleSwitch(part.id); }} />
+    </>
+  );
+}
+
+type ButtonPart = Extract<Part, { kind: 'button' }>;
+
+export function ButtonSymbol({ part, w, level, shown }: SymbolProps<ButtonPart> & { shown: boolean }) {
+  const actions = usePartActions();
+  const drop = shown ? 6 : 0;
+  const down = (e: PointerEvent) => { e.stopPropagation(); (e.target as Element).setPointerCapture?.(e.pointerId); actions.pressButton(part.id, true); };
+  const up = (e: PointerEvent) => { e.stopPropagation(); actions.pressButton(part.id, false); };
+  return (
+    <>
+      <rect x={4} y={4} width={w - 20} height={32} rx={6} {...strokeProps} strokeWidth={1.5} />
+      <Stub x1={52} y1={20} x2={w} y2={20} level={level('out')} />
+      {/* two fixed contacts and a bridging bar on a plunger */}
+      <circle cx={18} cy={28} r={2.5} fill={INK.stroke} />
+      <circle cx={48} cy={28} r={2.5} fill={INK.stroke} />
+      <g style={{ transform: `translateY(${drop}px)`, transition: 'transform 60ms linear' }}>
+        <line x1={14} y1={18} x2={52} y2={18} stroke={shown ? SIGNAL.high : INK.stroke} strokeWidth={3} strokeLinecap="round" />
+        <line x1={33} y1={8} x2={33} y2={18} stroke={INK.stroke} strokeWidth={2} />
+        <line x1={27} y1={8} x2={39} y2={8} stroke={INK.stroke} strokeWidth={2} />
+      </g>
+      {part.bounce && <text x={6} y={34} fontFamily={monoFont} fontSize={7} fill={INK.dim}>bounce</text>}
+      <rect x={4} y={4} width={w - 20} height={32} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
+        style={{ cursor: 'pointer' }} onPointerDown={down} onPointerUp={up} onPointerCancel={up} />
+    </>
+  );
+}
+
+type ClockPart = Extract<Part, { kind: 'clock' }>;
+
+export function ClockSymbol({ part, w, level }: SymbolProps<ClockPart>) {
+  return (
+    <>
+      <rect x={4} y={4} width={w - 20} height={32} rx={4} {...strokeProps} />
+      <path d="M12 28 H20 V12 H30 V28 H40 V12 H50 V28 H56" fill="none" stroke={level('out') === '1' ? SIGNAL.high : INK.stroke} strokeWidth={2} />
+      {part.period !== undefined && <text x={8} y={34} fontFamily={monoFont} fontSize={7} fill={INK.dim}>T={part.period}</text>}
+      <Stub x1={w - 16} y1={20} x2={w} y2={20} level={level('out')} />
+    </>
+  );
+}
+
+type ConstPart = Extract<Part, { kind: 'const' }>;
+
+export function ConstSymbol({ part, w, level }: SymbolProps<ConstPart>) {
+  return (
+    <>
+      <rect x={4} y={6} width={w - 24} height={28} rx={4} {...strokeProps} />
+      <text x={(w - 20) / 2 + 2} y={25} textAnchor="middle" fontFamily={monoFont} fontSize={16}
+        fill={part.value === 1 ? SIGNAL.high : SIGNAL.low}>{part.value}</text>
+      <Stub x1={w - 20} y1={20} x2={w} y2={20} level={level('out')} />
+    </>
+  );
+}

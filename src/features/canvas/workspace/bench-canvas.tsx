@@ -1,0 +1,199 @@
+/**
+ * The bench itself: React Flow showing the board's parts and wires, wired to the named edits of
+ * shared/board/edits. Drag positions travel through awareness while dragging and are written to the
+ * document once, on drag stop.
+ */
+import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
+import {
+  Background, BackgroundVariant, ConnectionMode, Controls, MiniMap, ReactFlow, useReactFlow,
+  type Connection, type OnSelectionChangeParams,
+} from '@xyflow/react';
+import { toast } from 'sonner';
+import { connect, movePart, relabelPart, setPartField } from '../../../../shared/board/edits';
+import { partsMap } from '../../../../shared/board/ydoc';
+import { INK, SIGNAL } from '../lib/colors';
+import { GRID, snap } from '../lib/geometry';
+import type { TrayChoice } from '../lib/new-part';
+import { PartActionsContext, type PartActions } from '../flow/part-actions';
+import { PartNodeComponent } from '../flow/part-node';
+import { WireEdgeComponent } from '../flow/wire-edge';
+import type { PartNode, WireEdge } from '../flow/types';
+import { RemoteCursors } from '../presence/remote-cursors';
+import { throttle, type PeersView } from '../session/awareness';
+import type { BoardSession } from '../session/use-board-session';
+import { TRAY_MIME } from '../tray/tray-items';
+import { HelpSheet } from '../toolbar/help-sheet';
+import { useBenchCommands } from './use-bench-commands';
+import { useFlowState, type OverlayProps } from './use-flow-state';
+
+const nodeTypes = { part: PartNodeComponent };
+const edgeTypes = { wire: WireEdgeComponent };
+const SNAP: [number, number] = [GRID, GRID];
+
+export interface BenchCanvasProps extends OverlayProps {
+  session: BoardSession;
+  peers: PeersView;
+  armed: TrayChoice | null;
+  onArm(choice: TrayChoice | null): void;
+  onTryOut?(partId: string, field: 'on' | 'pressed', value: boolean): void;
+  helpOpen: boolean;
+  onHelp(open: boolean): void;
+  /** gives the toolbar the commands and the node list (for image export) */
+  onReady?(api: BenchApi): void;
+}
+
+export interface BenchApi {
+  run: ReturnType<typeof useBenchCommands>['run'];
+  nodes(): PartNode[];
+  selectedCount(): number;
+}
+
+export function BenchCanvas(props: BenchCanvasProps) {
+  const { session, peers, armed, onArm, helpOpen, onHelp, onReady } = props;
+  const { readOnly, doc, origin, provider } = session;
+  const rf = useReactFlow();
+  const flow = useFlowState(session, props, peers);
+  const pointer = useRef<{ x: number; y: number } | null>(null);
+  const [ready, setReady] = useState(false);
+
+  const commands = useBenchCommands({
+    session, nodes: flow.nodes, edges: flow.edges, selectOnly: flow.selectOnly, pointer,
+    onHelp: () => onHelp(!helpOpen), onCancel: () => { onArm(null); onHelp(false); },
+  });
+  const nodesRef = useRef(flow.nodes);
+  nodesRef.current = flow.nodes;
+  useEffect(() => {
+    onReady?.({ run: commands.run, nodes: () => nodesRef.current, selectedCount: () => nodesRef.current.filter((n) => n.selected).length });
+  }, [onReady, commands.run]);
+
+  // Fit the board into view once, when it first arrives.
+  const fitted = useRef(false);
+  useEffect(() => {
+    if (fitted.current || !ready || !session.synced || flow.nodes.length === 0) return;
+    fitted.current = true;
+    requestAnimationFrame(() => void rf.fitView({ padding: 0.15, maxZoom: 1.25 }));
+  }, [ready, session.synced, flow.nodes.length, rf]);
+
+  // Symbols act through these; the object never changes, the refs carry the current session.
+  const live = useRef({ session, onTryOut: props.onTryOut, tryOut: props.tryOutValues });
+  live.current = { session, onTryOut: props.onTryOut, tryOut: props.tryOutValues };
+  const actions = useMemo<PartActions>(() => {
+    const fail = (err: unknown) => toast.error((err as Error).message);
+    const docValue = (id: string, field: 'on' | 'pressed') => partsMap(live.current.session.doc).get(id)?.get(field) === true;
+    return {
+      readOnly: () => live.current.session.readOnly,
+      toggleSwitch: (id) => {
+        const { session: s, onTryOut, tryOut } = live.current;
+        const current = tryOut?.get(id) ?? docValue(id, 'on');
+        if (s.readOnly) onTryOut?.(id, 'on', !current);
+        else try { setPartField(s.doc, id, 'on', !docValue(id, 'on'), s.origin); } catch (err) { fail(err); }
+      },
+      pressButton: (id, pressed) => {
+        const { session: s, onTryOut } = live.current;
+        if (s.readOnly) onTryOut?.(id, 'pressed', pressed);
+        else if (docValue(id, 'pressed') !== pressed) try { setPartField(s.doc, id, 'pressed', pressed, s.origin); } catch (err) { fail(err); }
+      },
+      editText: (id, text) => {
+        const s = live.current.session;
+        if (!s.readOnly) try { setPartField(s.doc, id, 'text', text, s.origin); } catch (err) { fail(err); }
+      },
+      relabel: (id, label) => {
+        const s = live.current.session;
+        if (!s.readOnly) try { relabelPart(s.doc, id, label, s.origin); } catch (err) { fail(err); }
+      },
+    };
+  }, []);
+
+  const aw = provider.awareness;
+  const sendCursor = useMemo(() => throttle((c: { x: number; y: number } | null) => aw.setLocalStateField('cursor', c), 50), [aw]);
+  const sendDrag = useMemo(() => throttle((d: { id: string; x: number; y: number }[] | null) => aw.setLocalStateField('dragging', d), 40), [aw]);
+
+  const onPointerMove = useCallback((e: RPointerEvent) => {
+    const p = rf.screenToFlowPosition({ x: e.clientX, y: e.clientY });
+    pointer.current = p;
+    sendCursor({ x: Math.round(p.x), y: Math.round(p.y) });
+  }, [rf, sendCursor]);
+  const onPointerLeave = useCallback(() => { pointer.current = null; sendCursor(null); }, [sendCursor]);
+
+  const onConnect = useCallback((c: Connection) => {
+    if (readOnly || !c.sourceHandle || !c.targetHandle) return;
+    const result = connect(doc, `${c.source}.${c.sourceHandle}`, `${c.target}.${c.targetHandle}`, origin);
+    if (!result.ok) toast.error(`Cannot wire: ${result.reason}`);
+    else if (result.warning) toast.warning(`Wired, but it ${result.warning}: the net will be a conflict (X) if they disagree`);
+  }, [doc, origin, readOnly]);
+
+  const onNodeDrag = useCallback((_e: unknown, _n: PartNode, dragged: PartNode[]) => {
+    sendDrag(dragged.map((n) => ({ id: n.id, x: n.position.x, y: n.position.y })));
+  }, [sendDrag]);
+  const onNodeDragStop = useCallback((_e: unknown, _n: PartNode, dragged: PartNode[]) => {
+    if (!readOnly) movePart(doc, dragged.map((n) => ({ id: n.id, x: snap(n.position.x), y: snap(n.position.y) })), origin);
+    sendDrag(null);
+    sendDrag.flush();
+  }, [doc, origin, readOnly, sendDrag]);
+
+  const onSelectionChange = useCallback(({ nodes }: OnSelectionChangeParams) => {
+    aw.setLocalStateField('selection', nodes.map((n) => n.id));
+  }, [aw]);
+
+  const onDragOver = useCallback((e: DragEvent) => {
+    if (readOnly || !e.dataTransfer.types.includes(TRAY_MIME)) return;
+    e.preventDefault();
+    e.dataTransfer.dropEffect = 'copy';
+  }, [readOnly]);
+  const onDrop = useCallback((e: DragEvent) => {
+    const raw = e.dataTransfer.getData(TRAY_MIME);
+    if (readOnly || !raw) return;
+    e.preventDefault();
+    const choice = JSON.parse(raw) as TrayChoice;
+    commands.place(choice, rf.screenToFlowPosition({ x: e.clientX - 30, y: e.clientY - 20 }));
+  }, [commands, readOnly, rf]);
+  const onPaneClick = useCallback((e: React.MouseEvent) => {
+    if (!armed || readOnly) return;
+    commands.place(armed, rf.screenToFlowPosition({ x: e.clientX - 30, y: e.clientY - 20 }));
+    if (!e.shiftKey) onArm(null);
+  }, [armed, commands, onArm, readOnly, rf]);
+
+  return (
+    <PartActionsContext.Provider value={actions}>
+      <div className={`gf-bench relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="bench" data-readonly={readOnly ? 'true' : 'false'}
+        onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
+        <ReactFlow<PartNode, WireEdge>
+          nodes={flow.nodes}
+          edges={flow.edges}
+          nodeTypes={nodeTypes}
+          edgeTypes={edgeTypes}
+          onNodesChange={flow.onNodesChange}
+          onEdgesChange={flow.onEdgesChange}
+          onConnect={onConnect}
+          onNodeDrag={onNodeDrag}
+          onNodeDragStop={onNodeDragStop}
+          onSelectionChange={onSelectionChange}
+          onPaneClick={onPaneClick}
+          onInit={() => setReady(true)}
+          connectionMode={ConnectionMode.Loose}
+          snapToGrid
+          snapGrid={SNAP}
+          onlyRenderVisibleElements
+          nodesDraggable={!readOnly}
+          nodesConnectable={!readOnly}
+          elementsSelectable
+          deleteKeyCode={null}
+          selectionKeyCode="Shift"
+          multiSelectionKeyCode={['Control', 'Meta']}
+          minZoom={0.1}
+          maxZoom={3}
+          colorMode="dark"
+          connectionLineStyle={{ stroke: SIGNAL.high, strokeWidth: 2 }}
+          defaultEdgeOptions={{ type: 'wire' }}
+        >
+          <Background variant={BackgroundVariant.Dots} gap={GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
+          <Controls showInteractive={false} position="bottom-left" />
+          <MiniMap pannable zoomable position="bottom-right" nodeColor={() => '#3a4654'} maskColor="rgba(13,16,20,0.7)"
+            bgColor="#12161c" nodeStrokeWidth={0} />
+          <RemoteCursors peers={peers.peers} />
+        </ReactFlow>
+        {helpOpen && <HelpSheet readOnly={readOnly} onClose={() => onHelp(false)} />}
+      </div>
+    </PartActionsContext.Provider>
+  );
+}

@@ -1,0 +1,77 @@
+/**
+ * React Flow's nodes and edges for the bench: derived from the session's board (plus levels, badges,
+ * highlights, try-out values and collaborators' selections and drags), joined with the local view
+ * state React Flow keeps (selection, measured size, a drag in progress), which never enters the document.
+ */
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { applyEdgeChanges, applyNodeChanges, type EdgeChange, type NodeChange } from '@xyflow/react';
+import type { Level } from '../../../../shared/sim/levels';
+import { byId, deriveEdges, deriveNodes, mergeLocal } from '../flow/derive-flow';
+import type { PartBadge, PartNode, WireEdge } from '../flow/types';
+import type { PeersView } from '../session/awareness';
+import type { BoardSession } from '../session/use-board-session';
+
+export interface OverlayProps {
+  levels?: ReadonlyMap<string, Level>;
+  partBadges?: ReadonlyMap<string, PartBadge>;
+  highlight?: ReadonlySet<string>;
+  tryOutValues?: ReadonlyMap<string, boolean>;
+}
+
+export function useFlowState(session: BoardSession, overlay: OverlayProps, peers: PeersView) {
+  const { board, readOnly } = session;
+  const nodeCache = useRef(new Map<string, PartNode>());
+  const edgeCache = useRef(new Map<string, WireEdge>());
+  const derivedNodes = useMemo(() => {
+    const list = deriveNodes({
+      parts: board.parts, levels: overlay.levels, badges: overlay.partBadges, highlight: overlay.highlight,
+      tryOut: overlay.tryOutValues, remoteSelection: peers.selection, remoteDrag: peers.dragging, readOnly,
+    }, nodeCache.current);
+    nodeCache.current = byId(list);
+    return list;
+  }, [board.parts, overlay.levels, overlay.partBadges, overlay.highlight, overlay.tryOutValues, peers.selection, peers.dragging, readOnly]);
+  const derivedEdges = useMemo(() => {
+    const list = deriveEdges(board.wires, overlay.levels, readOnly, edgeCache.current);
+    edgeCache.current = byId(list);
+    return list;
+  }, [board.wires, overlay.levels, readOnly]);
+
+  const [nodes, setNodes] = useState<PartNode[]>([]);
+  const [edges, setEdges] = useState<WireEdge[]>([]);
+  const nodeBases = useRef(new Map<string, PartNode>());
+  const edgeBases = useRef(new Map<string, WireEdge>());
+  /** parts to select once they appear (after a paste or a placement) */
+  const pendingSelect = useRef<Set<string> | null>(null);
+
+  useLayoutEffect(() => {
+    setNodes((local) => {
+      const merged = mergeLocal(derivedNodes, local, nodeBases.current) as PartNode[];
+      const want = pendingSelect.current;
+      if (!want || ![...want].every((id) => merged.some((n) => n.id === id))) return merged;
+      pendingSelect.current = null;
+      return merged.map((n) => (want.has(n.id) === !!n.selected ? n : { ...n, selected: want.has(n.id) }));
+    });
+  }, [derivedNodes]);
+  useLayoutEffect(() => {
+    setEdges((local) => mergeLocal(derivedEdges, local, edgeBases.current) as WireEdge[]);
+  }, [derivedEdges]);
+
+  const onNodesChange = useCallback((changes: NodeChange<PartNode>[]) => {
+    // Removal goes through the document (deleteSelection), never straight into the local view.
+    const kept = changes.filter((c) => c.type !== 'remove' && c.type !== 'add' && c.type !== 'replace');
+    if (kept.length) setNodes((ns) => applyNodeChanges(kept, ns));
+  }, []);
+  const onEdgesChange = useCallback((changes: EdgeChange<WireEdge>[]) => {
+    const kept = changes.filter((c) => c.type === 'select');
+    if (kept.length) setEdges((es) => applyEdgeChanges(kept, es));
+  }, []);
+
+  const selectOnly = useCallback((ids: Iterable<string>) => {
+    const want = new Set(ids);
+    pendingSelect.current = want;
+    setNodes((ns) => ns.map((n) => (want.has(n.id) === !!n.selected ? n : { ...n, selected: want.has(n.id) })));
+    setEdges((es) => es.map((e) => (e.selected ? { ...e, selected: false } : e)));
+  }, []);
+
+  return { nodes, edges, setNodes, setEdges, onNodesChange, onEdgesChange, selectOnly };
+}
