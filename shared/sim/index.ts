@@ -19,3 +19,5 @@ export { compileBoard, partPins, type CompileOptions } from './compile';
 export { Simulator, DEFAULT_CLOCK_PERIOD_GATE_DELAYS } from './simulator';
 export { FAMILIES, familyOf, familyDelays, type FamilyData } from './families';
 export { mulberry32 } from './bounce';
+export { toVcd, vcdId, timescaleFor, type VcdSignal, type VcdSample, type VcdOptions } from './vcd';
+export { toVerilog } from './verilog';

@@ -332,17 +332,21 @@ export class Simulator {
     };
   }
 
-  /** Runs for dt time units, clocks toggling every half period; returns the events processed. */
-  runFor(dt: number): number {
+  /**
+   * Runs for dt time units, clocks toggling every half period (unless `clocks: false`, which only lets
+   * pending events play out); returns the events processed.
+   */
+  runFor(dt: number, opts: { clocks?: boolean } = {}): number {
+    const clocks = opts.clocks === false ? [] : this.clocks;
     const start = this.stats.events;
     const end = this.now + Math.max(0, Math.floor(dt));
     this.evalDirty();
     for (;;) {
       let t = this.nextTime();
-      for (const c of this.clocks) t = Math.min(t, c.next);
+      for (const c of clocks) t = Math.min(t, c.next);
       if (t > end) break;
       this.now = t;
-      for (const c of this.clocks) {
+      for (const c of clocks) {
         if (c.next !== t) continue;
         this.driveSource(c.part, this.sourceLevel[c.part] === L1 ? L0 : L1);
         c.next = t + c.half;

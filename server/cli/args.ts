@@ -1,0 +1,21 @@
+/** Flag parsing for the commands (node:util parseArgs, strict: an unknown flag is a usage error). */
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { CliError } from './errors';
+
+/** Parsed positionals and flag values of one command. */
+export interface ParsedArgs {
+  positionals: string[];
+  values: Record<string, string | boolean | undefined>;
+}
+
+/** Parses args against the options; unknown flags, missing values and stray arguments become CliErrors. */
+export function parseCommandArgs(args: string[], options: NonNullable<ParseArgsConfig['options']>, maxPositionals = 1): ParsedArgs {
+  let parsed;
+  try {
+    parsed = parseArgs({ args, options, allowPositionals: true, strict: true });
+  } catch (err) {
+    throw new CliError((err as Error).message.split('\n')[0].split('. ')[0]);
+  }
+  if (parsed.positionals.length > maxPositionals) throw new CliError(`unexpected argument "${parsed.positionals[maxPositionals]}"`);
+  return { positionals: parsed.positionals, values: parsed.values as ParsedArgs['values'] };
+}

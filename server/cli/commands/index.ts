@@ -1,0 +1,11 @@
+/**
+ * The command registry: name → command. Add a command with one line here and its file beside.
+ */
+import type { CliCommand } from './types';
+import { simulate } from './simulate';
+import { exportVerilog } from './export-verilog';
+
+export const COMMANDS: Record<string, CliCommand> = {
+  simulate,
+  'export-verilog': exportVerilog,
+};

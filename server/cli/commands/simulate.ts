@@ -1,0 +1,114 @@
+/**
+ * `simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd]` (CONTRACTS §2).
+ * A cycle drives the clock input high, settles, drives it low, settles, then records the outputs; each
+ * phase lasts at least half the clock's period so that the dumped waveform shows the clock's shape.
+ */
+import {
+  compileBoard, DEFAULT_CLOCK_PERIOD_GATE_DELAYS, familyDelays, familyOf, Simulator, timescaleFor, toVcd,
+  type CompiledPart, type Level, type Netlist, type VcdSample, type VcdSignal,
+} from '../../../shared/sim';
+import { parseCommandArgs } from '../args';
+import { readBoard } from '../board-file';
+import { CliError } from '../errors';
+import type { CliCommand } from './types';
+
+const MAX_CYCLES = 100_000;
+
+function inputByLabel(netlist: Netlist, label: string, flag: string): CompiledPart {
+  const part = netlist.inputs.find((p) => p.name === label);
+  if (!part) throw new CliError(`${flag}: unknown input label "${label}" (inputs: ${netlist.inputs.map((p) => p.name).join(', ') || 'none'})`);
+  return part;
+}
+
+/** `A=1,B=0` → [[part, level]] */
+function parseSets(netlist: Netlist, text: string): [CompiledPart, 0 | 1][] {
+  return text.split(',').filter((s) => s.trim()).map((item) => {
+    const m = /^\s*([^=\s]+)\s*=\s*([01])\s*$/.exec(item);
+    if (!m) throw new CliError(`--set: "${item}" is not LABEL=0 or LABEL=1`);
+    return [inputByLabel(netlist, m[1], '--set'), m[2] === '1' ? 1 : 0];
+  });
+}
+
+/** The dumped signals: inputs and outputs by label, then every other net in scope `nets`. */
+function vcdSignals(netlist: Netlist): { signals: VcdSignal[]; byNet: number[][] } {
+  const signals: VcdSignal[] = [];
+  const byNet: number[][] = netlist.nets.map(() => []);
+  const add = (net: number, signal: VcdSignal) => { byNet[net].push(signals.length); signals.push(signal); };
+  for (const p of netlist.inputs) add(p.outputs[0], { name: p.name });
+  for (const p of netlist.outputs) add(p.inputs[0], { name: p.name });
+  for (const net of netlist.nets) {
+    // an unused switch complement (outn) is left out
+    const unusedOutn = net.readers.length === 0 && net.drivers.length === 1 && net.drivers[0].pin === 'outn';
+    if (byNet[net.id].length === 0 && !unusedOutn) add(net.id, { name: net.name, scope: 'nets' });
+  }
+  return { signals, byNet };
+}
+
+export const simulate: CliCommand = {
+  usage: 'simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd]',
+  run(args, io) {
+    const { positionals, values } = parseCommandArgs(args, {
+      set: { type: 'string' }, clock: { type: 'string' }, cycles: { type: 'string' }, vcd: { type: 'string' },
+    });
+    const board = readBoard(positionals[0]);
+    const netlist = compileBoard(board);
+    const sets = typeof values.set === 'string' ? parseSets(netlist, values.set) : [];
+    const clock = typeof values.clock === 'string' ? inputByLabel(netlist, values.clock, '--clock') : undefined;
+    let cycles = 0;
+    if (values.cycles !== undefined) {
+      if (!clock) throw new CliError('--cycles needs --clock LABEL');
+      const n = Number(values.cycles);
+      if (!Number.isInteger(n) || n < 0 || n > MAX_CYCLES) throw new CliError(`--cycles: "${String(values.cycles)}" is not a whole number from 0 to ${MAX_CYCLES}`);
+      cycles = n;
+    } else if (clock) cycles = 1;
+
+    const sim = new Simulator(netlist);
+    const { signals, byNet } = vcdSignals(netlist);
+    const samples: VcdSample[] = [];
+    // levels at power-on (time 0): sources and storage are driven already, gates still X
+    const initial: Level[] = signals.map(() => 'X');
+    byNet.forEach((list, net) => { for (const s of list) initial[s] = sim.level(net); });
+    if (values.vcd) sim.onChange((time, net, level) => { for (const s of byNet[net]) samples.push({ time, signal: s, level }); });
+    const oscillating = new Set<string>();
+    const races = new Set<string>();
+    let settled = true;
+    let report = sim.settle();
+    const absorb = () => {
+      settled &&= report.settled;
+      report.oscillating.forEach((n) => oscillating.add(n));
+      report.races.forEach((n) => races.add(n));
+    };
+    absorb();
+    for (const [part, v] of sets) sim.setInput(part.id, v);
+    report = sim.settle();
+    absorb();
+
+    const d = familyDelays(board.family);
+    const period = clock?.part.kind === 'clock' && clock.part.period ? clock.part.period : DEFAULT_CLOCK_PERIOD_GATE_DELAYS * Math.max(d.rise, d.fall);
+    const half = Math.max(1, Math.round(period / 2));
+    const phase = (level: 0 | 1) => {
+      const start = sim.time;
+      sim.setInput(clock!.id, level);
+      report = sim.settle();
+      absorb();
+      if (sim.time < start + half) sim.runFor(start + half - sim.time, { clocks: false });
+    };
+    const trace: { cycle: number; outputs: Record<string, Level> }[] = [];
+    for (let cycle = 1; cycle <= cycles; cycle++) {
+      phase(1);
+      phase(0);
+      trace.push({ cycle, outputs: sim.outputValues() });
+    }
+    const result = {
+      settled, oscillating: [...oscillating], conflicts: report.conflicts, outputs: sim.outputValues(), trace,
+      undrivenInputs: report.undrivenInputs, races: [...races], time: sim.time, events: sim.stats.events,
+    };
+    io.stdout(JSON.stringify(result, null, 2) + '\n');
+    if (values.vcd) {
+      io.writeFile(String(values.vcd), toVcd(samples, signals, {
+        initial, timescale: timescaleFor(familyOf(board.family).timeUnitNs), top: 'board',
+        date: new Date().toISOString(), version: 'Gatefold simulate',
+      }));
+    }
+  },
+};

@@ -1,0 +1,41 @@
+/**
+ * `npm run -s cli -- <command> …`: Gatefold's command line (CONTRACTS §2). JSON or text on stdout;
+ * bad input or usage → exit 2 with one line `error: …` on stderr and nothing on stdout; never a stack.
+ */
+import { writeFileSync } from 'node:fs';
+import { COMMANDS } from './commands';
+import { CliError } from './errors';
+import type { CliIo } from './commands/types';
+
+async function main(argv: string[]): Promise<number> {
+  const [name, ...args] = argv;
+  const command = name ? COMMANDS[name] : undefined;
+  if (!command) {
+    const known = Object.keys(COMMANDS).sort().join(', ');
+    throw new CliError(name ? `unknown command "${name}" (commands: ${known})` : `no command given (commands: ${known})`);
+  }
+  // output is buffered so that a failure half-way leaves stdout empty
+  let out = '';
+  const files: [string, string][] = [];
+  const io: CliIo = { stdout: (text) => { out += text; }, writeFile: (path, text) => { files.push([path, text]); } };
+  await command.run(args, io);
+  for (const [path, text] of files) {
+    try {
+      writeFileSync(path, text);
+    } catch (err) {
+      throw new CliError(`cannot write ${path} (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
+    }
+  }
+  process.stdout.write(out);
+  return 0;
+}
+
+main(process.argv.slice(2)).then(
+  (code) => { process.exitCode = code; },
+  (err: unknown) => {
+    const usage = err instanceof CliError;
+    const message = err instanceof Error ? err.message : String(err);
+    process.stderr.write(`error: ${usage ? '' : 'internal: '}${message.replace(/\s*\n\s*/g, ' ')}\n`);
+    process.exitCode = usage ? 2 : 1;
+  },
+);
