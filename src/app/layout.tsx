@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { Link, NavLink, Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import { Link, NavLink, Navigate, Outlet, useLocation } from 'react-router-dom';
 import type { ApiUser } from '../../shared/api';
 import { Avatar } from '../components/ui/avatar';
 import { Button } from '../components/ui/button';
@@ -17,7 +17,6 @@ function navClass({ isActive }: { isActive: boolean }) {
 
 function UserMenu({ user }: { user: ApiUser }) {
   const signOut = useSignOut();
-  const navigate = useNavigate();
   return (
     <div className="flex items-center gap-3">
       <span className="flex items-center gap-2 text-sm text-slate-200" data-testid="current-user">
@@ -29,7 +28,7 @@ function UserMenu({ user }: { user: ApiUser }) {
         size="sm"
         variant="ghost"
         busy={signOut.isPending}
-        onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/signin'), onError: (err) => notifyError(err, 'Could not sign out') })}
+        onClick={() => signOut.mutate(undefined, { onError: (err) => notifyError(err, 'Could not sign out') })}
       >
         Sign out
       </Button>

@@ -21,9 +21,9 @@ export const FAMILY_OPTIONS = FAMILY_IDS.map((id) => ({ value: id, label: FAMILY
 export function safetyCautionFor(family: FamilyId): string | null {
   switch (family) {
     case 'tube-drl-nor':
-      return 'Tube circuits use plate and supply voltages that can kill, and stay charged after switch-off. Follow your local electrical codes and have qualified people check high-voltage and mains wiring before you power a build.';
+      return 'tube circuits carry voltages that can kill, even after switch-off. Follow your local electrical codes; leave high-voltage and mains wiring to qualified people.';
     case 'relay':
-      return 'Relay supplies are often mains-powered. Follow your local electrical codes and leave mains wiring to qualified people.';
+      return 'relay supplies are often mains-powered. Follow your local electrical codes; leave mains wiring to qualified people.';
     case 'ideal':
     case 'rtl':
     case 'dtl':

@@ -25,6 +25,13 @@ describe('applyServerErrors', () => {
     expect(calls).toEqual([['root.server', { type: 'server', message: 'Wrong e-mail or password' }]]);
   });
 
+  it('puts a known error code without fields on the field it names', () => {
+    const { calls, setError } = recorder();
+    const err = new ApiError(409, 'email_taken', 'An account with this e-mail already exists');
+    expect(applyServerErrors<Form>(err, setError, ['email', 'password'], { email_taken: 'email' })).toBe(true);
+    expect(calls).toEqual([['email', { type: 'server', message: 'An account with this e-mail already exists' }]]);
+  });
+
   it('leaves other errors to the caller', () => {
     const { calls, setError } = recorder();
     expect(applyServerErrors<Form>(new TypeError('boom'), setError, ['email'])).toBe(false);

@@ -124,7 +124,8 @@ test('server-side errors show in the form; sign-in returns to the page that aske
   await form.getByLabel('E-mail', { exact: true }).fill(OWNER.email);
   await form.getByLabel('Password', { exact: true }).fill('another-password');
   await form.getByRole('button', { name: 'Create account' }).click();
-  await expect(form.getByRole('alert')).toBeVisible();
+  await expect(form.getByRole('alert')).toContainText('already exists');
+  await expect(form.getByLabel('E-mail', { exact: true })).toHaveAttribute('aria-invalid', 'true');
   await expect(page).toHaveURL(/\/signup$/);
 
   // Wrong password: a form-wide message, and still on the sign-in page.
@@ -148,4 +149,67 @@ test('server-side errors show in the form; sign-in returns to the page that aske
   await expect(page.getByRole('heading', { name: 'Invitation not found' })).toBeVisible();
   await page.goto('/no/such/page');
   await expect(page.getByRole('heading', { name: 'Page not found' })).toBeVisible();
+});
+
+test('a forgotten password is reset through the mailed link', async ({ page, browser, gatefold }) => {
+  await signUp(page, OWNER);
+
+  // Someone signed out asks for a reset of the admin's address.
+  const other = await browser.newContext({ baseURL: gatefold.baseURL });
+  const visitor = await other.newPage();
+  await visitor.goto('/signin');
+  await visitor.getByRole('link', { name: 'Forgot your password?' }).click();
+  const request = visitor.getByRole('form', { name: 'Reset password' });
+  await request.getByLabel('E-mail', { exact: true }).fill(OWNER.email);
+  await request.getByRole('button', { name: 'Send reset link' }).click();
+  await expect(visitor.getByRole('status').filter({ hasText: 'is on its way' })).toBeVisible();
+
+  // The admin's outbox has the mail with the link.
+  await page.goto('/outbox');
+  const row = page.getByTestId('outbox-row').filter({ hasText: OWNER.email });
+  await expect(row).toHaveCount(1);
+  await row.getByRole('link').click();
+  const link = page.getByTestId('message-text').getByRole('link', { name: /\/reset\// });
+  const resetUrl = await link.getAttribute('href');
+  expect(resetUrl).toMatch(new RegExp(`^${gatefold.baseURL}/reset/[^/\\s]+$`));
+
+  // Too short is refused in place; a good one is saved and signs in.
+  await visitor.goto(resetUrl!);
+  const choose = visitor.getByRole('form', { name: 'Choose a new password' });
+  await choose.getByLabel('New password', { exact: true }).fill('short');
+  await choose.getByRole('button', { name: 'Save new password' }).click();
+  await expect(choose.getByRole('alert')).toHaveText('Password must be at least 8 characters');
+  await choose.getByLabel('New password', { exact: true }).fill('a-brand-new-passphrase');
+  await choose.getByRole('button', { name: 'Save new password' }).click();
+  await expect(visitor).toHaveURL(/\/signin$/);
+  await signIn(visitor, OWNER.email, 'a-brand-new-passphrase', { goto: false });
+  await expect(visitor).toHaveURL(/\/boards$/);
+
+  // The link works once.
+  await visitor.goto(resetUrl!);
+  await choose.getByLabel('New password', { exact: true }).fill('yet-another-passphrase');
+  await choose.getByRole('button', { name: 'Save new password' }).click();
+  await expect(choose.getByRole('alert')).toContainText('unknown, used or expired');
+  await other.close();
+});
+
+test.describe('with the demo data', () => {
+  test.use({ seedDemo: true });
+
+  test('a demo account signs in from the hint and sees its boards in the table', async ({ page }) => {
+    await page.goto('/signin');
+    await page.getByTestId('demo-sign-ins').getByRole('button', { name: /theo@larkspur\.example/ }).click();
+    await page.getByRole('form', { name: 'Sign in' }).getByRole('button', { name: 'Sign in' }).click();
+    await expect(page).toHaveURL(/\/boards$/);
+    const rows = page.getByTestId('board-row');
+    await expect(rows.filter({ hasText: 'Half adder' })).toHaveCount(1);
+    await expect(rows.filter({ hasText: 'Half adder' }).getByTestId('role-badge')).toHaveText('owner');
+    await expect(rows.filter({ hasText: 'Mux logic unit' }).getByTestId('role-badge')).toHaveText('editor');
+    await page.screenshot({ path: 'test-results/foundation-11-demo-boards.png' });
+
+    // Sorting by title puts the rows in alphabetical order.
+    await page.getByRole('columnheader', { name: 'Title' }).getByRole('button').click();
+    const titles = await rows.locator('td:first-child').allTextContents();
+    expect(titles).toEqual([...titles].sort((a, b) => a.localeCompare(b)));
+  });
 });

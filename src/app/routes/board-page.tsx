@@ -15,6 +15,8 @@ import { canEdit, isOwner } from '../../lib/roles';
 import { PageColumn } from '../layout';
 import { useIdParam } from '../../lib/use-id-param';
 import { BoardWorkspace, useBoardSession } from '../../features/canvas';
+import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
+import { TimingStrip } from '../../features/timing';
 import type { ApiBoard } from '../../../shared/api/types';
 
 /**
@@ -68,8 +70,14 @@ export function BoardPage() {
 /** The live canvas of the board (its session lives as long as this is shown). */
 function LiveBoard({ board, me }: { board: ApiBoard; me: { id: number; name: string } | null }) {
   const session = useBoardSession(String(board.id), board.role, me ? { user: me } : {});
+  const sim = useLiveSim(session, { tryOut: session.readOnly });
   return (
-    <BoardWorkspace session={session} panels={<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div>} />
+    <>
+      <PulseStyle wireIds={sim.pulsingWires} />
+      <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values}
+        panels={<><BenchPanel sim={sim} session={session} /><div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
+        bottom={<TimingStrip {...sim.timing} />} />
+    </>
   );
 }
 

@@ -46,11 +46,15 @@ export function useSignUp() {
   });
 }
 
+/**
+ * Signing out loads the sign-in page afresh instead of navigating inside the app: every cache,
+ * open board socket and private try-out state of the previous user goes with the old page, and
+ * no signed-in page gets to re-render as "signed out" (which would bounce through `?next=`).
+ */
 export function useSignOut() {
-  const reset = useResetAfterAuthChange();
   return useMutation({
     mutationFn: () => api.post<void>('/api/auth/logout'),
-    onSuccess: () => reset(null),
+    onSuccess: () => window.location.assign('/signin'),
   });
 }
 

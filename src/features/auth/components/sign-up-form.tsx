@@ -17,7 +17,7 @@ export function SignUpForm({ onSignedUp, defaultEmail = '' }: { onSignedUp: (use
     signUp.mutate(body, {
       onSuccess: ({ user }) => onSignedUp(user),
       onError: (err) => {
-        if (!applyServerErrors(err, form.setError, ['name', 'email', 'password'])) notifyError(err);
+        if (!applyServerErrors(err, form.setError, ['name', 'email', 'password'], { email_taken: 'email' })) notifyError(err);
       },
     }),
   );

@@ -27,7 +27,7 @@ export function AddMemberForm({ boardId }: { boardId: number }) {
         form.reset({ email: '', role: body.role });
       },
       onError: (err) => {
-        if (!applyServerErrors(err, form.setError, ['email', 'role'])) notifyError(err, 'Could not add the member');
+        if (!applyServerErrors(err, form.setError, ['email', 'role'], { already_member: 'email' })) notifyError(err, 'Could not add the member');
       },
     }),
   );
