@@ -1,0 +1,67 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+
+const root = new URL('../../', import.meta.url).pathname;
+const fixture = join(root, 'tests/analysis/fixtures/half-adder.gatefold.json');
+const dir = mkdtempSync(join(tmpdir(), 'gatefold-cli-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function cli(...args: string[]) {
+  const r = spawnSync(join(root, 'node_modules/.bin/tsx'), [join(root, 'server/cli/main.ts'), ...args], { encoding: 'utf8', cwd: root });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+describe('cli analyze', () => {
+  // Expected output: the CONTRACTS §2 half-adder example, verbatim (S = A XOR B, C = A AND B — common practice).
+  it('gives exactly the contract rows and outputsInfo for the half adder', () => {
+    const r = cli('analyze', fixture);
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.inputs).toEqual(['A', 'B']);
+    expect(out.outputs).toEqual(['S', 'C']);
+    expect(out.sequential).toBe(false);
+    expect(out.rows).toEqual([{ in: '00', out: '00' }, { in: '01', out: '10' }, { in: '10', out: '10' }, { in: '11', out: '01' }]);
+    const contractFields = (o: Record<string, unknown>) => ({ sop: o.sop, pos: o.pos, function: o.function });
+    expect(contractFields(out.outputsInfo.S)).toEqual({ sop: 'A & ~B | ~A & B', pos: '(A | B) & (~A | ~B)', function: 'XOR' });
+    expect(contractFields(out.outputsInfo.C)).toEqual({ sop: 'A & B', pos: 'A & B', function: 'AND' });
+    // our extensions beside the contract fields
+    expect(out.outputsInfo.S).toMatchObject({ sopAll: ['A & ~B | ~A & B'], exact: true, sequential: false });
+    expect(out.functionMap).toEqual([]);
+  });
+
+  it('builds the function map for --select and honours --inputs', () => {
+    const r = cli('analyze', fixture, '--inputs', 'B,A', '--select', 'B');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.rows.map((x: { in: string; out: string }) => x.out)).toEqual(['00', '10', '10', '01']);
+    expect(out.functionMap).toEqual([
+      { select: '0', data: ['A'], functions: { S: { sop: 'A', pos: 'A' }, C: { sop: '0', pos: '0' } } },
+      { select: '1', data: ['A'], functions: { S: { sop: '~A', pos: '~A' }, C: { sop: 'A', pos: 'A' } } },
+    ]);
+  });
+
+  it('exits 2 with one line on bad input', () => {
+    const bad = join(dir, 'bad.gatefold.json');
+    writeFileSync(bad, JSON.stringify({ format: 'gatefold-board', version: 1, parts: [{ id: 'g', kind: 'nand4', x: 0, y: 0 }], wires: [] }));
+    for (const args of [[bad], [join(dir, 'missing.json')], [fixture, '--select', 'Q'], [fixture, '--inputs', 'A,Z'], [fixture, '--bogus']]) {
+      const r = cli('analyze', ...args);
+      expect(r.code, args.join(' ')).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr.trim().split('\n')).toHaveLength(1);
+      expect(r.stderr).toMatch(/^error: /);
+    }
+    expect(cli('analyze', bad).stderr).toMatch(/"g"|g:/);
+  });
+
+  it('exits 2 for more than 20 inputs', () => {
+    const parts = Array.from({ length: 21 }, (_, i) => ({ id: `s${i}`, kind: 'switch', label: `I${i}`, x: 0, y: 0 }));
+    const file = join(dir, 'wide.gatefold.json');
+    writeFileSync(file, JSON.stringify({ format: 'gatefold-board', version: 1, parts, wires: [] }));
+    const r = cli('analyze', file);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/limited to 20 inputs/);
+  });
+});
