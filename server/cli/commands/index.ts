@@ -4,8 +4,10 @@
 import type { CliCommand } from './types';
 import { simulate } from './simulate';
 import { exportVerilog } from './export-verilog';
+import { analyze } from './analyze';
 
 export const COMMANDS: Record<string, CliCommand> = {
   simulate,
   'export-verilog': exportVerilog,
+  analyze,
 };
