@@ -92,7 +92,8 @@ export const test = base.extend<Options & { gatefold: GatefoldServer }>({
   seedDemo: [false, { option: true }],
   serverEnv: [{}, { option: true }],
 
-  gatefold: async ({ seedDemo, serverEnv }, use, testInfo) => {
+  // The fixture callback is named `provide`, not `use`: the React hooks lint rule reserves `use`.
+  gatefold: async ({ seedDemo, serverEnv }, provide, testInfo) => {
     if (!existsSync(join(ROOT, 'dist', 'index.html'))) {
       throw new Error('dist/index.html is missing: build the client first (node_modules/.bin/vite build; npm test does it)');
     }
@@ -124,7 +125,7 @@ export const test = base.extend<Options & { gatefold: GatefoldServer }>({
     const logs = () => output;
     try {
       await waitForHealth(baseURL, child, logs);
-      await use({ baseURL, dataDir, logs });
+      await provide({ baseURL, dataDir, logs });
     } finally {
       await stop(child);
       if (testInfo.status !== testInfo.expectedStatus) await testInfo.attach('gatefold-server.log', { body: output, contentType: 'text/plain' });
@@ -132,8 +133,8 @@ export const test = base.extend<Options & { gatefold: GatefoldServer }>({
     }
   },
 
-  baseURL: async ({ gatefold }, use) => {
-    await use(gatefold.baseURL);
+  baseURL: async ({ gatefold }, provide) => {
+    await provide(gatefold.baseURL);
   },
 });
 
