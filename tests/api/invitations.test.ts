@@ -103,4 +103,12 @@ describe('members and invitations by e-mail', () => {
     expect(res.body.error.code).toBe('admin_only');
     expect((await admin.get('/api/admin/outbox/999999')).status).toBe(404);
   });
+
+  it('answers 404 for an unknown invitation token, short or long', async () => {
+    for (const token of ['x', 'y'.repeat(43)]) {
+      const res = await t.request().get(`/api/invitations/${token}`);
+      expect(res.status).toBe(404);
+      expect(res.body.error.code).toBe('invitation_not_found');
+    }
+  });
 });

@@ -4,7 +4,7 @@ import type { Services } from '../../services';
 import { parseInput } from '../errors';
 import { requireUser } from '../middleware/require-user';
 
-const TokenParams = z.object({ token: z.string().min(10, 'Malformed invitation token').max(200, 'Malformed invitation token') });
+const TokenParams = z.object({ token: z.string().min(1, 'Malformed invitation token').max(200, 'Malformed invitation token') });
 
 export function invitationsRouter(services: Services): Router {
   const r = Router();
