@@ -3,7 +3,7 @@ import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
 import { setMeta } from '../../shared/board/edits';
 import type { FamilyId } from '../../shared/board/schema';
-import { ServerOrigin, loadBoardDoc, registerLiveBoards, withBoardLock } from '../services/board-docs';
+import { ServerOrigin, ensureBoardMeta, loadBoardDoc, registerLiveBoards, withBoardLock } from '../services/board-docs';
 import { authorizeUpgrade, boardIdOfPath } from './auth';
 import { Room } from './room';
 import { CLOSE, CollabError, DEFAULT_COLLAB_OPTIONS, type CollabContext, type CollabOptions, type Peer } from './types';
@@ -56,6 +56,7 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
         const { doc, seq, rows } = await loadBoardDoc(ctx, boardId);
         const room = new Room(ctx, boardId, doc, seq, rows, () => options);
         rooms.set(boardId, room);
+        await ensureBoardMeta(ctx, boardId, doc, new ServerOrigin(null, 'board-row'));
         return room;
       }).finally(() => opening.delete(boardId));
       opening.set(boardId, p);

@@ -1,9 +1,10 @@
 import { readFileSync } from 'node:fs';
 import * as Y from 'yjs';
 import { parseBoardFile } from '../../shared/board/validate';
-import type { BoardFile } from '../../shared/board/schema';
-import { boardToDoc, docToBoard, partsMap, wiresMap } from '../../shared/board/ydoc';
-import { replaceWithBoard } from '../../shared/board/edits';
+import type { BoardFile, FamilyId } from '../../shared/board/schema';
+import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board/ydoc';
+import { replaceWithBoard, setMeta } from '../../shared/board/edits';
+import { getBoardTitle } from '../db/boards';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import {
@@ -102,6 +103,16 @@ export async function compactStoredBoard(ctx: BoardDocsContext, boardId: number)
   });
 }
 
+/**
+ * A board made through the API has a title and family in its row but nothing yet in its document:
+ * write them into the document (with `origin`) so that clients and exports show them.
+ */
+export async function ensureBoardMeta(ctx: BoardDocsContext, boardId: number, doc: Y.Doc, origin: unknown): Promise<void> {
+  if (typeof metaMap(doc).get('title') === 'string') return;
+  const row = await getBoardTitle(ctx.db, boardId);
+  if (row) setMeta(doc, { title: row.title, family: row.family as FamilyId }, origin);
+}
+
 /** The board file of a board: from its live room if open, else from the database. */
 export async function readBoardFile(ctx: BoardDocsContext, boardId: number): Promise<BoardFile> {
   const live = liveByCtx.get(ctx)?.(boardId);
@@ -110,6 +121,7 @@ export async function readBoardFile(ctx: BoardDocsContext, boardId: number): Pro
     const open = liveByCtx.get(ctx)?.(boardId);
     if (open) return docToBoard(open.doc);
     const { doc } = await loadBoardDoc(ctx, boardId);
+    await ensureBoardMeta(ctx, boardId, doc, null);
     const board = docToBoard(doc);
     doc.destroy();
     return board;

@@ -59,7 +59,7 @@ export async function exportText(server: TestServer, user: User, boardId: number
 }
 
 /** A `ws` client that sends a Cookie header (browsers send the cookie themselves). */
-export function cookieSocket(cookie: string): typeof WebSocket {
+export function cookieSocket(cookie: string) {
   return class CookieWebSocket extends WebSocket {
     constructor(url: string | URL, protocols?: string | string[]) {
       super(url, protocols, { headers: { Cookie: cookie } });
