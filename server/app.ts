@@ -69,7 +69,8 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   app.locals[APP_DB_KEY] = db;
   app.disable('x-powered-by');
   // Behind an https proxy the cookie is Secure; Express must trust X-Forwarded-Proto to send it.
-  if (config.publicUrl?.startsWith('https:')) app.set('trust proxy', 'loopback, linklocal, uniquelocal');
+  if (config.trustProxy !== undefined) app.set('trust proxy', config.trustProxy);
+  else if (config.publicUrl?.startsWith('https:')) app.set('trust proxy', 'loopback, linklocal, uniquelocal');
 
   app.use(securityHeaders(config));
   app.use('/api', express.json({ limit: config.jsonLimit }));

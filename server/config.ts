@@ -24,6 +24,8 @@ export interface AppConfig {
   /** Directory of the built client; served only when it holds index.html. */
   distDir: string;
   version: string;
+  /** Express `trust proxy` (e.g. `loopback`, `1`), so rate limits see client addresses behind a proxy. */
+  trustProxy?: string | number;
   /** Log unexpected errors to stderr (tests may silence expected noise). */
   logErrors: boolean;
 }
@@ -50,6 +52,7 @@ const EnvSchema = z.object({
   RATE_LIMIT_SIGNUP: z.coerce.number().int().positive().default(20),
   RATE_LIMIT_RESET: z.coerce.number().int().positive().default(10),
   DIST_DIR: z.string().default('dist'),
+  TRUST_PROXY: z.string().min(1).optional(),
 });
 
 /** The version in package.json, shown by /api/health. */
@@ -94,6 +97,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     jsonLimit: e.JSON_LIMIT,
     rateLimit: { windowMs: e.RATE_LIMIT_WINDOW_MS, login: e.RATE_LIMIT_LOGIN, signup: e.RATE_LIMIT_SIGNUP, resetRequest: e.RATE_LIMIT_RESET },
     distDir: e.DIST_DIR,
+    trustProxy: e.TRUST_PROXY === undefined ? undefined : /^\d+$/.test(e.TRUST_PROXY) ? Number(e.TRUST_PROXY) : e.TRUST_PROXY,
     version: packageVersion(),
     logErrors: true,
   };

@@ -61,7 +61,8 @@ export function createAuthService(db: Db, config: AppConfig, mailer: Mailer): Au
       await insertPasswordReset(db, {
         userId: row.id, tokenHash: hash, now: new Date(now).toISOString(), expiresAt: new Date(now + RESET_TTL_MS).toISOString(),
       });
-      await mailer.send(passwordResetMail({ to: row.email, name: row.name, url: `${origin}/reset/${token}` }));
+      // Not awaited: answering as fast for a known address as for an unknown one reveals nothing.
+      void mailer.send(passwordResetMail({ to: row.email, name: row.name, url: `${origin}/reset/${token}` }));
     },
 
     async resetPassword(body, keepSid) {

@@ -28,19 +28,27 @@ export async function createMailer(config: AppConfig, db: Db): Promise<Mailer> {
   const transport = catcher
     ? nodemailer.createTransport({ host: '127.0.0.1', port: catcher.port, secure: false, ignoreTLS: true })
     : nodemailer.createTransport(smtpUrl);
+  // Sends still on the wire; close() lets them finish so no message is cut off at shutdown.
+  const inFlight = new Set<Promise<boolean>>();
+  const deliver = async (mail: OutgoingMail) => {
+    try {
+      await transport.sendMail({ from: config.mailFrom, ...mail });
+      return true;
+    } catch (err) {
+      if (config.logErrors) console.error(`could not send mail "${mail.subject}" to ${mail.to}:`, err);
+      return false;
+    }
+  };
   return {
     smtpUrl,
     catcher,
-    async send(mail) {
-      try {
-        await transport.sendMail({ from: config.mailFrom, ...mail });
-        return true;
-      } catch (err) {
-        if (config.logErrors) console.error(`could not send mail "${mail.subject}" to ${mail.to}:`, err);
-        return false;
-      }
+    send(mail) {
+      const p = deliver(mail).finally(() => inFlight.delete(p));
+      inFlight.add(p);
+      return p;
     },
     async close() {
+      await Promise.all([...inFlight]);
       transport.close();
       await catcher?.close();
     },
