@@ -18,6 +18,7 @@ import { BoardWorkspace, useBoardSession } from '../../features/canvas';
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import type { ApiBoard } from '../../../shared/api/types';
+import { PageTitle } from '../../components/ui/page-title';
 
 /**
  * One board: a compact header (title, role, family, members, owner actions) and below it the whole
@@ -40,6 +41,7 @@ export function BoardPage() {
   const b = board.data;
   return (
     <div className="flex min-h-0 flex-1 flex-col" data-testid="board-page">
+      <PageTitle>{b.title}</PageTitle>
       <header className="flex min-h-11 shrink-0 flex-wrap items-center gap-x-4 gap-y-1 border-b border-bench-700 bg-bench-900/90 px-4 py-1.5">
         <BoardTitleEditor board={b} editable={canEdit(b.role)} />
         <span className="flex items-center gap-1.5 text-xs text-slate-400">

@@ -15,8 +15,8 @@ export const WAVE_COLOURS = {
 } as const;
 
 export const LABEL_W = 132;
-export const AXIS_H = 22;
-export const ROW_H = 28;
+export const AXIS_H = 20;
+export const ROW_H = 22;
 
 export type AxisMode = 'time' | 'cycles';
 
@@ -58,7 +58,7 @@ export function drawWaveforms(ctx: CanvasRenderingContext2D, trace: Trace, o: Dr
     ctx.beginPath();
     ctx.rect(LABEL_W, top, plotW, ROW_H);
     ctx.clip();
-    drawRow(ctx, signal.changes, o, plotW, top);
+    drawRow(ctx, signal.changes, o, plotW, top, trace.start);
     ctx.restore();
   });
   if (o.cursor !== null) {
@@ -100,12 +100,13 @@ function drawAxis(ctx: CanvasRenderingContext2D, trace: Trace, o: DrawOptions, p
   }
 }
 
-function drawRow(ctx: CanvasRenderingContext2D, changes: Trace['signals'][number]['changes'], o: DrawOptions, plotW: number, top: number): void {
-  const hi = top + 6;
-  const lo = top + ROW_H - 6;
+/** One signal's waveform; nothing is drawn before `from`, where the recording started. */
+function drawRow(ctx: CanvasRenderingContext2D, changes: Trace['signals'][number]['changes'], o: DrawOptions, plotW: number, top: number, from: number): void {
+  const hi = top + 5;
+  const lo = top + ROW_H - 5;
   const mid = (hi + lo) / 2;
   const t1 = o.view.start + o.view.span;
-  const segs = segmentsIn(changes, o.view.start, t1, o.view.span / plotW);
+  const segs = segmentsIn(changes, Math.max(o.view.start, from), t1, o.view.span / plotW);
   let prevY: number | null = null;
   for (const s of segs) {
     const x0 = LABEL_W + xAtTime(o.view, s.from, plotW);

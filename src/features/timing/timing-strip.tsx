@@ -1,0 +1,140 @@
+import { useEffect, useMemo, useRef, useState, type WheelEvent } from 'react';
+import { toast } from 'sonner';
+import { AXIS_H, LABEL_W, ROW_H, drawWaveforms, type AxisMode } from './draw-waveforms';
+import { canvasPng, download, fileStem } from './export';
+import { SignalPicker, type SignalChoice } from './signal-picker';
+import { cycleAt, readout, risingEdges, type Trace } from './trace';
+import { traceToVcd } from './vcd-export';
+import { pan, placed, timeAtX, zoom, type Viewport } from './viewport';
+
+export interface TimingStripProps {
+  trace: Trace;
+  /** bumps whenever the trace grew, so the strip redraws without copying the trace */
+  version: number;
+  available: SignalChoice[];
+  chosen: string[];
+  onChoose(names: string[]): void;
+  /** nanoseconds per simulated time unit of the board's family (for the VCD timescale) */
+  timeUnitNs: number;
+  title: string;
+}
+
+const INITIAL: Viewport = { start: 0, span: 400, follow: true };
+
+/** The timing strip: waveforms of chosen signals over simulated time, with zoom, cursor and export. */
+export function TimingStrip(props: TimingStripProps) {
+  const { trace, version, available, chosen, onChoose, timeUnitNs, title } = props;
+  const canvasRef = useRef<HTMLCanvasElement>(null);
+  const wrapRef = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState(800);
+  const [view, setView] = useState<Viewport>(INITIAL);
+  const [hover, setHover] = useState<number | null>(null);
+  const [pinned, setPinned] = useState<number | null>(null);
+  const [axis, setAxis] = useState<AxisMode>('time');
+  const height = AXIS_H + Math.max(1, trace.signals.length) * ROW_H;
+  const shown = placed(view, trace.end);
+  const cursor = hover ?? pinned;
+
+  useEffect(() => {
+    const el = wrapRef.current;
+    if (!el) return;
+    const ro = new ResizeObserver(([entry]) => setWidth(Math.max(200, Math.floor(entry.contentRect.width))));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    const ctx = canvas?.getContext('2d');
+    if (!canvas || !ctx) return;
+    const scale = window.devicePixelRatio || 1;
+    canvas.width = Math.round(width * scale);
+    canvas.height = Math.round(height * scale);
+    drawWaveforms(ctx, trace, { width, height, view: shown, cursor, axis, scale });
+  }, [trace, version, width, height, shown, cursor, axis]);
+
+  const values = useMemo(() => (cursor === null ? [] : readout(trace, cursor)), [trace, version, cursor]);
+
+  const timeAt = (e: { clientX: number }) => {
+    const rect = canvasRef.current!.getBoundingClientRect();
+    const x = e.clientX - rect.left - LABEL_W;
+    return { t: timeAtX(shown, x, width - LABEL_W), frac: Math.min(1, Math.max(0, x / (width - LABEL_W))) };
+  };
+  const onWheel = (e: WheelEvent) => {
+    const { frac } = timeAt(e);
+    if (e.shiftKey) setView(pan(shown, (e.deltaY / 400) * shown.span));
+    else setView(zoom(shown, e.deltaY > 0 ? 1.25 : 0.8, frac));
+  };
+  const exportVcd = () => {
+    try {
+      download(new Blob([traceToVcd(trace, timeUnitNs)], { type: 'text/plain' }), `${fileStem(title)}.vcd`);
+    } catch (err) {
+      toast.error(`VCD export failed: ${(err as Error).message}`);
+    }
+  };
+  const exportPng = () => {
+    canvasPng(canvasRef.current!).then((blob) => download(blob, `${fileStem(title)}-timing.png`), (err: Error) => toast.error(err.message));
+  };
+
+  return (
+    <section aria-label="Timing strip" data-testid="timing-strip" className="flex h-full flex-col bg-bench-900 text-xs text-slate-200">
+      <div className="flex flex-wrap items-center gap-2 border-b border-bench-700 px-2 py-1">
+        <span className="font-semibold text-amber-300">Timing strip</span>
+        <SignalPicker available={available} chosen={chosen} onChoose={onChoose} />
+        <div role="group" aria-label="Time axis" className="flex overflow-hidden rounded border border-bench-600">
+          {(['time', 'cycles'] as const).map((m) => (
+            <button key={m} type="button" aria-pressed={axis === m} onClick={() => setAxis(m)} className={axis === m ? 'bg-bench-600 px-2' : 'px-2 hover:bg-bench-700'}>
+              {m === 'time' ? 'Time' : 'Clock cycles'}
+            </button>
+          ))}
+        </div>
+        <button type="button" aria-label="Zoom in" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 0.5))}>+</button>
+        <button type="button" aria-label="Zoom out" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 2))}>−</button>
+        <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView({ start: trace.start, span: Math.max(8, (trace.end - trace.start) * 1.05), follow: false })}>Fit</button>
+        <label className="flex items-center gap-1">
+          <input type="checkbox" checked={view.follow} onChange={(e) => setView({ ...shown, follow: e.target.checked })} /> Follow
+        </label>
+        <span className="ml-auto flex gap-2">
+          <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={exportVcd}>Export VCD</button>
+          <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={exportPng}>Export PNG</button>
+        </span>
+      </div>
+      <div ref={wrapRef} className="min-h-0 flex-1 overflow-auto">
+        {trace.signals.length === 0 ? (
+          <p className="p-3 text-slate-400">Pick signals to record their waveforms.</p>
+        ) : (
+          <canvas
+            ref={canvasRef}
+            data-testid="timing-canvas"
+            style={{ width, height, display: 'block', cursor: 'crosshair' }}
+            onWheel={onWheel}
+            onPointerMove={(e) => setHover(Math.max(0, timeAt(e).t))}
+            onPointerLeave={() => setHover(null)}
+            onClick={(e) => setPinned(Math.max(0, timeAt(e).t))}
+          />
+        )}
+      </div>
+      <div data-testid="timing-readout" aria-live="polite" className="flex flex-wrap gap-3 border-t border-bench-700 px-2 py-1 font-mono">
+        {cursor === null ? (
+          <>
+            <span className="text-slate-400">Move over the waveforms for a readout; click to pin the cursor.</span>
+            {trace.signals.map((s) => (
+              <span key={s.name} data-testid="timing-summary" data-signal={s.name} data-rises={risingEdges(s.changes)} title="rising edges recorded">
+                {s.name} ↑{risingEdges(s.changes)}
+              </span>
+            ))}
+          </>
+        ) : (
+          <>
+            <span className="text-slate-400">t = {cursor.toFixed(1)} · cycle {cycleAt(trace.edges, cursor)}</span>
+            {values.map((r) => (
+              <span key={r.name} data-signal={r.name} data-level={r.level}>
+                {r.name} = {r.level}
+              </span>
+            ))}
+          </>
+        )}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,103 @@
+import { readFileSync } from 'node:fs';
+import type { Page } from '@playwright/test';
+import { debouncedDffBoard } from '../../src/features/bench/fixtures/debounced-dff';
+import { expect, signUp, test } from './fixtures';
+
+// The live simulation end to end, in real browsers against the real server, database and websocket:
+// a D flip-flop of six NAND gates clocked by a bouncy push button through a gate debouncer. The owner
+// presses the button on the canvas; the lamp changes on both screens and the timing strip shows one clean
+// clock edge. A viewer's switch flip is a private try-out: the owner's lamps stay as they were.
+
+const OWNER = { name: 'Mara Quinn', email: 'mara@larkspur.example', password: 'filament-warm-42' };
+const VIEWER = { name: 'Theo Brandt', email: 'theo@room14.example', password: 'slate-cool-0917' };
+
+const level = (page: Page, row: string) => page.getByTestId(row).locator('[data-level]').first();
+const rises = (page: Page, signal: string) => page.locator(`[data-testid="timing-summary"][data-signal="${signal}"]`);
+
+test('a button press clocks the gate flip-flop on every screen; a viewer try-out stays private', async ({ page, browser, gatefold }) => {
+  await page.setViewportSize({ width: 1500, height: 950 });
+  await signUp(page, OWNER);
+  const file = JSON.stringify(debouncedDffBoard('Larkspur debounced step clock'));
+  // the server accepts writes only from its own origin, as a browser sends it
+  const origin = { Origin: gatefold.baseURL };
+  const imported = await page.request.post('/api/boards/import', {
+    headers: origin,
+    multipart: { file: { name: 'step-clock.gatefold.json', mimeType: 'application/json', buffer: Buffer.from(file) } },
+  });
+  expect(imported.status()).toBe(201);
+  const { board } = (await imported.json()) as { board: { id: number } };
+
+  const other = await browser.newContext({ baseURL: gatefold.baseURL, viewport: { width: 1500, height: 950 } });
+  const viewer = await other.newPage();
+  await signUp(viewer, VIEWER);
+  const added = await page.request.post(`/api/boards/${board.id}/members`, { headers: origin, data: { email: VIEWER.email, role: 'viewer' } });
+  expect(added.ok()).toBe(true);
+
+  await page.goto(`/boards/${board.id}`);
+  await viewer.goto(`/boards/${board.id}`);
+  await expect(page.getByTestId('bench-panel')).toBeVisible();
+  await expect(viewer.getByTestId('read-only-note')).toBeVisible();
+  // power-on: a flip-flop built of gates holds an unknown value until its first clock edge
+  for (const p of [page, viewer]) {
+    await expect(level(p, 'bench-output-Q')).toHaveAttribute('data-level', 'X');
+    await expect(level(p, 'bench-output-CLK')).toHaveAttribute('data-level', '0');
+    await expect(level(p, 'bench-input-D')).toHaveAttribute('data-level', '1');
+  }
+  await expect(page.getByTestId('settle-status')).toContainText('Settled');
+  await page.screenshot({ path: 'test-results/simulation-01-power-on.png' });
+
+  // The owner holds the push button on the canvas for a moment, then lets go.
+  const actuator = page.getByTestId('actuator-btn');
+  await actuator.scrollIntoViewIfNeeded();
+  await actuator.hover();
+  await page.mouse.down();
+  await expect(level(page, 'bench-input-STEP')).toHaveAttribute('data-level', '1');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await page.screenshot({ path: 'test-results/simulation-02-pressed.png' });
+  await page.waitForTimeout(300);
+  await page.mouse.up();
+  await expect(level(page, 'bench-input-STEP')).toHaveAttribute('data-level', '0');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(level(page, 'bench-output-CHG')).toHaveAttribute('data-level', '0');
+
+  // The timing strip: the raw button bounced, the debounced clock rose exactly once.
+  await expect(rises(page, 'CLK')).toHaveAttribute('data-rises', '1');
+  expect(Number(await rises(page, 'STEP').getAttribute('data-rises'))).toBeGreaterThan(1);
+  await expect(rises(page, 'Q')).toHaveAttribute('data-rises', '0'); // X → 1 is not a rising edge
+  const strip = page.getByTestId('timing-canvas');
+  const box = (await strip.boundingBox())!;
+  await page.mouse.move(box.x + box.width - 4, box.y + box.height / 2);
+  await expect(page.getByTestId('timing-readout')).toContainText('Q = 1');
+  await expect(page.getByTestId('timing-readout')).toContainText('CLK = 0');
+  await page.screenshot({ path: 'test-results/simulation-03-released-timing.png' });
+
+  // The press was a document edit: the viewer's simulation saw it too.
+  await expect(level(viewer, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(rises(viewer, 'CLK')).toHaveAttribute('data-rises', '1');
+
+  // The viewer flips D on the canvas: a private try-out.
+  await viewer.getByTestId('actuator-sw_d').click();
+  await expect(viewer.getByTestId('try-out-chip')).toContainText('Try-out — only you see this');
+  await expect(level(viewer, 'bench-input-D')).toHaveAttribute('data-level', '0');
+  await expect(level(viewer, 'bench-output-CHG')).toHaveAttribute('data-level', '1');
+  await viewer.screenshot({ path: 'test-results/simulation-04-viewer-try-out.png' });
+  await page.waitForTimeout(1000);
+  await expect(level(page, 'bench-input-D')).toHaveAttribute('data-level', '1');
+  await expect(level(page, 'bench-output-CHG')).toHaveAttribute('data-level', '0');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(page.getByTestId('try-out-chip')).toHaveCount(0);
+  await page.screenshot({ path: 'test-results/simulation-05-owner-unchanged.png' });
+
+  await viewer.getByTestId('try-out-chip').getByRole('button', { name: 'Reset' }).click();
+  await expect(level(viewer, 'bench-input-D')).toHaveAttribute('data-level', '1');
+  await expect(level(viewer, 'bench-output-CHG')).toHaveAttribute('data-level', '0');
+  await expect(viewer.getByTestId('try-out-chip')).toHaveCount(0);
+
+  // The recording exports as a value change dump.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export VCD' }).click()]);
+  expect(download.suggestedFilename()).toBe('larkspur-debounced-step-clock.vcd');
+  const vcd = readFileSync((await download.path())!, 'utf8');
+  expect(vcd).toContain('$enddefinitions $end');
+  expect(vcd).toMatch(/\$var wire 1 \S+ CLK \$end/);
+  await other.close();
+});
