@@ -29,7 +29,7 @@ export async function api(server: TestServer, method: string, path: string, cook
 let counter = 0;
 /** Signs up a fresh account and returns its session cookie. */
 export async function signUp(server: TestServer, name: string): Promise<User> {
-  const email = `${name.toLowerCase()}-${process.pid}-${++counter}@collab.example`;
+  const email = `${name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${process.pid}-${++counter}@collab.example`;
   const res = await api(server, 'POST', '/api/auth/signup', undefined, { name, email, password: 'correct horse battery' });
   if (res.status !== 201) throw new Error(`signup answered ${res.status}: ${await res.text()}`);
   const cookie = (res.headers.getSetCookie()[0] ?? '').split(';')[0];
