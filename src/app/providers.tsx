@@ -1,11 +1,14 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useState, type ReactNode } from 'react';
 import { Toaster } from 'sonner';
+import { authKeys } from '../features/auth/api';
 import { createQueryClient } from '../lib/query-client';
 
 /** Server state (TanStack Query) and the toaster, around the whole app. */
 export function Providers({ children }: { children: ReactNode }) {
-  const [client] = useState(createQueryClient);
+  // A 401 anywhere means the session is gone: mark the user signed out, and the signed-in pages
+  // send the visitor to sign in (and back afterwards).
+  const [client] = useState(() => createQueryClient((qc) => qc.setQueryData(authKeys.me, null)));
   return (
     <QueryClientProvider client={client}>
       {children}

@@ -11,6 +11,7 @@ import { InvitationsList } from '../../features/members/components/invitations-l
 import { MembersTable } from '../../features/members/components/members-table';
 import { useIdParam } from '../../lib/use-id-param';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function BoardMembersPage() {
   const boardId = useIdParam() ?? 0;
@@ -33,6 +34,7 @@ export function BoardMembersPage() {
 
   return (
     <PageColumn>
+      <PageTitle>{`Members of ${b.title}`}</PageTitle>
       <div className="flex flex-col gap-6">
         <div className="flex items-baseline justify-between gap-4">
           <h1 className="text-lg font-semibold text-slate-100">

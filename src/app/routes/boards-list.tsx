@@ -8,12 +8,14 @@ import { boardsQueryOptions } from '../../features/boards/api';
 import { BoardsTable } from '../../features/boards/components/boards-table';
 import { CreateBoardForm } from '../../features/boards/components/create-board-form';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function BoardsListPage() {
   const boards = useQuery(boardsQueryOptions());
   const navigate = useNavigate();
   return (
     <PageColumn>
+      <PageTitle>Boards</PageTitle>
       <div className="flex flex-col gap-6">
         <Card>
           <CardHeader title="New board" subtitle="Start an empty schematic; invite people once it exists." />

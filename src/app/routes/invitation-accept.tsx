@@ -7,6 +7,7 @@ import { invitationQueryOptions } from '../../features/members/api';
 import { InvitationCard } from '../../features/members/components/invitation-card';
 import { isApiError } from '../../lib/api-client';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function InvitationAcceptPage() {
   const { token = '' } = useParams();
@@ -30,5 +31,10 @@ export function InvitationAcceptPage() {
   else if (me.isError) body = <ErrorState error={me.error} onRetry={() => me.refetch()} />;
   else body = <InvitationCard token={token} invitation={invitation.data} user={me.data} onAccepted={(id) => navigate(`/boards/${id}`, { replace: true })} />;
 
-  return <PageColumn width="narrow">{body}</PageColumn>;
+  return (
+    <PageColumn width="narrow">
+      <PageTitle>Invitation</PageTitle>
+      {body}
+    </PageColumn>
+  );
 }

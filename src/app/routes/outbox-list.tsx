@@ -7,6 +7,7 @@ import { outboxQueryOptions } from '../../features/outbox/api';
 import { AdminsOnly } from '../../features/outbox/components/admins-only';
 import { OutboxTable } from '../../features/outbox/components/outbox-table';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function OutboxListPage() {
   const me = useQuery(meQueryOptions);
@@ -15,6 +16,7 @@ export function OutboxListPage() {
 
   return (
     <PageColumn>
+      <PageTitle>Outbox</PageTitle>
       <div className="flex flex-col gap-4">
         <div>
           <h1 className="text-lg font-semibold text-slate-100">Outbox</h1>

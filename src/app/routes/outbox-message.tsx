@@ -8,6 +8,7 @@ import { AdminsOnly } from '../../features/outbox/components/admins-only';
 import { MessageView } from '../../features/outbox/components/message-view';
 import { useIdParam } from '../../lib/use-id-param';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function OutboxMessagePage() {
   const id = useIdParam();
@@ -24,6 +25,7 @@ export function OutboxMessagePage() {
 
   return (
     <PageColumn>
+      <PageTitle>{message.data?.subject || 'Message'}</PageTitle>
       <div className="flex flex-col gap-4">
         <Link to="/outbox" className="text-sm text-amber-300 hover:underline">
           ← All messages

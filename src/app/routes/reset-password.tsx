@@ -3,12 +3,14 @@ import { AuthCard } from '../../features/auth/components/auth-card';
 import { NewPasswordForm } from '../../features/auth/components/new-password-form';
 import { notifySuccess } from '../../lib/notify';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function ResetPasswordPage() {
   const { token = '' } = useParams();
   const navigate = useNavigate();
   return (
     <PageColumn width="narrow">
+      <PageTitle>New password</PageTitle>
       <AuthCard
         title="Choose a new password"
         footer={

@@ -2,10 +2,12 @@ import { Link } from 'react-router-dom';
 import { AuthCard } from '../../features/auth/components/auth-card';
 import { ResetRequestForm } from '../../features/auth/components/reset-request-form';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function ResetRequestPage() {
   return (
     <PageColumn width="narrow">
+      <PageTitle>Reset password</PageTitle>
       <AuthCard
         title="Reset your password"
         subtitle="We will e-mail you a link to choose a new one."

@@ -5,6 +5,7 @@ import { AuthCard } from '../../features/auth/components/auth-card';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
 import { safeNext } from '../../lib/safe-next';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function SignInPage() {
   const [params] = useSearchParams();
@@ -15,6 +16,7 @@ export function SignInPage() {
   const withNext = params.get('next') ? `?next=${encodeURIComponent(next)}` : '';
   return (
     <PageColumn width="narrow">
+      <PageTitle>Sign in</PageTitle>
       <div className="flex flex-col gap-4">
         <AuthCard
           title="Sign in"

@@ -6,6 +6,7 @@ import { SignUpForm } from '../../features/auth/components/sign-up-form';
 import { notifySuccess } from '../../lib/notify';
 import { safeNext } from '../../lib/safe-next';
 import { PageColumn } from '../layout';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function SignUpPage() {
   const [params] = useSearchParams();
@@ -16,6 +17,7 @@ export function SignUpPage() {
   const withNext = params.get('next') ? `?next=${encodeURIComponent(next)}` : '';
   return (
     <PageColumn width="narrow">
+      <PageTitle>Sign up</PageTitle>
       <AuthCard
         title="Create your account"
         subtitle="Draw, simulate and plan gate-level circuits together."
