@@ -29,9 +29,10 @@ export function SwitchSymbol({ part, w, level, shown }: SymbolProps<SwitchPart> 
       </g>
       <circle cx={pivot.x} cy={pivot.y} r={5} fill={INK.stroke} />
       <text x={10} y={54} fontFamily={monoFont} fontSize={8} fill={INK.dim}>{shown ? 'ON' : 'OFF'}</text>
-      {/* the whole switch face is the actuator: a click flips it (nodrag keeps the click from moving the part) */}
-      <rect x={4} y={4} width={w - 20} height={52} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
-        style={{ cursor: 'pointer' }} onClick={(e) => { e.stopPropagation(); actions.toggleSwitch(part.id); }} />
+      {/* The face is the actuator: a click flips the switch and also selects the part; a drag still moves
+          it (the drag swallows the click, so moving never flips). */}
+      <rect x={4} y={4} width={w - 20} height={52} fill="transparent" className="gf-actuator" data-testid={`actuator-${part.id}`}
+        style={{ cursor: 'pointer' }} onClick={() => actions.toggleSwitch(part.id)} />
     </>
   );
 }
@@ -56,7 +57,8 @@ export function ButtonSymbol({ part, w, level, shown }: SymbolProps<ButtonPart> 
         <line x1={27} y1={8} x2={39} y2={8} stroke={INK.stroke} strokeWidth={2} />
       </g>
       {part.bounce && <text x={6} y={34} fontFamily={monoFont} fontSize={7} fill={INK.dim}>bounce</text>}
-      <rect x={4} y={4} width={w - 20} height={32} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
+      {/* only the plunger is the actuator (pressing must not start a drag); grab the lower edge to move the part */}
+      <rect x={10} y={2} width={46} height={24} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
         style={{ cursor: 'pointer' }} onPointerDown={down} onPointerUp={up} onPointerCancel={up} />
     </>
   );

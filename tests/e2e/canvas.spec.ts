@@ -1,0 +1,165 @@
+import type { Browser, BrowserContext, Locator, Page } from '@playwright/test';
+import { test, expect, signUp } from './fixtures';
+
+// The live shared canvas end to end: three people on one board in three browser contexts, through the
+// real server, database and collaboration socket. Demo names from our own scenario.
+
+const OWNER = { name: 'Mara Quinn', email: 'mara@larkspur.example', password: 'filament-warm-42' };
+const EDITOR = { name: 'Ines Okafor', email: 'ines@larkspur.example', password: 'slate-cool-0917' };
+const VIEWER = { name: 'Tomas Reyes', email: 'tomas@room14.example', password: 'room-fourteen-77' };
+
+async function person(browser: Browser, baseURL: string, who: typeof OWNER): Promise<{ ctx: BrowserContext; page: Page }> {
+  const ctx = await browser.newContext({ baseURL, viewport: { width: 1400, height: 860 } });
+  const page = await ctx.newPage();
+  await signUp(page, who);
+  return { ctx, page };
+}
+
+async function openBoard(page: Page, id: number): Promise<void> {
+  await page.goto(`/boards/${id}`);
+  await expect(page.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
+  await expect(page.getByTestId('sync-note')).toHaveCount(0, { timeout: 15_000 });
+}
+
+/** Clicks the empty bench at (fx, fy) as fractions of its box. */
+async function clickBench(page: Page, fx: number, fy: number): Promise<void> {
+  const box = (await page.locator('.react-flow__pane').boundingBox())!;
+  await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+}
+
+async function partIds(page: Page, prefix: string): Promise<string[]> {
+  const ids = await page.locator(`[data-testid^="part-${prefix}"]`).evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')!.slice(5)));
+  return ids.sort();
+}
+
+/** Drags from one pin to another with the mouse (React Flow's connection gesture). */
+async function wire(page: Page, from: Locator, to: Locator): Promise<void> {
+  const a = (await from.boundingBox())!;
+  const b = (await to.boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  await page.mouse.move((a.x + b.x) / 2, (a.y + b.y) / 2, { steps: 5 });
+  await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 5 });
+  await page.mouse.up();
+}
+
+async function nodeTransform(page: Page, id: string): Promise<string | null> {
+  return page.locator(`.react-flow__node[data-id="${id}"]`).getAttribute('style');
+}
+
+test('owner and editor edit one board live; undo is per person; a viewer cannot edit', async ({ browser, gatefold }) => {
+  test.setTimeout(120_000);
+  const owner = await person(browser, gatefold.baseURL, OWNER);
+  // State-changing API calls carry our Origin, as a browser's would (the server's forgery guard asks for it).
+  const headers = { Origin: gatefold.baseURL };
+  const created = await owner.page.request.post('/api/boards', { data: { title: 'Half adder, bench test' }, headers });
+  expect(created.status()).toBe(201);
+  const boardId = ((await created.json()) as { board: { id: number } }).board.id;
+  const editor = await person(browser, gatefold.baseURL, EDITOR);
+  const viewer = await person(browser, gatefold.baseURL, VIEWER);
+  for (const [who, role] of [[EDITOR, 'editor'], [VIEWER, 'viewer']] as const) {
+    const res = await owner.page.request.post(`/api/boards/${boardId}/members`, { data: { email: who.email, role }, headers });
+    expect(res.ok()).toBeTruthy();
+  }
+
+  const o = owner.page;
+  const e = editor.page;
+  await openBoard(o, boardId);
+  await openBoard(e, boardId);
+  await expect(o.getByTestId('parts-tray')).toBeVisible();
+
+  // Both see each other on the board.
+  await expect(o.getByTestId('presence-avatar')).toHaveCount(2);
+  await expect(e.getByTestId('presence-avatar')).toHaveCount(2);
+
+  // The owner places a toggle switch by click-then-click; the editor sees it.
+  await o.getByTestId('tray-switch').click();
+  await clickBench(o, 0.25, 0.4);
+  await expect.poll(() => partIds(o, 'sw')).toHaveLength(1);
+  const [sw] = await partIds(o, 'sw');
+  await expect(e.getByTestId(`part-${sw}`)).toBeVisible();
+  await expect(e.getByTestId(`part-${sw}`)).toContainText('A');
+
+  // The editor drags a lamp from the tray onto the bench; the owner sees it.
+  const pane = e.locator('.react-flow__pane');
+  const pbox = (await pane.boundingBox())!;
+  await e.getByTestId('tray-lamp').dragTo(pane, { targetPosition: { x: pbox.width * 0.6, y: pbox.height * 0.4 } });
+  await expect.poll(() => partIds(e, 'lamp')).toHaveLength(1);
+  const [lamp] = await partIds(e, 'lamp');
+  await expect(o.getByTestId(`part-${lamp}`)).toBeVisible();
+
+  // The owner wires switch.out to lamp.in; the wire shows on both screens.
+  await wire(o, o.getByTestId(`pin-${sw}-out`), o.getByTestId(`pin-${lamp}-in`));
+  await expect(o.locator('.react-flow__edge')).toHaveCount(1);
+  await expect(e.locator('.react-flow__edge')).toHaveCount(1);
+
+  // The rules: an input takes one wire — the second attempt is refused with the reason.
+  await wire(o, o.getByTestId(`pin-${sw}-outn`), o.getByTestId(`pin-${lamp}-in`));
+  await expect(o.getByText(/already has a wire/)).toBeVisible();
+  await expect(o.locator('.react-flow__edge')).toHaveCount(1);
+
+  // The owner's pointer shows on the editor's screen with the owner's name.
+  await o.mouse.move(pbox.x + 300, pbox.y + 300);
+  await o.mouse.move(pbox.x + 320, pbox.y + 310, { steps: 3 });
+  await expect(e.getByTestId('remote-cursor').filter({ hasText: OWNER.name })).toBeVisible();
+  await o.screenshot({ path: 'test-results/canvas-01-owner.png' });
+  await e.screenshot({ path: 'test-results/canvas-02-editor.png' });
+
+  // Undo in the owner's tab removes the owner's wire, then the owner's switch — never the editor's lamp.
+  await o.locator('.react-flow__pane').click({ position: { x: 10, y: 10 } });
+  await o.keyboard.press('Control+z');
+  await expect(o.locator('.react-flow__edge')).toHaveCount(0);
+  await expect(e.locator('.react-flow__edge')).toHaveCount(0);
+  await o.getByTestId('tool-undo').click();
+  await expect(e.getByTestId(`part-${sw}`)).toHaveCount(0);
+  // Nothing of the owner's is left to undo: the button is disabled and Ctrl+Z leaves the editor's lamp alone.
+  await expect(o.getByTestId('tool-undo')).toBeDisabled();
+  await o.keyboard.press('Control+z');
+  await o.waitForTimeout(300);
+  await expect(o.getByTestId(`part-${lamp}`)).toBeVisible();
+  await expect(e.getByTestId(`part-${lamp}`)).toBeVisible();
+  // Redo brings the switch back for everyone.
+  await o.keyboard.press('Control+Shift+z');
+  await expect(e.getByTestId(`part-${sw}`)).toBeVisible();
+
+  // Copy and paste (Ctrl+C / Ctrl+V) through the bench clipboard: a second lamp with a fresh id and label.
+  await e.getByTestId(`part-${lamp}`).click();
+  await e.keyboard.press('Control+c');
+  await e.mouse.move(pbox.x + pbox.width * 0.6, pbox.y + pbox.height * 0.7);
+  await e.keyboard.press('Control+v');
+  await expect.poll(() => partIds(o, 'lamp')).toHaveLength(2);
+
+  // The viewer: no tray, read-only note, dragging and Delete do nothing.
+  const v = viewer.page;
+  await openBoard(v, boardId);
+  await expect(v.getByTestId('parts-tray')).toHaveCount(0);
+  await expect(v.getByTestId('read-only-note')).toBeVisible();
+  await expect(v.getByTestId(`part-${lamp}`)).toBeVisible();
+  const before = await nodeTransform(v, lamp);
+  const lbox = (await v.getByTestId(`part-${lamp}`).boundingBox())!;
+  await v.mouse.move(lbox.x + lbox.width / 2, lbox.y + lbox.height / 2);
+  await v.mouse.down();
+  await v.mouse.move(lbox.x + 200, lbox.y + 120, { steps: 8 });
+  await v.mouse.up();
+  expect(await nodeTransform(v, lamp)).toBe(before);
+  await v.getByTestId(`part-${lamp}`).click();
+  await v.keyboard.press('Delete');
+  await v.keyboard.press('Control+d');
+  await v.waitForTimeout(500);
+  await expect(o.getByTestId(`part-${lamp}`)).toBeVisible();
+  await expect(v.getByTestId(`part-${lamp}`)).toBeVisible();
+  expect(await partIds(o, 'lamp')).toHaveLength(2);
+  // …but the viewer still gets live updates: the owner deletes the switch and it leaves the viewer's screen.
+  await o.getByTestId(`part-${sw}`).click();
+  await o.keyboard.press('Delete');
+  await expect(v.getByTestId(`part-${sw}`)).toHaveCount(0);
+  await v.screenshot({ path: 'test-results/canvas-03-viewer.png' });
+
+  // The help sheet lists the shortcuts.
+  await o.keyboard.press('?');
+  await expect(o.getByTestId('help-sheet')).toContainText('Ctrl+Shift+Z');
+  await o.screenshot({ path: 'test-results/canvas-04-help.png' });
+  await o.keyboard.press('Escape');
+
+  for (const p of [owner, editor, viewer]) await p.ctx.close();
+});
