@@ -101,3 +101,86 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   expect(vcd).toMatch(/\$var wire 1 \S+ CLK \$end/);
   await other.close();
 });
+
+/** A toggle flip-flop on a clock part, an enable-gated ring of three inversions, and a fought-over net. */
+function benchTroubleBoard() {
+  return {
+    format: 'gatefold-board', version: 1, title: 'Room 14 clock and ring', family: 'ideal',
+    parts: [
+      { id: 'ck', kind: 'clock', label: 'CK', period: 20, x: 40, y: 40 },
+      { id: 'ff', kind: 'dff', x: 200, y: 40 },
+      { id: 'q', kind: 'lamp', label: 'Q', x: 380, y: 40 },
+      { id: 'en', kind: 'switch', label: 'EN', on: false, x: 40, y: 220 },
+      { id: 'r1', kind: 'nand', inputs: 2, x: 200, y: 220 },
+      { id: 'r2', kind: 'not', x: 320, y: 220 },
+      { id: 'r3', kind: 'not', x: 440, y: 220 },
+      { id: 'ring', kind: 'probe', label: 'RING', x: 560, y: 220 },
+      { id: 'a', kind: 'switch', label: 'A', on: true, x: 40, y: 380 },
+      { id: 'b', kind: 'switch', label: 'B', on: false, x: 40, y: 470 },
+      { id: 'fight', kind: 'lamp', label: 'F', x: 260, y: 420 },
+    ],
+    wires: [
+      { id: 'w1', from: 'ck.out', to: 'ff.clk' }, { id: 'w2', from: 'ff.qn', to: 'ff.d' }, { id: 'w3', from: 'ff.q', to: 'q.in' },
+      { id: 'w4', from: 'en.out', to: 'r1.in0' }, { id: 'w5', from: 'r3.out', to: 'r1.in1' }, { id: 'w6', from: 'r1.out', to: 'r2.in0' },
+      { id: 'w7', from: 'r2.out', to: 'r3.in0' }, { id: 'w8', from: 'r3.out', to: 'ring.in' },
+      { id: 'w9', from: 'a.out', to: 'fight.in' }, { id: 'w10', from: 'b.out', to: 'fight.in' },
+    ],
+  };
+}
+
+test('the bench clock steps and runs, a ring that will not settle pulses, a tube family shows the caution', async ({ page, gatefold }) => {
+  await page.setViewportSize({ width: 1500, height: 950 });
+  await signUp(page, OWNER);
+  const imported = await page.request.post('/api/boards/import', {
+    headers: { Origin: gatefold.baseURL },
+    multipart: { file: { name: 'ring.gatefold.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(benchTroubleBoard())) } },
+  });
+  expect(imported.status()).toBe(201);
+  const { board } = (await imported.json()) as { board: { id: number } };
+  await page.goto(`/boards/${board.id}`);
+  const bench = page.getByTestId('bench-panel');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '0');
+
+  // two switches drive one lamp: a conflict, read as X, with its sentence on the parts' badges
+  await expect(level(page, 'bench-output-F')).toHaveAttribute('data-level', 'X');
+  await expect(page.getByTestId('settle-status')).toContainText('Conflicts');
+  await expect(page.getByTestId('badge-a')).toHaveAttribute('title', 'Two outputs drive this net (a.out, b.out): it reads X.');
+
+  // one step is one full cycle: a toggle flip-flop's Q after k rising edges is k mod 2 (common practice, no source)
+  await bench.getByRole('button', { name: 'Step' }).click();
+  await expect(page.getByTestId('bench-cycles')).toHaveText('cycle 1');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await bench.getByRole('button', { name: 'Step' }).click();
+  await expect(page.getByTestId('bench-cycles')).toHaveText('cycle 2');
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '0');
+
+  await bench.getByLabel('Clock rate').fill('75');
+  await bench.getByRole('button', { name: 'Run' }).click();
+  await expect.poll(async () => Number((await page.getByTestId('bench-cycles').textContent())?.replace('cycle ', '')), { timeout: 10_000 }).toBeGreaterThan(6);
+  await bench.getByRole('button', { name: 'Pause' }).click();
+  const cycles = await page.getByTestId('bench-cycles').textContent();
+  await page.waitForTimeout(500);
+  await expect(page.getByTestId('bench-cycles')).toHaveText(cycles!);
+  const n = Number(cycles!.replace('cycle ', ''));
+  await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', n % 2 ? '1' : '0');
+  await page.getByRole('button', { name: 'Clock cycles' }).click();
+  await page.screenshot({ path: 'test-results/simulation-06-clock-cycles.png' });
+
+  // enabling the ring: it never settles, its wires pulse and its gates carry a badge
+  await bench.getByRole('button', { name: 'Switch EN' }).click();
+  await expect(page.getByTestId('settle-status')).toContainText('Oscillating');
+  await expect(page.getByTestId('net-pulse-style')).toHaveCount(1);
+  expect(await page.getByTestId('net-pulse-style').textContent()).toContain('[data-id="w6"]');
+  await expect(page.getByTestId('badge-r2')).toHaveAttribute('title', /does not settle/);
+  await page.screenshot({ path: 'test-results/simulation-07-oscillating.png' });
+
+  // the family is a document edit; a tube family brings the safety caution
+  await bench.getByLabel('Bench logic family').selectOption('tube-drl-nor');
+  await expect(page.getByTestId('bench-safety')).toContainText('local electrical codes');
+  await page.screenshot({ path: 'test-results/simulation-08-tube-caution.png' });
+
+  const [png] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export PNG' }).click()]);
+  expect(png.suggestedFilename()).toBe('room-14-clock-and-ring-timing.png');
+  const bytes = readFileSync((await png.path())!);
+  expect(bytes.subarray(1, 4).toString('latin1')).toBe('PNG');
+});

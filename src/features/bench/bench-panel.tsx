@@ -19,11 +19,6 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
       </header>
       {sim.tryOut.active && sim.tryOut.values.size > 0 && <TryOutChip onReset={sim.tryOut.clear} />}
       {sim.error && <p role="alert" className="rounded border border-rose-800 bg-rose-950/50 p-2 text-xs text-rose-200">Simulation stopped: {sim.error}</p>}
-      {sim.problems.length > 0 && (
-        <ul className="list-disc pl-4 text-xs text-slate-400">
-          {sim.problems.slice(0, 6).map((p) => <li key={p}>{p}</li>)}
-        </ul>
-      )}
       <Block title="Inputs">
         {sim.inputs.length === 0 ? (
           <p className="text-xs text-slate-500">No switches, buttons, clocks or constants yet.</p>

@@ -65,6 +65,11 @@ export class ClockDriver {
     this.rebase();
   }
 
+  /** Wall-clock milliseconds (for time budgets of the work a tick triggers). */
+  now(): number {
+    return this.timers.now();
+  }
+
   private rebase(): void {
     this.startedAt = this.timers.now();
     this.done = 0;

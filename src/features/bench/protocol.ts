@@ -32,6 +32,8 @@ export interface BenchReport {
   oscillating: string[];
   conflicts: string[];
   undrivenInputs: string[];
+  /** storage parts that met a race in the last settle (SR released from 11, D changing on the clock edge) */
+  races: string[];
 }
 
 /** Messages from the worker to the page. */

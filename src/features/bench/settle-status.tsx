@@ -21,6 +21,7 @@ export function SettleStatus({ report, family }: { report: BenchReport; family: 
       {report.undrivenInputs.length > 0 && (
         <Issue title={`Undriven inputs (an open ${f.title} input reads ${f.floating})`} items={report.undrivenInputs} />
       )}
+      {report.races.length > 0 && <Issue title="Race in the last change (the order of simultaneous inputs decided the stored value)" items={report.races} />}
     </div>
   );
 }

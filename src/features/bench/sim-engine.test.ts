@@ -160,6 +160,19 @@ describe('BenchEngine', () => {
     expect(lv).toBe('X');
   });
 
+  it('reports a race when an SR latch is released from S = R = 1 at once (CHECKS: SR latch, releasing both is a race)', () => {
+    const h = harness();
+    const board = (on: boolean) => BoardFileSchema.parse({
+      format: 'gatefold-board', version: 1, title: 'Latch', family: 'ideal',
+      parts: [{ id: 's', kind: 'switch', label: 'S', on }, { id: 'r', kind: 'switch', label: 'R', on }, { id: 'l', kind: 'srlatch' }, { id: 'q', kind: 'lamp', label: 'Q' }],
+      wires: [{ id: 'w1', from: 's.out', to: 'l.s' }, { id: 'w2', from: 'r.out', to: 'l.r' }, { id: 'w3', from: 'l.q', to: 'q.in' }],
+    });
+    h.engine.handle({ type: 'load', board: board(true), tryOut: [] });
+    expect(h.last().report.races).toEqual([]);
+    h.engine.handle({ type: 'load', board: board(false), tryOut: [] });
+    expect(h.last().report.races).toEqual(['l']);
+  });
+
   it('answers a bad message with a clear error and keeps working', () => {
     const h = harness();
     h.engine.handle({ type: 'load', board: halfAdder(), tryOut: [] });

@@ -19,6 +19,9 @@ export function halfPeriod(netlist: Netlist): number {
   return Math.max(1, Math.round(period / 2));
 }
 
+/** Wall time one clock tick may spend simulating. */
+const RUN_BUDGET_MS = 40;
+
 /** Recorded numbers kept between two state messages (3 per change); beyond this a burst is cut short. */
 const TRACE_BUDGET = 3 * 60_000;
 
@@ -51,7 +54,7 @@ export class BenchEngine {
 
   constructor(private readonly post: (msg: FromWorker, transfer?: Transferable[]) => void, timers?: Timers) {
     this.clock = new ClockDriver((n) => {
-      this.halfCycles(n);
+      this.halfCycles(n, RUN_BUDGET_MS);
       this.flush();
     }, timers);
   }
@@ -168,11 +171,16 @@ export class BenchEngine {
     this.report = sim.settle();
   }
 
-  /** Runs `n` clock half-cycles; each edge comes half a period after the last one (or after settling). */
-  private halfCycles(n: number): void {
+  /**
+   * Runs `n` clock half-cycles; each edge comes half a period after the last one (or after settling).
+   * With `budgetMs` it stops early once that much wall time is spent (a board that oscillates costs a
+   * whole event budget per edge), so a running clock slows down instead of blocking the worker.
+   */
+  private halfCycles(n: number, budgetMs = Infinity): void {
     const sim = this.sim;
     if (!sim) return;
-    for (let i = 0; i < n; i++) {
+    const start = this.clock.now();
+    for (let i = 0; i < n && this.clock.now() - start < budgetMs; i++) {
       const target = Math.max(sim.time, this.lastEdgeAt + this.half);
       if (target > sim.time) this.idle(target - sim.time);
       this.lastEdgeAt = sim.time;
@@ -230,12 +238,12 @@ export class BenchEngine {
     const oscillating = new Set(this.report.oscillating);
     const pulsing = netlist.nets.filter((n) => oscillating.has(n.name)).flatMap((n) => [...n.drivers, ...n.readers].map((r) => `${r.part}.${r.pin}`));
     const badges = [...partBadges(netlist, this.report, familyOf(this.board.family))].map(([id, b]) => [id, b.tone, b.text] as [string, typeof b.tone, string]);
-    const { settled, oscillating: osc, conflicts, undrivenInputs } = this.report;
+    const { settled, oscillating: osc, conflicts, undrivenInputs, races } = this.report;
     this.post(
       {
         type: 'state',
         levels,
-        report: { settled, oscillating: osc, conflicts, undrivenInputs },
+        report: { settled, oscillating: osc, conflicts, undrivenInputs, races },
         values,
         time: sim.time,
         events: sim.stats.events,
