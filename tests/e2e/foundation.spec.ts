@@ -110,6 +110,26 @@ test('owner invites an editor by e-mail; the invitee signs up from the mailed li
   await expect(member.getByRole('combobox', { name: `Role of ${INVITEE.name}` })).toHaveValue('editor');
   await expect(page.getByText('No pending invitations.')).toBeVisible();
   await page.screenshot({ path: 'test-results/foundation-09-members-after.png' });
+
+  // Owners change roles in the table; the change is stored (it survives a reload).
+  await member.getByRole('combobox', { name: `Role of ${INVITEE.name}` }).selectOption('viewer');
+  await expect(page.getByText(`${INVITEE.name} is now viewer`)).toBeVisible();
+  await page.reload();
+  await expect(page.getByTestId('member-row').filter({ hasText: INVITEE.email }).getByRole('combobox')).toHaveValue('viewer');
+
+  // Deleting asks first; cancelling keeps the board, confirming removes it.
+  await page.goto(boardPath);
+  const ownerHeader = page.getByTestId('board-page').locator('header');
+  await ownerHeader.getByRole('button', { name: 'Delete' }).click();
+  const confirm = page.getByRole('dialog', { name: /Delete “Half adder, tube build”\?/ });
+  await expect(confirm).toBeVisible();
+  await confirm.getByRole('button', { name: 'Cancel' }).click();
+  await expect(confirm).toBeHidden();
+  await expect(page).toHaveURL(boardPath);
+  await ownerHeader.getByRole('button', { name: 'Delete' }).click();
+  await confirm.getByRole('button', { name: 'Delete board' }).click();
+  await expect(page).toHaveURL(/\/boards$/);
+  await expect(page.getByText('No boards yet')).toBeVisible();
 });
 
 test('server-side errors show in the form; sign-in returns to the page that asked for it', async ({ page }) => {
