@@ -70,6 +70,12 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   await expect(page.getByTestId('timing-readout')).toContainText('Q = 1');
   await expect(page.getByTestId('timing-readout')).toContainText('CLK = 0');
   await page.screenshot({ path: 'test-results/simulation-03-released-timing.png' });
+  // the wheel zooms the strip (and stops it following the newest time) without scrolling the page
+  const follow = page.getByTestId('timing-strip').getByLabel('Follow');
+  await expect(follow).toBeChecked();
+  await page.mouse.wheel(0, -200);
+  await expect(follow).not.toBeChecked();
+  await page.getByTestId('timing-strip').getByRole('button', { name: 'Fit' }).click();
 
   // The press was a document edit: the viewer's simulation saw it too.
   await expect(level(viewer, 'bench-output-Q')).toHaveAttribute('data-level', '1');

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState, type WheelEvent } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 import { AXIS_H, LABEL_W, ROW_H, drawWaveforms, type AxisMode } from './draw-waveforms';
 import { canvasPng, download, fileStem } from './export';
@@ -58,13 +58,27 @@ export function TimingStrip(props: TimingStripProps) {
   const timeAt = (e: { clientX: number }) => {
     const rect = canvasRef.current!.getBoundingClientRect();
     const x = e.clientX - rect.left - LABEL_W;
-    return { t: timeAtX(shown, x, width - LABEL_W), frac: Math.min(1, Math.max(0, x / (width - LABEL_W))) };
+    return { t: timeAtX(shown, x, width - LABEL_W) };
   };
-  const onWheel = (e: WheelEvent) => {
-    const { frac } = timeAt(e);
-    if (e.shiftKey) setView(pan(shown, (e.deltaY / 400) * shown.span));
-    else setView(zoom(shown, e.deltaY > 0 ? 1.25 : 0.8, frac));
-  };
+  // The wheel zooms (shift + wheel pans). React's wheel handlers are passive, so the page would scroll
+  // as well; a native listener can keep the wheel to itself.
+  const wheelView = useRef({ shown, width });
+  wheelView.current = { shown, width };
+  const hasCanvas = trace.signals.length > 0;
+  useEffect(() => {
+    const canvas = canvasRef.current;
+    if (!canvas) return;
+    const onWheel = (e: WheelEvent) => {
+      e.preventDefault();
+      const { shown: v, width: w } = wheelView.current;
+      const x = e.clientX - canvas.getBoundingClientRect().left - LABEL_W;
+      const frac = Math.min(1, Math.max(0, x / (w - LABEL_W)));
+      if (e.shiftKey) setView(pan(v, (e.deltaY / 400) * v.span));
+      else setView(zoom(v, e.deltaY > 0 ? 1.25 : 0.8, frac));
+    };
+    canvas.addEventListener('wheel', onWheel, { passive: false });
+    return () => canvas.removeEventListener('wheel', onWheel);
+  }, [hasCanvas]);
   const exportVcd = () => {
     try {
       download(new Blob([traceToVcd(trace, timeUnitNs)], { type: 'text/plain' }), `${fileStem(title)}.vcd`);
@@ -107,7 +121,6 @@ export function TimingStrip(props: TimingStripProps) {
             ref={canvasRef}
             data-testid="timing-canvas"
             style={{ width, height, display: 'block', cursor: 'crosshair' }}
-            onWheel={onWheel}
             onPointerMove={(e) => setHover(Math.max(0, timeAt(e).t))}
             onPointerLeave={() => setHover(null)}
             onClick={(e) => setPinned(Math.max(0, timeAt(e).t))}
