@@ -62,49 +62,61 @@ export class BitParallelEvaluator {
     const o = out * W;
     const ins = p.inputs.map((n) => n * W);
     const n = ins.length;
-    for (let j = 0; j < W; j++) {
-      let t: number;
-      let f: number;
-      switch (p.kind) {
-        case 'buffer': t = T[ins[0] + j]; f = F[ins[0] + j]; break;
-        case 'not': t = F[ins[0] + j]; f = T[ins[0] + j]; break;
-        case 'and': case 'nand': {
-          t = 0xffffffff; f = 0;
-          for (let i = 0; i < n; i++) { t &= T[ins[i] + j]; f |= F[ins[i] + j]; }
-          if (p.kind === 'nand') [t, f] = [f, t];
-          break;
-        }
-        case 'or': case 'nor': {
-          t = 0; f = 0xffffffff;
-          for (let i = 0; i < n; i++) { t |= T[ins[i] + j]; f &= F[ins[i] + j]; }
-          if (p.kind === 'nor') [t, f] = [f, t];
-          break;
-        }
-        case 'xor': case 'xnor': {
-          let known = 0xffffffff;
-          let v = 0;
-          for (let i = 0; i < n; i++) { known &= T[ins[i] + j] | F[ins[i] + j]; v ^= T[ins[i] + j]; }
-          if (p.kind === 'xnor') v = ~v;
-          t = known & v; f = known & ~v;
-          break;
-        }
-        case 'mux2': case 'mux4': {
-          // a data input counts when the select does not rule it out; all counted must agree
-          const sels = p.kind === 'mux2' ? 1 : 2;
-          t = 0xffffffff; f = 0xffffffff;
-          for (let d = 0; d < 1 << sels; d++) {
-            let out2 = 0;
-            for (let b = 0; b < sels; b++) out2 |= d & (1 << b) ? F[ins[b] + j] : T[ins[b] + j];
-            t &= out2 | T[ins[sels + d] + j];
-            f &= out2 | F[ins[sels + d] + j];
-          }
-          break;
-        }
-        default:
-          throw new Error(`not combinational: ${p.kind}`);
+    // the kind is decided once per part and chunk; the word loops stay free of branches and allocation
+    switch (p.kind) {
+      case 'buffer': case 'not': {
+        const a = ins[0];
+        const inv = p.kind === 'not';
+        for (let j = 0; j < W; j++) { T[o + j] = inv ? F[a + j] : T[a + j]; F[o + j] = inv ? T[a + j] : F[a + j]; }
+        return;
       }
-      T[o + j] = t >>> 0;
-      F[o + j] = f >>> 0;
+      case 'and': case 'nand': case 'or': case 'nor': {
+        // AND: T = ∧T, F = ∨F; OR is the dual; the inverted kinds swap the planes
+        const isAnd = p.kind === 'and' || p.kind === 'nand';
+        const inv = p.kind === 'nand' || p.kind === 'nor';
+        const A = isAnd ? T : F;
+        const B = isAnd ? F : T;
+        const toA = (isAnd !== inv) ? T : F;
+        const toB = toA === T ? F : T;
+        for (let j = 0; j < W; j++) {
+          let a = 0xffffffff;
+          let b = 0;
+          for (let i = 0; i < n; i++) { a &= A[ins[i] + j]; b |= B[ins[i] + j]; }
+          toA[o + j] = a >>> 0;
+          toB[o + j] = b >>> 0;
+        }
+        return;
+      }
+      case 'xor': case 'xnor': {
+        const inv = p.kind === 'xnor' ? 0xffffffff : 0;
+        for (let j = 0; j < W; j++) {
+          let known = 0xffffffff;
+          let v = inv;
+          for (let i = 0; i < n; i++) { known &= T[ins[i] + j] | F[ins[i] + j]; v ^= T[ins[i] + j]; }
+          T[o + j] = (known & v) >>> 0;
+          F[o + j] = (known & ~v) >>> 0;
+        }
+        return;
+      }
+      case 'mux2': case 'mux4': {
+        // a data input counts when the select does not rule it out; all counted must agree
+        const sels = p.kind === 'mux2' ? 1 : 2;
+        for (let j = 0; j < W; j++) {
+          let t = 0xffffffff;
+          let f = 0xffffffff;
+          for (let d = 0; d < 1 << sels; d++) {
+            let ruledOut = 0;
+            for (let b = 0; b < sels; b++) ruledOut |= d & (1 << b) ? F[ins[b] + j] : T[ins[b] + j];
+            t &= ruledOut | T[ins[sels + d] + j];
+            f &= ruledOut | F[ins[sels + d] + j];
+          }
+          T[o + j] = t >>> 0;
+          F[o + j] = f >>> 0;
+        }
+        return;
+      }
+      default:
+        throw new Error(`not combinational: ${p.kind}`);
     }
   }
 }

@@ -34,7 +34,7 @@ interface Problem {
  * greedy cover pruned. Minimal = fewest terms, then fewest literals.
  */
 export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOptions = {}): CoverSelection {
-  const budget = opts.budget ?? 4000;
+  const budget = opts.budget ?? 600;
   const maxCovers = opts.maxCovers ?? 32;
   const lits = primes.map(literals);
   const clauses = careRows.map((m) => {
@@ -53,7 +53,7 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
     const covers = expanded.slice(0, maxCovers).map((extra) => sorted([...base, ...extra]));
     return { covers, exact: true, truncated: expanded.length > maxCovers };
   }
-  const found = searchCovers(prob.clauses, lits, upper, { work: opts.work ?? 3e7, maxCovers });
+  const found = searchCovers(prob.clauses, lits, upper, { work: opts.work ?? 6e6, maxCovers });
   const extras = found.covers.length ? found.covers : [greedy];
   const covers = extras.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {

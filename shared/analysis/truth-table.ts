@@ -26,7 +26,7 @@ export interface TruthTable {
 export interface TableProgress { done: number; total: number }
 
 export interface EnumerateOptions {
-  /** rows per chunk between progress reports (rounded to whole words; default 65,536) */
+  /** rows per chunk between progress reports (rounded to whole words; default 8,192) */
   chunkRows?: number;
   /** force the event simulator for every output (the reference path, used by tests and the benchmark) */
   eventOnly?: boolean;
@@ -45,7 +45,7 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
   const sequential = spec.outputs.map((o) => lev.stateful[o.inputs[0]] === 1);
   const useEvent = spec.outputs.map((_, i) => opts.eventOnly === true || sequential[i]);
   const values = spec.outputs.map(() => new Uint8Array(rowCount));
-  const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 65536) / 32) * 32);
+  const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 8192) / 32) * 32);
   const total = rowCount * (useEvent.some((u) => !u) ? 1 : 0) + rowCount * (useEvent.some((u) => u) ? 1 : 0);
   let done = 0;
   if (useEvent.some((u) => !u)) {
