@@ -1,9 +1,8 @@
 import type { Server, IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
-import { setMeta } from '../../shared/board/edits';
 import type { FamilyId } from '../../shared/board/schema';
-import { ServerOrigin, ensureBoardMeta, loadBoardDoc, registerLiveBoards, withBoardLock } from '../services/board-docs';
+import { ServerOrigin, ensureBoardMeta, loadBoardDoc, registerLiveBoards, withBoardLock, writeBoardMeta } from '../services/board-docs';
 import { authorizeUpgrade, boardIdOfPath } from './auth';
 import { Room } from './room';
 import { CLOSE, CollabError, DEFAULT_COLLAB_OPTIONS, type CollabContext, type CollabOptions, type Peer } from './types';
@@ -135,8 +134,7 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
     room.closeAll(CLOSE.boardDeleted, 'board deleted');
   };
   const onUpdated = ({ boardId, title, family }: { boardId: number; title: string; family: string }) => {
-    const room = rooms.get(boardId);
-    if (room) setMeta(room.doc, { title, family: family as FamilyId }, new ServerOrigin(null, 'board-updated'));
+    void writeBoardMeta(ctx, boardId, { title, family: family as FamilyId }).catch((err) => console.error(`collab: board ${boardId}: storing the new title failed:`, err));
   };
   ctx.events.on('membership-changed', onMembership);
   ctx.events.on('board-deleted', onDeleted);

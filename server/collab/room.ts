@@ -6,7 +6,8 @@ import * as decoding from 'lib0/decoding';
 import { WebSocket } from 'ws';
 import { nowIso } from '../db/knex';
 import type { NewBoardUpdate } from '../db/board-updates';
-import { ServerOrigin, appendBoardChanges, compactBoardRows } from '../services/board-docs';
+import { ServerOrigin, appendBoardChanges, boardStillExists, compactBoardRows, recordBoardMeta } from '../services/board-docs';
+import { metaMap } from '../../shared/board/ydoc';
 import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
 
 /** Message types of the y-websocket protocol. */
@@ -45,7 +46,16 @@ export class Room {
     this.awareness.setLocalState(null);
     doc.on('update', this.onDocUpdate);
     this.awareness.on('update', this.onAwarenessUpdate);
+    metaMap(doc).observe(this.onMetaChange);
   }
+
+  /** A collaborator renamed the board (or changed its family) on the canvas: the board row follows. */
+  private onMetaChange = (_event: Y.YMapEvent<unknown>, tr: Y.Transaction): void => {
+    if (tr.origin instanceof ServerOrigin || !this.conns.has(tr.origin as WebSocket)) return;
+    const meta = metaMap(this.doc);
+    const done = recordBoardMeta(this.ctx, this.boardId, { title: meta.get('title'), family: meta.get('family') });
+    this.writing = this.writing.then(() => done).catch((err) => console.error(`collab: board ${this.boardId}: updating the board row failed:`, err));
+  };
 
   private onDocUpdate = (update: Uint8Array, origin: unknown): void => {
     const userId = origin instanceof ServerOrigin ? origin.userId : (this.conns.get(origin as WebSocket)?.peer.userId ?? null);
@@ -75,18 +85,25 @@ export class Room {
 
   /** Writes every queued update, in order; compacts when the board has too many rows. */
   flush(): Promise<void> {
-    this.writing = this.writing.then(async () => {
+    this.writing = this.writing.catch(() => undefined).then(async () => {
       const batch = this.pending.splice(0);
       if (!batch.length || this.discarded) return;
       try {
         await appendBoardChanges(this.ctx, this.boardId, batch);
         this.rows += batch.length;
-        if (this.rows > this.options().compactThreshold) {
-          await compactBoardRows(this.ctx, this.boardId, this.doc, batch[batch.length - 1].seq);
-          this.rows = 1;
-        }
       } catch (err) {
-        if (!this.discarded) console.error(`collab: board ${this.boardId}: storing ${batch.length} update(s) failed:`, err);
+        if (this.discarded || !(await boardStillExists(this.ctx, this.boardId).catch(() => true))) return this.discard();
+        // Nothing of the batch was written (one transaction): keep it for the next flush.
+        this.pending.unshift(...batch);
+        console.error(`collab: board ${this.boardId}: storing ${batch.length} update(s) failed; will retry:`, err);
+        return;
+      }
+      if (this.rows <= this.options().compactThreshold) return;
+      try {
+        await compactBoardRows(this.ctx, this.boardId, this.doc, batch[batch.length - 1].seq);
+        this.rows = 1;
+      } catch (err) {
+        console.error(`collab: board ${this.boardId}: compaction failed (the rows are kept):`, err);
       }
     });
     return this.writing;
@@ -188,6 +205,7 @@ export class Room {
 
   destroy(): void {
     this.doc.off('update', this.onDocUpdate);
+    metaMap(this.doc).unobserve(this.onMetaChange);
     this.awareness.destroy();
     this.doc.destroy();
   }

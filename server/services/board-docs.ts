@@ -1,14 +1,14 @@
 import { readFileSync } from 'node:fs';
 import * as Y from 'yjs';
 import { parseBoardFile } from '../../shared/board/validate';
-import type { BoardFile, FamilyId } from '../../shared/board/schema';
+import { FamilySchema, type BoardFile, type FamilyId } from '../../shared/board/schema';
 import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board/ydoc';
 import { replaceWithBoard, setMeta } from '../../shared/board/edits';
-import { getBoardTitle } from '../db/boards';
+import { getBoardTitle, touchBoard, updateBoard } from '../db/boards';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import {
-  appendBoardUpdates, countBoardUpdates, loadBoardUpdates, maxBoardUpdateSeq, replaceBoardUpdates,
+  appendBoardUpdates, boardRowExists, countBoardUpdates, loadBoardUpdates, maxBoardUpdateSeq, replaceBoardUpdates,
   type NewBoardUpdate,
 } from '../db/board-updates';
 
@@ -79,9 +79,47 @@ export async function loadBoardDoc(ctx: BoardDocsContext, boardId: number): Prom
   return { doc, seq: rows.length ? rows[rows.length - 1].seq : 0, rows: rows.length };
 }
 
+/** Whether the board row still exists (a deleted board's queued updates are dropped, not written). */
+export async function boardStillExists(ctx: BoardDocsContext, boardId: number): Promise<boolean> {
+  return boardRowExists(ctx.db, boardId);
+}
+
 /** Appends updates to a board's stored history. */
 export async function appendBoardChanges(ctx: BoardDocsContext, boardId: number, updates: NewBoardUpdate[]): Promise<void> {
+  if (!updates.length) return;
   await appendBoardUpdates(ctx.db, boardId, updates);
+  await touchBoard(ctx.db, boardId, updates[updates.length - 1].createdAt); // board lists sort it first
+}
+
+/**
+ * A collaborator changed the title or family in the document: copy it to the board row, so lists and
+ * the REST API agree with the canvas. Values the row does not allow are ignored.
+ */
+export async function recordBoardMeta(ctx: BoardDocsContext, boardId: number, meta: { title?: unknown; family?: unknown }): Promise<void> {
+  const patch: { title?: string; family?: string; now: string } = { now: nowIso() };
+  if (typeof meta.title === 'string' && meta.title.trim() && meta.title.length <= 200) patch.title = meta.title.trim();
+  if (FamilySchema.safeParse(meta.family).success) patch.family = meta.family as string;
+  if (patch.title !== undefined || patch.family !== undefined) await updateBoard(ctx.db, boardId, patch);
+}
+
+/** The board row's title or family changed through the API: put it into the document (live or stored). */
+export async function writeBoardMeta(ctx: BoardDocsContext, boardId: number, meta: { title: string; family: FamilyId }): Promise<void> {
+  await withBoardLock(ctx, boardId, async () => {
+    const origin = new ServerOrigin(null, 'board-row');
+    const live = liveByCtx.get(ctx)?.(boardId);
+    if (live) {
+      setMeta(live.doc, meta, origin);
+      return live.flush();
+    }
+    const { doc } = await loadBoardDoc(ctx, boardId);
+    const updates: Uint8Array[] = [];
+    doc.on('update', (u: Uint8Array) => updates.push(u));
+    setMeta(doc, meta, origin);
+    doc.destroy();
+    let seq = await maxBoardUpdateSeq(ctx.db, boardId);
+    const now = nowIso();
+    await appendBoardChanges(ctx, boardId, updates.map((data) => ({ seq: ++seq, data, userId: null, createdAt: now })));
+  });
 }
 
 /**
