@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
 import { LoadingState } from '../../components/ui/spinner';
+import { isApiError } from '../../lib/api-client';
 import { meQueryOptions } from '../../features/auth/api';
 import { boardQueryOptions } from '../../features/boards/api';
 import { BoardTitleEditor } from '../../features/boards/components/board-title-editor';
@@ -30,8 +31,11 @@ export function BoardPage() {
   const me = useQuery(meQueryOptions);
 
   if (boardId === null) return <BadId />;
+  // A failed refresh keeps the open board (a dropped Wi-Fi must not unmount the live canvas);
+  // only "no longer a member" or "deleted" closes it.
+  const gone = isApiError(board.error) && (board.error.status === 403 || board.error.status === 404);
   if (board.isPending) return <LoadingState label="Opening the board…" />;
-  if (board.isError)
+  if (!board.data || gone)
     return (
       <PageColumn width="narrow">
         <ErrorState error={board.error} onRetry={() => board.refetch()} />

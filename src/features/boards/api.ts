@@ -11,8 +11,16 @@ export const boardKeys = {
 export const boardsQueryOptions = () =>
   queryOptions({ queryKey: boardKeys.list(), queryFn: async () => (await api.get<BoardsResponse>('/api/boards')).boards });
 
+/**
+ * One board. Collaborators may rename it or change its family on the live canvas (the server copies
+ * that into the board row), so an open board page asks again every few seconds to keep its header true.
+ */
 export const boardQueryOptions = (id: number) =>
-  queryOptions({ queryKey: boardKeys.detail(id), queryFn: async () => (await api.get<BoardResponse>(`/api/boards/${id}`)).board });
+  queryOptions({
+    queryKey: boardKeys.detail(id),
+    queryFn: async () => (await api.get<BoardResponse>(`/api/boards/${id}`)).board,
+    refetchInterval: 10_000,
+  });
 
 export function useCreateBoard() {
   const qc = useQueryClient();
