@@ -173,6 +173,28 @@ describe('BenchEngine', () => {
     expect(h.last().report.races).toEqual(['l']);
   });
 
+  it('keeps recording across a recompile, after the old time, and restarts only on a new subscription', () => {
+    const h = harness();
+    h.engine.handle({ type: 'load', board: halfAdder(), tryOut: [] });
+    h.engine.handle({ type: 'subscribe', signals: ['A', 'S'] });
+    h.engine.handle({ type: 'load', board: halfAdder({ a: true }), tryOut: [] });
+    const before = h.last().time;
+    expect(before).toBeGreaterThan(0);
+    const grown = halfAdder({ a: true });
+    grown.parts.push({ id: 'extra', kind: 'lamp', label: 'E', x: 0, y: 0 });
+    grown.wires.push({ id: 'w7', from: 'a.out', to: 'extra.in' });
+    h.engine.handle({ type: 'load', board: grown, tryOut: [] });
+    expect(h.compiled()).toHaveLength(2);
+    const after = h.last();
+    expect(after.traceReset).toBeUndefined();
+    expect(after.time).toBeGreaterThan(before);
+    const times = after.trace.filter((_, k) => k % 3 === 1);
+    expect(times.length).toBe(2);
+    times.forEach((t) => expect(t).toBeGreaterThan(before));
+    h.engine.handle({ type: 'subscribe', signals: ['S', 'C'] });
+    expect(h.last().traceReset).toEqual({ signals: ['S', 'C'], at: h.last().time });
+  });
+
   it('answers a bad message with a clear error and keeps working', () => {
     const h = harness();
     h.engine.handle({ type: 'load', board: halfAdder(), tryOut: [] });

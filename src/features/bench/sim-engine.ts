@@ -49,6 +49,13 @@ export class BenchEngine {
   private trace: number[] = [];
   private edges: number[] = [];
   private traceReset: { signals: string[]; at: number } | undefined;
+  /** names the page's trace rows stand for, in row order */
+  private recorded: string[] = [];
+  /**
+   * Simulated time before the current Simulator: each recompile starts a new Simulator at 0, and the
+   * timing strip carries on after the old one's last time instead of starting over.
+   */
+  private base = 0;
   private unsubscribe: (() => void) | undefined;
   readonly clock: ClockDriver;
 
@@ -97,7 +104,7 @@ export class BenchEngine {
         break;
       case 'subscribe':
         this.signals = msg.signals;
-        this.resubscribe();
+        this.resubscribe(true);
         break;
       default: {
         const never: never = msg;
@@ -121,6 +128,7 @@ export class BenchEngine {
 
   private compile(board: BoardFile): void {
     this.unsubscribe?.();
+    if (this.sim) this.base += this.sim.time + this.half;
     this.sim = null;
     const netlist = compileBoard(board, { family: board.family });
     const sim = new Simulator(netlist, { family: board.family });
@@ -146,7 +154,7 @@ export class BenchEngine {
     this.apply(false);
     if (!this.applied.size) this.report = sim.settle();
     this.unsubscribe = sim.onChange((time, net, level) => this.record(time, net, level));
-    this.resubscribe();
+    this.resubscribe(false);
   }
 
   /** Sets every input whose value differs from what the simulator has, then settles. */
@@ -185,7 +193,7 @@ export class BenchEngine {
       if (target > sim.time) this.idle(target - sim.time);
       this.lastEdgeAt = sim.time;
       this.clock.toggle();
-      if (this.clock.phase) this.edges.push(sim.time);
+      if (this.clock.phase) this.edges.push(this.base + sim.time);
       this.apply(false);
     }
   }
@@ -203,27 +211,36 @@ export class BenchEngine {
     if (span > 0) sim.runFor(span);
   }
 
-  private resubscribe(): void {
+  /**
+   * Points the recording at the subscribed nets of the current netlist. A new subscription (`fresh`) or a
+   * recompile that lost one of the signals restarts the recording; otherwise it carries on, with each
+   * signal's level after the recompile as its next change.
+   */
+  private resubscribe(fresh: boolean): void {
     const sim = this.sim;
     const netlist = this.netlist;
     this.netSignals.clear();
-    this.trace = [];
-    this.edges = [];
     if (!sim || !netlist) return;
     const byName = new Map(netlist.nets.map((n) => [n.name, n.id]));
     const names = this.signals.filter((s) => byName.has(s));
+    const now = this.base + sim.time;
+    if (fresh || names.join('\n') !== this.recorded.join('\n')) {
+      this.trace = [];
+      this.edges = [];
+      this.traceReset = { signals: names, at: now };
+      this.recorded = names;
+    }
     names.forEach((name, i) => {
       const net = byName.get(name)!;
       this.netSignals.set(net, [...(this.netSignals.get(net) ?? []), i]);
-      this.trace.push(i, sim.time, levelCode(sim.level(net)));
+      this.trace.push(i, now, levelCode(sim.level(net)));
     });
-    this.traceReset = { signals: names, at: sim.time };
   }
 
   private record(time: number, net: number, level: Level): void {
     const idx = this.netSignals.get(net);
     if (!idx || this.trace.length >= TRACE_BUDGET) return;
-    for (const i of idx) this.trace.push(i, time, levelCode(level));
+    for (const i of idx) this.trace.push(i, this.base + time, levelCode(level));
   }
 
   /** Posts the current state (levels, report, badges, values, new trace) to the page. */
@@ -245,7 +262,7 @@ export class BenchEngine {
         levels,
         report: { settled, oscillating: osc, conflicts, undrivenInputs, races },
         values,
-        time: sim.time,
+        time: this.base + sim.time,
         events: sim.stats.events,
         lastEvents: this.report.events,
         clock: { running: this.clock.running, rate: this.clock.rate, cycles: this.clock.cycles },
