@@ -6,7 +6,8 @@ import type { Netlist, SettleReport } from '../../../shared/sim/types';
 import { partBadges } from './badges';
 import { documentValue, structureKey } from './board-diff';
 import { ClockDriver, type Timers } from './clock-driver';
-import { encodeLevels, levelCode, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+import { encodeLevels, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+import { TraceRecorder } from './trace-recorder';
 
 /**
  * Half a clock period in time units, as the Simulator computes it for a clock part: the first clock's
@@ -21,9 +22,6 @@ export function halfPeriod(netlist: Netlist): number {
 
 /** Wall time one clock tick may spend simulating. */
 const RUN_BUDGET_MS = 40;
-
-/** Recorded numbers kept between two state messages (3 per change); beyond this a burst is cut short. */
-const TRACE_BUDGET = 3 * 60_000;
 
 const EMPTY_REPORT: SettleReport = { settled: true, time: 0, events: 0, oscillating: [], conflicts: [], undrivenInputs: [], races: [] };
 
@@ -44,18 +42,7 @@ export class BenchEngine {
   private report: SettleReport = EMPTY_REPORT;
   private half = 10;
   private lastEdgeAt = 0;
-  private signals: string[] = [];
-  private netSignals = new Map<number, number[]>();
-  private trace: number[] = [];
-  private edges: number[] = [];
-  private traceReset: { signals: string[]; at: number } | undefined;
-  /** names the page's trace rows stand for, in row order */
-  private recorded: string[] = [];
-  /**
-   * Simulated time before the current Simulator: each recompile starts a new Simulator at 0, and the
-   * timing strip carries on after the old one's last time instead of starting over.
-   */
-  private base = 0;
+  private readonly recorder = new TraceRecorder();
   private unsubscribe: (() => void) | undefined;
   readonly clock: ClockDriver;
 
@@ -103,8 +90,8 @@ export class BenchEngine {
         }
         break;
       case 'subscribe':
-        this.signals = msg.signals;
-        this.resubscribe(true);
+        this.recorder.subscribe(msg.signals);
+        if (this.sim && this.netlist) this.recorder.attach(this.netlist, this.sim.time, (net) => this.sim!.level(net));
         break;
       default: {
         const never: never = msg;
@@ -128,7 +115,7 @@ export class BenchEngine {
 
   private compile(board: BoardFile): void {
     this.unsubscribe?.();
-    if (this.sim) this.base += this.sim.time + this.half;
+    if (this.sim) this.recorder.base += this.sim.time + this.half;
     this.sim = null;
     const netlist = compileBoard(board, { family: board.family });
     const sim = new Simulator(netlist, { family: board.family });
@@ -153,8 +140,8 @@ export class BenchEngine {
     });
     this.apply(false);
     if (!this.applied.size) this.report = sim.settle();
-    this.unsubscribe = sim.onChange((time, net, level) => this.record(time, net, level));
-    this.resubscribe(false);
+    this.unsubscribe = sim.onChange((time, net, level) => this.recorder.record(time, net, level));
+    this.recorder.attach(netlist, sim.time, (net) => sim.level(net));
   }
 
   /** Sets every input whose value differs from what the simulator has, then settles. */
@@ -193,7 +180,7 @@ export class BenchEngine {
       if (target > sim.time) this.idle(target - sim.time);
       this.lastEdgeAt = sim.time;
       this.clock.toggle();
-      if (this.clock.phase) this.edges.push(this.base + sim.time);
+      if (this.clock.phase) this.recorder.edge(sim.time);
       this.apply(false);
     }
   }
@@ -209,38 +196,6 @@ export class BenchEngine {
     for (const c of clocks) sim.setInput(c.id, this.applied.get(c.id) ?? false);
     const span = clocks.length ? Math.min(dt, this.half - 1) : dt;
     if (span > 0) sim.runFor(span);
-  }
-
-  /**
-   * Points the recording at the subscribed nets of the current netlist. A new subscription (`fresh`) or a
-   * recompile that lost one of the signals restarts the recording; otherwise it carries on, with each
-   * signal's level after the recompile as its next change.
-   */
-  private resubscribe(fresh: boolean): void {
-    const sim = this.sim;
-    const netlist = this.netlist;
-    this.netSignals.clear();
-    if (!sim || !netlist) return;
-    const byName = new Map(netlist.nets.map((n) => [n.name, n.id]));
-    const names = this.signals.filter((s) => byName.has(s));
-    const now = this.base + sim.time;
-    if (fresh || names.join('\n') !== this.recorded.join('\n')) {
-      this.trace = [];
-      this.edges = [];
-      this.traceReset = { signals: names, at: now };
-      this.recorded = names;
-    }
-    names.forEach((name, i) => {
-      const net = byName.get(name)!;
-      this.netSignals.set(net, [...(this.netSignals.get(net) ?? []), i]);
-      this.trace.push(i, now, levelCode(sim.level(net)));
-    });
-  }
-
-  private record(time: number, net: number, level: Level): void {
-    const idx = this.netSignals.get(net);
-    if (!idx || this.trace.length >= TRACE_BUDGET) return;
-    for (const i of idx) this.trace.push(i, this.base + time, levelCode(level));
   }
 
   /** Posts the current state (levels, report, badges, values, new trace) to the page. */
@@ -262,21 +217,16 @@ export class BenchEngine {
         levels,
         report: { settled, oscillating: osc, conflicts, undrivenInputs, races },
         values,
-        time: this.base + sim.time,
+        time: this.recorder.base + sim.time,
         events: sim.stats.events,
         lastEvents: this.report.events,
         clock: { running: this.clock.running, rate: this.clock.rate, cycles: this.clock.cycles },
-        trace: this.trace,
-        edges: this.edges,
         badges,
         pulsing,
-        traceReset: this.traceReset,
+        ...this.recorder.take(),
       },
       [levels.buffer],
     );
-    this.trace = [];
-    this.edges = [];
-    this.traceReset = undefined;
   }
 
   dispose(): void {

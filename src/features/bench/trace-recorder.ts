@@ -1,0 +1,80 @@
+import type { Level } from '../../../shared/sim/levels';
+import type { Netlist } from '../../../shared/sim/types';
+import { levelCode } from './protocol';
+
+/** Recorded numbers kept between two state messages (3 per change); beyond this a burst is cut short. */
+const TRACE_BUDGET = 3 * 60_000;
+
+/** What the page gets of the recording with each state message. */
+export interface TraceBatch {
+  trace: number[];
+  edges: number[];
+  traceReset?: { signals: string[]; at: number };
+}
+
+/**
+ * The worker's side of the timing strip: records changes of the subscribed nets as flat
+ * [row, time, level code] triples until the next state message takes them. Times are continuous over
+ * recompiles: each new Simulator starts at 0, so the recorder adds the time the earlier ones ran.
+ */
+export class TraceRecorder {
+  private signals: string[] = [];
+  /** names the page's rows stand for, in row order */
+  private rows: string[] = [];
+  private netRows = new Map<number, number[]>();
+  private trace: number[] = [];
+  private edges: number[] = [];
+  private reset: TraceBatch['traceReset'];
+  /** simulated time of the Simulators before the current one */
+  base = 0;
+
+  /** A new choice of signals: the recording restarts with it at the next `attach`. */
+  subscribe(signals: string[]): void {
+    this.signals = signals;
+    this.rows = [];
+  }
+
+  /**
+   * Points the recording at the nets of `netlist` (after a subscription or a recompile) and records each
+   * signal's level now. Recording restarts when the rows change (a new subscription, or a signal gone
+   * from the board); otherwise it carries on.
+   */
+  attach(netlist: Netlist, time: number, level: (net: number) => Level): void {
+    const byName = new Map(netlist.nets.map((n) => [n.name, n.id]));
+    const names = this.signals.filter((s) => byName.has(s));
+    const now = this.base + time;
+    if (names.length !== this.rows.length || names.some((n, i) => n !== this.rows[i]) || !this.rows.length) {
+      this.trace = [];
+      this.edges = [];
+      this.reset = { signals: names, at: now };
+      this.rows = names;
+    }
+    this.netRows.clear();
+    names.forEach((name, i) => {
+      const net = byName.get(name)!;
+      this.netRows.set(net, [...(this.netRows.get(net) ?? []), i]);
+      this.trace.push(i, now, levelCode(level(net)));
+    });
+  }
+
+  /** A net changed (the Simulator's change listener). */
+  record(time: number, net: number, level: Level): void {
+    const rows = this.netRows.get(net);
+    if (!rows || this.trace.length >= TRACE_BUDGET) return;
+    for (const i of rows) this.trace.push(i, this.base + time, levelCode(level));
+  }
+
+  /** A rising clock edge at simulator time `time`. */
+  edge(time: number): void {
+    this.edges.push(this.base + time);
+  }
+
+  /** Everything recorded since the last call. */
+  take(): TraceBatch {
+    const batch: TraceBatch = { trace: this.trace, edges: this.edges, traceReset: this.reset };
+    this.trace = [];
+    this.edges = [];
+    this.reset = undefined;
+    return batch;
+  }
+}
