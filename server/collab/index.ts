@@ -46,9 +46,20 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
 
   registerLiveBoards(ctx, (boardId) => rooms.get(boardId));
 
+  // A room is claimed (joining++) the moment a socket is promised to it, so that an unload running
+  // between the room lookup and the finished upgrade cannot destroy it under the newcomer.
+  const joining = new Map<Room, number>();
+  const claim = (room: Room): Room => (joining.set(room, (joining.get(room) ?? 0) + 1), room);
+  const release = (room: Room): void => {
+    const n = (joining.get(room) ?? 1) - 1;
+    if (n > 0) joining.set(room, n);
+    else joining.delete(room);
+    if (!n && !room.conns.size && !closing) void maybeUnload(room).catch((err) => console.error('collab: unloading failed:', err));
+  };
+
   const openRoom = (boardId: number): Promise<Room> => {
     const open = rooms.get(boardId);
-    if (open) return Promise.resolve(open);
+    if (open) return Promise.resolve(claim(open));
     let p = opening.get(boardId);
     if (!p) {
       p = withBoardLock(ctx, boardId, async () => {
@@ -60,14 +71,14 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
       }).finally(() => opening.delete(boardId));
       opening.set(boardId, p);
     }
-    return p;
+    return p.then(claim);
   };
 
   // Rooms unload when their last socket leaves, after everything is stored.
   const maybeUnload = (room: Room): Promise<void> =>
     withBoardLock(ctx, room.boardId, async () => {
       await room.flush();
-      if (room.conns.size || rooms.get(room.boardId) !== room) return;
+      if (room.conns.size || joining.has(room) || rooms.get(room.boardId) !== room) return;
       rooms.delete(room.boardId);
       room.destroy();
     });
@@ -105,7 +116,22 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
     authorizeUpgrade(ctx, req, boardId)
       .then(async (peer) => {
         const room = await openRoom(boardId);
-        wss.handleUpgrade(req, socket, head, (ws) => connect(ws, room, peer));
+        let released = false;
+        const releaseOnce = () => {
+          if (released) return;
+          released = true;
+          release(room);
+        };
+        // ws gives up silently on a socket that went away meanwhile: release the claim then too
+        socket.once('close', releaseOnce);
+        try {
+          wss.handleUpgrade(req, socket, head, (ws) => {
+            connect(ws, room, peer);
+            releaseOnce();
+          });
+        } finally {
+          if (socket.destroyed) releaseOnce();
+        }
       })
       .catch((err: unknown) => {
         if (err instanceof CollabError) {

@@ -54,6 +54,24 @@ describe('live board sync', () => {
     await waitFor(() => same(a, c), 'late joiner');
   });
 
+  it('rapid joins and leaves (rooms unloading and reloading) never lose an edit', async () => {
+    const boardId = await createBoard(server, owner);
+    for (let round = 0; round < 8; round++) {
+      const c = connectClient(server, boardId, owner.cookie);
+      await c.synced;
+      addPart(c.doc, { id: `n${round}`, kind: 'note', x: round * 20, y: 0, text: `round ${round}` }, ME);
+      // leave at once, while a second client joins: the room may be unloading as it is looked up
+      const d = connectClient(server, boardId, owner.cookie);
+      c.destroy();
+      await d.synced;
+      await waitFor(() => d.doc.getMap('parts').has(`n${round}`), `round ${round} to arrive`);
+      d.destroy();
+    }
+    const last = open(boardId, owner);
+    await last.synced;
+    await waitFor(() => last.doc.getMap('parts').size === 8, 'all eight edits');
+  });
+
   it('a malformed frame closes only that socket; the room keeps working for the others', async () => {
     const boardId = await createBoard(server, owner);
     await addMember(server, owner, boardId, editor, 'editor');
