@@ -44,6 +44,8 @@ export class Simulator {
   private readonly state: Uint8Array;
   private readonly stateOff: Int32Array;
   private readonly sourceLevel: Uint8Array;
+  /** 1 for parts that evaluate (gates, multiplexers, storage), 0 for inputs, indicators and notes */
+  private readonly evaluates: Uint8Array;
   private readonly dirty: Int32Array;
   private readonly dirtyMark: Uint8Array;
   private dirtyCount = 0;
@@ -98,6 +100,7 @@ export class Simulator {
     this.slotPend = new Uint8Array(nSlots);
     this.slotPendTime = new Float64Array(nSlots);
     this.state = new Uint8Array(nState);
+    this.evaluates = Uint8Array.from(this.parts, (p) => (!isInputKind(p.kind) && p.outputs.length > 0 ? 1 : 0));
     this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
 
     this.netVal = new Uint8Array(nNets);
@@ -257,13 +260,13 @@ export class Simulator {
   }
 
   private evaluate(p: number): void {
+    if (!this.evaluates[p]) return;
     const part = this.parts[p];
     const kind = part.kind;
     const a = this.inStart[p];
     const n = this.inStart[p + 1] - a;
     const slot0 = this.slotStart[p];
     const nOut = this.slotStart[p + 1] - slot0;
-    if (nOut === 0 || isInputKind(kind)) return;
     for (let k = 0; k < n; k++) this.inp[k] = this.read(this.inNet[a + k]);
     const o = this.stateOff[p];
     // D changing in the same instant as the clock edge: the order decides, so report it

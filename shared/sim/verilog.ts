@@ -16,7 +16,8 @@ const PRIMITIVE: Partial<Record<CompiledPart['kind'], string>> = {
 /** Verilog text of the board's netlist. */
 export function toVerilog(board: BoardFile, netlist: Netlist): string {
   const names = new VerilogNames();
-  const moduleName = names.take(board.title.trim() ? board.title : 'gatefold_board', 'm_');
+  // module names live in their own name space: the title never renames a port
+  const moduleName = new VerilogNames().take(board.title.trim() ? board.title : 'gatefold_board', 'm_');
   const ports = new Map<CompiledPart, string>();
   for (const p of [...netlist.inputs, ...netlist.outputs]) {
     if (p.kind === 'const') continue;
@@ -44,7 +45,9 @@ export function toVerilog(board: BoardFile, netlist: Netlist): string {
   const body: string[] = [];
   const floating = familyOf(netlist.family).floating;
   for (const net of netlist.undriven) {
-    if (floating === '0' || floating === '1') body.push(`  assign ${wire[net]} = 1'b${floating}; // open input: reads ${floating} in family ${netlist.family}`);
+    // only where a part reads the net: a lamp alone on an open net shows Z in the simulator too
+    const read = netlist.nets[net].readers.some((r) => { const k = netlist.partById(r.part)?.kind; return k !== 'lamp' && k !== 'probe'; });
+    if (read && (floating === '0' || floating === '1')) body.push(`  assign ${wire[net]} = 1'b${floating}; // open input: reads ${floating} in family ${netlist.family}`);
   }
   for (const p of netlist.parts) body.push(...partLines(p, wire, ports, names, unused));
   return [...lines, ...body, 'endmodule', ''].join('\n');
