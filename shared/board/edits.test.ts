@@ -69,6 +69,14 @@ describe('addPart', () => {
     expect(addPart(doc, { id: 'a', kind: 'lamp', x: 0, y: 0 }, ME)).not.toBe('a');
     expect(addPart(doc, { id: '', kind: 'lamp', x: 0, y: 0 }, ME)).toMatch(/^lamp\d+_/);
   });
+  it('gives a used input or output label a suffix, and refuses a label that is not an identifier', () => {
+    const doc = fresh();
+    const id = addPart(doc, { id: '', kind: 'switch', label: 'A', x: 0, y: 0, on: false }, ME);
+    expect(docToBoard(doc).parts.find((p) => p.id === id)!.label).toBe('A_2');
+    const gate = addPart(doc, { id: '', kind: 'and', label: 'A', inputs: 2, x: 0, y: 0 }, ME);
+    expect(docToBoard(doc).parts.find((p) => p.id === gate)!.label).toBe('A'); // gates are not signal names
+    expect(() => addPart(doc, { id: '', kind: 'lamp', label: '2 bad', x: 0, y: 0 }, ME)).toThrow(/letter or _/);
+  });
   it('throws on a part the schema refuses', () => {
     expect(() => addPart(fresh(), { id: 'x', kind: 'and', inputs: 9, x: 0, y: 0 }, ME)).toThrow(EditError);
   });
@@ -91,6 +99,15 @@ describe('move, rotate, relabel, setPartField, setMeta', () => {
     rotateParts(doc, ['g1'], ME);
     rotateParts(doc, ['g1'], ME);
     expect(docToBoard(doc).parts[2].rotation).toBe(0);
+  });
+  it('refuses a duplicate or non-identifier label on an input or output, but not on a gate', () => {
+    const doc = fresh();
+    expect(() => relabelPart(doc, 'b', 'A', ME)).toThrow(/already used/);
+    expect(() => relabelPart(doc, 's', 'my lamp', ME)).toThrow(EditError);
+    relabelPart(doc, 'a', 'A', ME); // its own label again is fine
+    relabelPart(doc, 'g1', 'sum gate', ME);
+    expect(docToBoard(doc).parts[2].label).toBe('sum gate');
+    expect(() => relabelPart(doc, 'nope', 'X', ME)).toThrow(/no part/);
   });
   it('relabels and removes a label', () => {
     const doc = fresh();

@@ -5,8 +5,9 @@
  */
 import * as Y from 'yjs';
 import { newPartId, newWireId } from './ids';
-import { pinsOf } from './kinds';
-import { PartSchema, type BoardFile, type FamilyId, type Fragment, type Part } from './schema';
+import { dedupeLabel } from './edits-bulk';
+import { isInputKind, isOutputKind, pinsOf } from './kinds';
+import { LABEL_RE, PartSchema, type BoardFile, type FamilyId, type Fragment, type Part } from './schema';
 import { splitPinRef } from './validate';
 import {
   PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap,
@@ -15,7 +16,7 @@ import {
 
 /** Thrown by edits given values the board file does not allow. */
 export class EditError extends Error {
-  constructor(public code: 'invalid_part' | 'invalid_field' | 'missing_part', message: string) {
+  constructor(public code: 'invalid_part' | 'invalid_field' | 'missing_part' | 'invalid_label', message: string) {
     super(message);
     this.name = 'EditError';
   }
@@ -30,11 +31,39 @@ function checkedPart(raw: unknown): Part {
   return parsed.data;
 }
 
-/** Adds a part (validated against PartSchema); a fresh id is chosen if `part.id` is empty or taken. */
+/** Inputs and outputs are named by their labels (truth tables, Verilog ports), so those must be identifiers. */
+function isNamedKind(kind: string): boolean {
+  return isInputKind(kind) || isOutputKind(kind);
+}
+
+/** Labels of the board's inputs and outputs, except the part `exceptId`. */
+function namedLabels(doc: Y.Doc, exceptId?: string): Set<string> {
+  const used = new Set<string>();
+  for (const [id, p] of partsMap(doc).entries()) {
+    const label = p.get('label');
+    if (id !== exceptId && typeof label === 'string' && isNamedKind(String(p.get('kind')))) used.add(label);
+  }
+  return used;
+}
+
+/** Why `label` cannot name an input or output part `id`, or null when it can. */
+export function labelProblem(doc: Y.Doc, id: string, kind: string, label: string): string | null {
+  if (!isNamedKind(kind)) return null;
+  if (!LABEL_RE.test(label)) return `label "${label}" must be a letter or _ followed by letters, digits or _`;
+  if (namedLabels(doc, id).has(label)) return `label "${label}" is already used on this board`;
+  return null;
+}
+
+/**
+ * Adds a part (validated against PartSchema); a fresh id is chosen if `part.id` is empty or taken, and an
+ * input or output label already in use gets a `_2`, `_3`… suffix (labels name the board's signals).
+ */
 export function addPart(doc: Y.Doc, part: Part, origin: unknown): string {
   const parts = partsMap(doc);
   const id = part.id && !parts.has(part.id) ? part.id : newPartId(doc, part.kind);
-  const checked = checkedPart({ ...part, id });
+  const label = part.label && isNamedKind(part.kind) ? dedupeLabel(part.label, namedLabels(doc)) : part.label;
+  if (label && isNamedKind(part.kind) && !LABEL_RE.test(label)) throw new EditError('invalid_label', `${id}: label "${label}" must be a letter or _ followed by letters, digits or _`);
+  const checked = checkedPart(label === undefined ? { ...part, id } : { ...part, id, label });
   doc.transact(() => parts.set(id, partToYMap(checked, nextOrder(parts))), origin);
   return id;
 }
@@ -65,8 +94,15 @@ export function rotateParts(doc: Y.Doc, ids: string[], origin: unknown): void {
   }, origin);
 }
 
-/** Sets a part's label ('' removes it). */
+/**
+ * Sets a part's label ('' removes it). Throws EditError `invalid_label` when an input or output would get
+ * a label that is not an identifier or is already used by another input or output.
+ */
 export function relabelPart(doc: Y.Doc, id: string, label: string, origin: unknown): void {
+  const p = partsMap(doc).get(id);
+  if (!p) throw new EditError('missing_part', `no part "${id}"`);
+  const problem = label === '' ? null : labelProblem(doc, id, String(p.get('kind')), label);
+  if (problem) throw new EditError('invalid_label', `${id}: ${problem}`);
   setPartField(doc, id, 'label', label === '' ? undefined : label, origin);
 }
 
