@@ -18,6 +18,7 @@ import { useIdParam } from '../../lib/use-id-param';
 import { BoardWorkspace, useBoardSession } from '../../features/canvas';
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
+import { AnalysisPanel, useAnalysis } from '../../features/analysis';
 import type { ApiBoard } from '../../../shared/api/types';
 import { PageTitle } from '../../components/ui/page-title';
 
@@ -77,11 +78,12 @@ export function BoardPage() {
 function LiveBoard({ board, me }: { board: ApiBoard; me: { id: number; name: string } | null }) {
   const session = useBoardSession(String(board.id), board.role, me ? { user: me } : {});
   const sim = useLiveSim(session, { tryOut: session.readOnly });
+  const analysis = useAnalysis(session.board);
   return (
     <>
       <PulseStyle wireIds={sim.pulsingWires} />
-      <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values}
-        panels={<><BenchPanel sim={sim} session={session} /><div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
+      <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values} highlight={analysis.highlight}
+        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
         bottom={<TimingStrip {...sim.timing} />} />
     </>
   );

@@ -1,0 +1,36 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { parseBoardFile } from '../../../shared/board';
+import { runAnalysis } from './run-analysis';
+import { logicKey } from './use-analysis';
+
+const raw = JSON.parse(readFileSync(new URL('../../../tests/analysis/fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
+const parsed = parseBoardFile(raw);
+if (!parsed.ok) throw new Error('fixture');
+const board = parsed.board;
+
+describe('runAnalysis (the worker job)', () => {
+  // Half adder of CONTRACTS §2: S = XOR, C = AND.
+  it('computes table, forms, names, cones and the function map', async () => {
+    const r = await runAnalysis({ board, select: ['A'], dontCares: {} });
+    expect(r.inputs).toEqual(['A', 'B']);
+    expect(Array.from(r.values[0])).toEqual([0, 1, 1, 0]);
+    expect(r.forms.S).toMatchObject({ sop: 'A & ~B | ~A & B', function: 'XOR' });
+    expect(r.terms.C.sop).toEqual([[{ name: 'A', negated: false }, { name: 'B', negated: false }]]);
+    expect(r.cones.S.sort()).toEqual(['a', 'b', 'g1', 's']);
+    expect(r.functionMap.map((e) => e.functions.C.sop)).toEqual(['0', 'B']);
+  });
+
+  it('applies don\'t-cares and drops choices of parts that are gone', async () => {
+    const r = await runAnalysis({ board, inputs: ['A', 'B', 'Gone'], select: ['Gone'], dontCares: { S: [3] } });
+    expect(r.forms.S.sop).toBe('A | B');
+    expect(r.functionMap).toEqual([]);
+  });
+
+  it('ignores moves in the logic key', () => {
+    const moved = { ...board, parts: board.parts.map((p) => ({ ...p, x: p.x + 10 })) };
+    expect(logicKey(moved)).toBe(logicKey(board));
+    const rewired = { ...board, wires: board.wires.slice(1) };
+    expect(logicKey(rewired)).not.toBe(logicKey(board));
+  });
+});

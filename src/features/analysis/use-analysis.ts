@@ -1,0 +1,100 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type { BoardFile } from '../../../shared/board';
+import type { AnalysisResult, FromWorker, ToWorker } from './protocol';
+
+/** The user's choices; `undefined` inputs/outputs mean the defaults (switches and buttons; lamps and probes). */
+export interface AnalysisChoices {
+  inputs?: string[];
+  outputs?: string[];
+  select: string[];
+  dontCares: Record<string, number[]>;
+}
+
+export type AnalysisStatus = 'waiting' | 'running' | 'done' | 'error' | 'cancelled';
+
+/** Wait after the last edit before recomputing, so a drag or a burst of typing runs one analysis. */
+export const ANALYSIS_DEBOUNCE_MS = 100;
+
+/** The part of a board that decides its logic: positions, rotations and notes do not. */
+export function logicKey(board: BoardFile): string {
+  const parts = board.parts.filter((p) => p.kind !== 'note').map((p) => {
+    const { x: _x, y: _y, rotation: _r, ...rest } = p;
+    return rest;
+  });
+  return JSON.stringify([board.family, parts, board.wires.map((w) => [w.from, w.to])]);
+}
+
+/**
+ * Live analysis of a board in a Web Worker: recomputes (debounced) when the board's logic or the
+ * choices change; reports progress; can be cancelled. `highlight` is the fan-in cone of the focused output.
+ */
+export function useAnalysis(board: BoardFile) {
+  const worker = useRef<Worker | null>(null);
+  const latest = useRef(0);
+  const [choices, setChoices] = useState<AnalysisChoices>({ select: [], dontCares: {} });
+  const [status, setStatus] = useState<AnalysisStatus>('waiting');
+  const [progress, setProgress] = useState<{ done: number; total: number } | null>(null);
+  const [result, setResult] = useState<AnalysisResult | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [focus, setFocus] = useState<string | null>(null);
+  const [runCount, setRunCount] = useState(0);
+  const key = useMemo(() => logicKey(board), [board]);
+  const boardRef = useRef(board);
+  boardRef.current = board;
+
+  useEffect(() => {
+    const w = new Worker(new URL('./analysis-worker.ts', import.meta.url), { type: 'module' });
+    worker.current = w;
+    w.onmessage = (e: MessageEvent<FromWorker>) => {
+      const msg = e.data;
+      if (msg.id !== latest.current) return; // an older run's late message
+      switch (msg.type) {
+        case 'progress': setProgress({ done: msg.done, total: msg.total }); break;
+        case 'result': setResult(msg.result); setStatus('done'); setError(null); setProgress(null); break;
+        case 'error': setStatus(msg.cancelled ? 'cancelled' : 'error'); setError(msg.cancelled ? null : msg.message); setProgress(null); break;
+        default: {
+          const never: never = msg;
+          throw new Error(`unknown worker message ${JSON.stringify(never)}`);
+        }
+      }
+    };
+    w.onerror = (e) => { setStatus('error'); setError(e.message || 'the analysis worker failed'); };
+    return () => { w.terminate(); worker.current = null; };
+  }, []);
+
+  useEffect(() => {
+    const t = setTimeout(() => {
+      const id = ++latest.current;
+      setStatus('running');
+      setProgress(null);
+      const msg: ToWorker = { type: 'analyze', id, request: { board: boardRef.current, ...choices } };
+      worker.current?.postMessage(msg);
+    }, ANALYSIS_DEBOUNCE_MS);
+    return () => clearTimeout(t);
+  }, [key, choices, runCount]);
+
+  const cancel = useCallback(() => worker.current?.postMessage({ type: 'cancel', id: latest.current } satisfies ToWorker), []);
+  const rerun = useCallback(() => setRunCount((n) => n + 1), []);
+  // a new set of inputs renumbers the rows, so row marks no longer apply
+  const setInputs = useCallback((inputs: string[]) => setChoices((c) => ({ ...c, inputs, select: c.select.filter((s) => inputs.includes(s)), dontCares: {} })), []);
+  const setOutputs = useCallback((outputs: string[]) => setChoices((c) => ({ ...c, outputs })), []);
+  const setSelect = useCallback((select: string[]) => setChoices((c) => ({ ...c, select })), []);
+  const toggleDontCare = useCallback((output: string, row: number) => setChoices((c) => {
+    const rows = new Set(c.dontCares[output] ?? []);
+    if (rows.has(row)) rows.delete(row); else rows.add(row);
+    return { ...c, dontCares: { ...c.dontCares, [output]: [...rows].sort((a, b) => a - b) } };
+  }), []);
+  const clearDontCares = useCallback(() => setChoices((c) => ({ ...c, dontCares: {} })), []);
+
+  const highlight = useMemo<ReadonlySet<string> | undefined>(() => {
+    if (!focus || !result?.cones[focus]) return undefined;
+    return new Set(result.cones[focus]);
+  }, [focus, result]);
+
+  return {
+    board, choices, status, progress, result, error, focus, highlight,
+    setFocus, cancel, rerun, setInputs, setOutputs, setSelect, toggleDontCare, clearDontCares,
+  };
+}
+
+export type Analysis = ReturnType<typeof useAnalysis>;
