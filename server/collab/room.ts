@@ -8,6 +8,7 @@ import { nowIso } from '../db/knex';
 import type { NewBoardUpdate } from '../db/board-updates';
 import { ServerOrigin, appendBoardChanges, boardStillExists, compactBoardRows, recordBoardMeta } from '../services/board-docs';
 import { metaMap } from '../../shared/board/ydoc';
+import { dedupeSignalLabels } from '../../shared/board/edits';
 import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
 
 /** Message types of the y-websocket protocol. */
@@ -33,6 +34,7 @@ export class Room {
   private pending: NewBoardUpdate[] = [];
   private writing: Promise<void> = Promise.resolve();
   private discarded = false;
+  private destroyed = false;
 
   constructor(
     private readonly ctx: CollabContext,
@@ -47,7 +49,18 @@ export class Room {
     doc.on('update', this.onDocUpdate);
     this.awareness.on('update', this.onAwarenessUpdate);
     metaMap(doc).observe(this.onMetaChange);
+    doc.on('afterTransaction', this.onAfterTransaction);
   }
+
+  /**
+   * Two users may give two inputs the same label at the same moment; each edit alone was valid. The
+   * server, which sees every edit in one order, repairs the merge as an ordinary edit everyone receives.
+   */
+  private onAfterTransaction = (tr: Y.Transaction): void => {
+    if (!this.conns.has(tr.origin as WebSocket)) return;
+    const labelled = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || ((type as unknown) === this.doc.getMap('parts') && keys.size > 0));
+    if (labelled) queueMicrotask(() => !this.discarded && !this.destroyed && dedupeSignalLabels(this.doc, new ServerOrigin(null, 'dedupe-labels')));
+  };
 
   /** A collaborator renamed the board (or changed its family) on the canvas: the board row follows. */
   private onMetaChange = (_event: Y.YMapEvent<unknown>, tr: Y.Transaction): void => {
@@ -204,8 +217,10 @@ export class Room {
   }
 
   destroy(): void {
+    this.destroyed = true;
     this.doc.off('update', this.onDocUpdate);
     metaMap(this.doc).unobserve(this.onMetaChange);
+    this.doc.off('afterTransaction', this.onAfterTransaction);
     this.awareness.destroy();
     this.doc.destroy();
   }

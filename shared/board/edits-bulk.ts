@@ -6,8 +6,9 @@ import * as Y from 'yjs';
 import type { BoardFile, Fragment, Part, Wire } from './schema';
 import { splitPinRef } from './validate';
 import { newPartId, newWireId } from './ids';
+import { isInputKind, isOutputKind } from './kinds';
 import {
-  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap, wiresMap,
+  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
 } from './ydoc';
 
 /** The chosen parts and the wires running between two of them, as a clipboard fragment. */
@@ -109,4 +110,31 @@ export function replaceWithBoard(doc: Y.Doc, board: BoardFile, origin: unknown):
       else wires.set(wire.id, wireToYMap(wire, i + 1));
     });
   }, origin);
+}
+
+/**
+ * Makes the labels of inputs and outputs unique again after concurrent edits (two users naming two
+ * switches `A` at the same moment): the part later in board order keeps its place and gets `A_2`…
+ * One transaction; returns the ids that were renamed (none when the labels were already unique).
+ * The server runs it after merging, so every replica receives the same fix as an ordinary edit.
+ */
+export function dedupeSignalLabels(doc: Y.Doc, origin: unknown): string[] {
+  const used = new Set<string>();
+  const renames: [Y.Map<unknown>, string, string][] = [];
+  for (const [id, p] of sortedEntries(partsMap(doc))) {
+    const label = p.get('label');
+    const kind = String(p.get('kind'));
+    if (typeof label !== 'string' || !(isInputKind(kind) || isOutputKind(kind))) continue;
+    if (used.has(label)) renames.push([p, id, label]);
+    else used.add(label);
+  }
+  if (!renames.length) return [];
+  doc.transact(() => {
+    for (const [p, , label] of renames) {
+      const next = dedupeLabel(label, used);
+      used.add(next);
+      p.set('label', next);
+    }
+  }, origin);
+  return renames.map(([, id]) => id);
 }

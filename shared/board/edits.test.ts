@@ -4,7 +4,7 @@ import fc from 'fast-check';
 import type { BoardFile, Part } from './schema';
 import { boardToDoc, docToBoard, partsMap, wiresMap } from './ydoc';
 import {
-  EditError, addPart, connect, copyFragment, deleteSelection, disconnect, movePart, newPartId, newWireId,
+  EditError, addPart, connect, copyFragment, dedupeSignalLabels, deleteSelection, disconnect, movePart, newPartId, newWireId,
   pasteFragment, relabelPart, replaceWithBoard, rotateParts, setMeta, setPartField,
 } from './edits';
 
@@ -241,6 +241,23 @@ describe('replaceWithBoard', () => {
       replaceWithBoard(doc, BOARD, ME);
       return JSON.stringify(docToBoard(doc)) === JSON.stringify(BOARD);
     }), { numRuns: 100 });
+  });
+});
+
+describe('dedupeSignalLabels', () => {
+  it('repairs labels two replicas made equal concurrently, the same way on both', () => {
+    const d1 = fresh();
+    const d2 = new Y.Doc();
+    Y.applyUpdate(d2, Y.encodeStateAsUpdate(d1));
+    relabelPart(d1, 'a', 'X', ME); // each replica alone is valid
+    relabelPart(d2, 'b', 'X', ME);
+    Y.applyUpdate(d1, Y.encodeStateAsUpdate(d2));
+    Y.applyUpdate(d2, Y.encodeStateAsUpdate(d1));
+    expect(docToBoard(d1).parts.filter((p) => p.label === 'X')).toHaveLength(2);
+    expect(dedupeSignalLabels(d1, ME)).toEqual(['b']);
+    Y.applyUpdate(d2, Y.encodeStateAsUpdate(d1));
+    expect(docToBoard(d2).parts.slice(0, 2).map((p) => p.label)).toEqual(['X', 'X_2']);
+    expect(dedupeSignalLabels(d2, ME)).toEqual([]);
   });
 });
 

@@ -119,3 +119,20 @@ describe('live board sync', () => {
     await waitFor(() => [...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 5), 'a viewer cursor to arrive');
   });
 });
+
+describe('server repairs of concurrent edits', () => {
+  it('two users labelling two switches alike at the same moment end with unique labels on both screens', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, editor, 'editor');
+    const a = open(boardId, owner);
+    const b = open(boardId, editor);
+    await Promise.all([a.synced, b.synced]);
+    addPart(a.doc, { id: 'sw1', kind: 'switch', label: 'P', x: 0, y: 0, on: false }, ME);
+    addPart(a.doc, { id: 'sw2', kind: 'switch', label: 'Q', x: 0, y: 40, on: false }, ME);
+    await waitFor(() => b.doc.getMap('parts').size === 2, 'both switches');
+    relabelPart(a.doc, 'sw1', 'EN', ME);
+    relabelPart(b.doc, 'sw2', 'EN', ME);
+    const labels = (c: Client) => docToBoard(c.doc).parts.map((p) => p.label).join(',');
+    await waitFor(() => labels(a) === 'EN,EN_2' && labels(b) === 'EN,EN_2', 'the repaired labels on both');
+  });
+});
