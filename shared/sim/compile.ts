@@ -37,29 +37,51 @@ export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netli
   const family = opts.family ?? board.family ?? 'ideal';
   const delays = familyDelays(family);
   // Slot per pin: part p's pins are slots base[p] … base[p] + count − 1 (inputs first).
-  const slotOf = new Map<string, number>();
-  const slotPin: { part: number; pin: string; output: boolean }[] = [];
+  const partIndex = new Map<string, number>();
+  const base = new Int32Array(board.parts.length + 1);
   const pins = board.parts.map((part, p) => {
+    if (!partIndex.has(part.id)) partIndex.set(part.id, p);
     const pp = partPins(part);
-    for (const pin of pp.inputs) { slotOf.set(`${part.id}.${pin}`, slotPin.length); slotPin.push({ part: p, pin, output: false }); }
-    for (const pin of pp.outputs) { slotOf.set(`${part.id}.${pin}`, slotPin.length); slotPin.push({ part: p, pin, output: true }); }
+    base[p + 1] = base[p] + pp.inputs.length + pp.outputs.length;
     return pp;
   });
-  const parent = new Int32Array(slotPin.length);
+  const nSlots = base[board.parts.length];
+  const slotPart = new Int32Array(nSlots);
+  for (let p = 0; p < board.parts.length; p++) slotPart.fill(p, base[p], base[p + 1]);
+  const slotPinName = (s: number) => {
+    const p = slotPart[s];
+    const k = s - base[p];
+    const pp = pins[p];
+    return k < pp.inputs.length ? pp.inputs[k] : pp.outputs[k - pp.inputs.length];
+  };
+  const isOutputSlot = (s: number) => s - base[slotPart[s]] >= pins[slotPart[s]].inputs.length;
+  const slotOfPin = (partId: string, pin: string): number | undefined => {
+    const p = partIndex.get(partId);
+    if (p === undefined) return undefined;
+    const i = pins[p].inputs.indexOf(pin);
+    if (i >= 0) return base[p] + i;
+    const o = pins[p].outputs.indexOf(pin);
+    return o >= 0 ? base[p] + pins[p].inputs.length + o : undefined;
+  };
+  const slotOfRef = (ref: string): number | undefined => {
+    const dot = ref.lastIndexOf('.');
+    return dot <= 0 ? undefined : slotOfPin(ref.slice(0, dot), ref.slice(dot + 1));
+  };
+  const parent = new Int32Array(nSlots);
   for (let i = 0; i < parent.length; i++) parent[i] = i;
   for (const wire of board.wires) {
-    const a = slotOf.get(wire.from);
-    const b = slotOf.get(wire.to);
+    const a = slotOfRef(wire.from);
+    const b = slotOfRef(wire.to);
     if (a === undefined || b === undefined) continue;
     const ra = find(parent, a);
     const rb = find(parent, b);
     // the smaller root wins so that net ids follow file order
     if (ra !== rb) { if (ra < rb) parent[rb] = ra; else parent[ra] = rb; }
   }
-  const netOfSlot = new Int32Array(slotPin.length);
+  const netOfSlot = new Int32Array(nSlots);
   const rootNet = new Map<number, number>();
   const nets: NetInfo[] = [];
-  for (let s = 0; s < slotPin.length; s++) {
+  for (let s = 0; s < nSlots; s++) {
     const r = find(parent, s);
     let n = rootNet.get(r);
     if (n === undefined) {
@@ -68,19 +90,18 @@ export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netli
       nets.push({ id: n, name: '', drivers: [], readers: [] });
     }
     netOfSlot[s] = n;
-    const sp = slotPin[s];
-    const ref: PinRef = { part: board.parts[sp.part].id, pin: sp.pin };
-    (sp.output ? nets[n].drivers : nets[n].readers).push(ref);
+    const ref: PinRef = { part: board.parts[slotPart[s]].id, pin: slotPinName(s) };
+    (isOutputSlot(s) ? nets[n].drivers : nets[n].readers).push(ref);
   }
-  nameNets(board, nets, slotOf, netOfSlot);
+  nameNets(board, nets, (partId, pin) => netOfSlot[slotOfPin(partId, pin)!]);
 
   const parts: CompiledPart[] = board.parts.map((part, index) => {
     const pp = pins[index];
     const source = isInputKind(part.kind);
     return {
       index, id: part.id, kind: part.kind, name: signalName(part),
-      inputPins: pp.inputs, inputs: pp.inputs.map((pin) => netOfSlot[slotOf.get(`${part.id}.${pin}`)!]),
-      outputPins: pp.outputs, outputs: pp.outputs.map((pin) => netOfSlot[slotOf.get(`${part.id}.${pin}`)!]),
+      inputPins: pp.inputs, inputs: pp.inputs.map((_, k) => netOfSlot[base[index] + k]),
+      outputPins: pp.outputs, outputs: pp.outputs.map((_, k) => netOfSlot[base[index] + pp.inputs.length + k]),
       rise: source ? 0 : delays.rise, fall: source ? 0 : delays.fall,
       part,
     };
@@ -100,7 +121,7 @@ export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netli
     outputs: parts.filter((p) => isOutputKind(p.kind)),
     undriven, conflicts, problems,
     netOf(partId, pin) {
-      const s = slotOf.get(`${partId}.${pin}`);
+      const s = slotOfPin(partId, pin);
       if (s === undefined) throw new Error(`no pin ${partId}.${pin}`);
       return netOfSlot[s];
     },
@@ -109,12 +130,12 @@ export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netli
 }
 
 /** Net names: an input/output label on it, else `<partId>_<pin>` of its driver, else of its first pin; unique. */
-function nameNets(board: BoardFile, nets: NetInfo[], slotOf: Map<string, number>, netOfSlot: Int32Array): void {
+function nameNets(board: BoardFile, nets: NetInfo[], netOf: (partId: string, pin: string) => number): void {
   const labelled = new Map<number, string>();
   for (const part of board.parts) {
     if (!(isInputKind(part.kind) || isOutputKind(part.kind)) || !part.label) continue;
     const pin = isInputKind(part.kind) ? 'out' : 'in';
-    const n = netOfSlot[slotOf.get(`${part.id}.${pin}`)!];
+    const n = netOf(part.id, pin);
     if (!labelled.has(n)) labelled.set(n, signalName(part));
   }
   // labels are unique already; reserve them so that no generated name takes one
