@@ -8,7 +8,7 @@ import { nowIso } from '../db/knex';
 import type { NewBoardUpdate } from '../db/board-updates';
 import { ServerOrigin, appendBoardChanges, boardStillExists, compactBoardRows, recordBoardMeta } from '../services/board-docs';
 import { metaMap } from '../../shared/board/ydoc';
-import { dedupeSignalLabels } from '../../shared/board/edits';
+import { repairBoard } from '../../shared/board/edits';
 import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
 
 /** Message types of the y-websocket protocol. */
@@ -53,13 +53,15 @@ export class Room {
   }
 
   /**
-   * Two users may give two inputs the same label at the same moment; each edit alone was valid. The
-   * server, which sees every edit in one order, repairs the merge as an ordinary edit everyone receives.
+   * Concurrent edits can each be valid and still merge into a board that is not: two inputs given one
+   * label, a wire drawn to a part another user deleted. The server, which sees every edit in one order,
+   * repairs the merge as an ordinary edit everyone receives.
    */
   private onAfterTransaction = (tr: Y.Transaction): void => {
     if (!this.conns.has(tr.origin as WebSocket)) return;
-    const labelled = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || ((type as unknown) === this.doc.getMap('parts') && keys.size > 0));
-    if (labelled) queueMicrotask(() => !this.discarded && !this.destroyed && dedupeSignalLabels(this.doc, new ServerOrigin(null, 'dedupe-labels')));
+    const lists = new Set<unknown>([this.doc.getMap('parts'), this.doc.getMap('wires')]);
+    const touched = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || keys.has('inputs') || (lists.has(type) && keys.size > 0));
+    if (touched) queueMicrotask(() => !this.discarded && !this.destroyed && repairBoard(this.doc, new ServerOrigin(null, 'repair')));
   };
 
   /** A collaborator renamed the board (or changed its family) on the canvas: the board row follows. */

@@ -8,7 +8,7 @@ import { splitPinRef } from './validate';
 import { newPartId, newWireId } from './ids';
 import { isInputKind, isOutputKind } from './kinds';
 import {
-  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
+  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, pinExists, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
 } from './ydoc';
 
 /** The chosen parts and the wires running between two of them, as a clipboard fragment. */
@@ -137,4 +137,25 @@ export function dedupeSignalLabels(doc: Y.Doc, origin: unknown): string[] {
     }
   }, origin);
   return renames.map(([, id]) => id);
+}
+
+/**
+ * Deletes wires whose part or pin is gone (one user deleted a part, or lowered a gate's input count,
+ * while another wired to it). One transaction; returns the deleted wire ids.
+ */
+export function removeDanglingWires(doc: Y.Doc, origin: unknown): string[] {
+  const parts = new Map([...partsMap(doc).values()].map((p) => [String(p.get('id')), readPart(p)]));
+  const wires = wiresMap(doc);
+  const gone = [...wires.entries()].filter(([, w]) => !pinExists(parts, String(w.get('from'))) || !pinExists(parts, String(w.get('to')))).map(([id]) => id);
+  if (gone.length) doc.transact(() => gone.forEach((id) => wires.delete(id)), origin);
+  return gone;
+}
+
+/** The server's repair after merging concurrent edits: dangling wires removed, signal labels unique. */
+export function repairBoard(doc: Y.Doc, origin: unknown): { wires: string[]; relabelled: string[] } {
+  let result = { wires: [] as string[], relabelled: [] as string[] };
+  doc.transact(() => {
+    result = { wires: removeDanglingWires(doc, origin), relabelled: dedupeSignalLabels(doc, origin) };
+  }, origin);
+  return result;
 }

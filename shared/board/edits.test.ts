@@ -4,7 +4,7 @@ import fc from 'fast-check';
 import type { BoardFile, Part } from './schema';
 import { boardToDoc, docToBoard, partsMap, wiresMap } from './ydoc';
 import {
-  EditError, addPart, connect, copyFragment, dedupeSignalLabels, deleteSelection, disconnect, movePart, newPartId, newWireId,
+  EditError, addPart, connect, copyFragment, dedupeSignalLabels, deleteSelection, repairBoard, disconnect, movePart, newPartId, newWireId,
   pasteFragment, relabelPart, replaceWithBoard, rotateParts, setMeta, setPartField,
 } from './edits';
 
@@ -258,6 +258,22 @@ describe('dedupeSignalLabels', () => {
     Y.applyUpdate(d2, Y.encodeStateAsUpdate(d1));
     expect(docToBoard(d2).parts.slice(0, 2).map((p) => p.label)).toEqual(['X', 'X_2']);
     expect(dedupeSignalLabels(d2, ME)).toEqual([]);
+  });
+});
+
+describe('repairBoard', () => {
+  it('removes wires to a part deleted concurrently and to pins a gate lost', () => {
+    const d1 = fresh();
+    const d2 = new Y.Doc();
+    Y.applyUpdate(d2, Y.encodeStateAsUpdate(d1));
+    deleteSelection(d1, ['g2'], [], ME);
+    const r = connect(d2, 'b.out', 'g2.in0', ME);
+    Y.applyUpdate(d1, Y.encodeStateAsUpdate(d2));
+    expect(wiresMap(d1).has((r as { id: string }).id)).toBe(true); // the merge kept the dangling wire
+    const log = txLog(d1);
+    expect(repairBoard(d1, ME)).toEqual({ wires: [(r as { id: string }).id], relabelled: [] });
+    expect(log).toEqual([ME]);
+    expect(repairBoard(d1, ME)).toEqual({ wires: [], relabelled: [] });
   });
 });
 

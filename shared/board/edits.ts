@@ -237,5 +237,5 @@ export function setMeta(doc: Y.Doc, meta: { title?: string; family?: FamilyId },
 }
 
 export { newPartId, newWireId };
-export { copyFragment, dedupeSignalLabels, pasteFragment, replaceWithBoard } from './edits-bulk';
+export { copyFragment, dedupeSignalLabels, pasteFragment, removeDanglingWires, repairBoard, replaceWithBoard } from './edits-bulk';
 export type { BoardFile, Fragment, YRecord };

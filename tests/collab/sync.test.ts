@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import WebSocket from 'ws';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addPart, connect, movePart, relabelPart } from '../../shared/board/edits';
+import { addPart, connect, deleteSelection, movePart, relabelPart } from '../../shared/board/edits';
 import { docToBoard } from '../../shared/board/ydoc';
 import { addMember, connectClient, createBoard, signUp, waitFor, type Client, type User } from './helpers';
 
@@ -134,5 +134,20 @@ describe('server repairs of concurrent edits', () => {
     relabelPart(b.doc, 'sw2', 'EN', ME);
     const labels = (c: Client) => docToBoard(c.doc).parts.map((p) => p.label).join(',');
     await waitFor(() => labels(a) === 'EN,EN_2' && labels(b) === 'EN,EN_2', 'the repaired labels on both');
+  });
+
+  it('a wire drawn to a part another user deletes at the same moment is removed everywhere', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, editor, 'editor');
+    const a = open(boardId, owner);
+    const b = open(boardId, editor);
+    await Promise.all([a.synced, b.synced]);
+    addPart(a.doc, { id: 'sw1', kind: 'switch', label: 'P', x: 0, y: 0, on: false }, ME);
+    addPart(a.doc, { id: 'g1', kind: 'not', x: 100, y: 0 }, ME);
+    await waitFor(() => b.doc.getMap('parts').size === 2, 'both parts');
+    deleteSelection(a.doc, ['g1'], [], ME);
+    expect(connect(b.doc, 'sw1.out', 'g1.in0', ME).ok).toBe(true);
+    await waitFor(() => !a.doc.getMap('parts').has('g1') && !b.doc.getMap('parts').has('g1'), 'the delete on both');
+    await waitFor(() => a.doc.getMap('wires').size === 0 && b.doc.getMap('wires').size === 0, 'the dangling wire to go');
   });
 });
