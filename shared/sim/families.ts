@@ -18,7 +18,14 @@ export interface FamilyData {
   timeUnitNs: number;
   /** where the figures come from */
   source: string;
+  /** safety caution to show with this family (dangerous voltages), when there is one */
+  caution?: string;
 }
+
+const TUBE_CAUTION = 'Tube circuits carry dangerous voltages (plate and grid supplies, heater transformers on mains). '
+  + 'Build, power and probe them only as your local electrical codes and qualified practice allow.';
+const RELAY_CAUTION = 'Relay logic is often powered from mains-fed supplies. '
+  + 'Wire and test supplies only as your local electrical codes and qualified practice allow.';
 
 /** Per family id. */
 export const FAMILIES: Record<FamilyId, FamilyData> = {
@@ -28,10 +35,10 @@ export const FAMILIES: Record<FamilyId, FamilyData> = {
   // Diode-resistor NOR driving a tube grid: an open input is pulled to the negative grid rail, reads low.
   // Delays of a few hundred ns for small receiving tubes with plate loads of tens of kΩ — from memory.
   'tube-drl-nor': { id: 'tube-drl-nor', title: 'Vacuum tube, diode-resistor NOR', floating: '0', tPLH: 400, tPHL: 200, timeUnitNs: 10,
-    source: 'floating low: common practice, no source; delays from memory' },
+    source: 'floating low: common practice, no source; delays from memory', caution: TUBE_CAUTION },
   // Relay logic: an open coil input is unpowered (low). Operate about 5 ms, release about 2 ms — from memory.
   relay: { id: 'relay', title: 'Relay', floating: '0', tPLH: 5_000_000, tPHL: 2_000_000, timeUnitNs: 100_000,
-    source: 'floating low: common practice, no source; delays from memory' },
+    source: 'floating low: common practice, no source; delays from memory', caution: RELAY_CAUTION },
   // RTL: an open input leaves the transistor base unbiased (off), which reads as low. Delays from memory.
   rtl: { id: 'rtl', title: 'Resistor-transistor logic', floating: '0', tPLH: 30, tPHL: 15, timeUnitNs: 1,
     source: 'floating low: common practice, no source; delays from memory' },

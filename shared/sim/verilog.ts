@@ -35,6 +35,8 @@ export function toVerilog(board: BoardFile, netlist: Netlist): string {
   const header = [...ports.values()];
   const lines: string[] = [];
   lines.push(`// Structural Verilog (IEEE Std 1364) exported by Gatefold: board "${board.title.replace(/[\r\n]/g, ' ')}", family ${netlist.family}`);
+  const caution = familyOf(netlist.family).caution;
+  if (caution) lines.push(`// CAUTION: ${caution}`);
   lines.push(`module ${moduleName} (${header.join(', ')});`);
   for (const p of netlist.inputs) if (ports.has(p)) lines.push(`  input wire ${ports.get(p)};`);
   for (const p of netlist.outputs) lines.push(`  output wire ${ports.get(p)};`);

@@ -43,6 +43,7 @@ const cases: [string, string[], RegExp][] = [
   ['unknown flag', ['simulate', good, '--fast'], /--fast/],
   ['unknown command', ['frobnicate', good], /unknown command "frobnicate"/],
   ['no file', ['export-verilog'], /missing FILE/],
+  ['unwritable --vcd', ['simulate', good, '--vcd', join(dir, 'no-such-dir', 'out.vcd')], /cannot write .*out\.vcd/],
   ['export of a bad file', ['export-verilog', write('kind2.json', unknownKind)], /unknown kind "triode"/],
 ];
 

@@ -82,6 +82,13 @@ describe('simulate', () => {
     expect(out.settled).toBe(false);
     expect(out.oscillating.sort()).toEqual(['Q', 'QN']);
   });
+
+  it('adds the safety caution for a tube board and defers to local codes', async () => {
+    const r = await runCli(['simulate', file('tube.gatefold.json', { ...halfAdder, family: 'tube-drl-nor' })]);
+    expect(JSON.parse(r.stdout).caution).toMatch(/dangerous voltages.*local electrical codes and qualified practice/);
+    const plain = await runCli(['simulate', file('ha3.gatefold.json', halfAdder)]);
+    expect(JSON.parse(plain.stdout).caution).toBeUndefined();
+  });
 });
 
 describe('export-verilog', () => {

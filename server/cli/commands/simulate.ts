@@ -102,6 +102,7 @@ export const simulate: CliCommand = {
     const result = {
       settled, oscillating: [...oscillating], conflicts: report.conflicts, outputs: sim.outputValues(), trace,
       undrivenInputs: report.undrivenInputs, races: [...races], time: sim.time, events: sim.stats.events,
+      ...(familyOf(board.family).caution ? { caution: familyOf(board.family).caution } : {}),
     };
     io.stdout(JSON.stringify(result, null, 2) + '\n');
     if (values.vcd) {
