@@ -48,7 +48,9 @@ export function TruthTableView({ result, dontCares, onToggle }: {
     })),
   ], [result, k, marks, onToggle]);
 
-  const table = useReactTable({ data: visible, columns, getCoreRowModel: getCoreRowModel() });
+  // `visible` is a new array every render; with the default page-index auto-reset each render queued a
+  // state update and the next render another, which froze the page while the bench re-rendered it often.
+  const table = useReactTable({ data: visible, columns, getCoreRowModel: getCoreRowModel(), autoResetPageIndex: false });
   const rows = table.getRowModel().rows;
   const top = items[0]?.start ?? 0;
   const bottom = virtualizer.getTotalSize() - (items.at(-1)?.end ?? 0);
