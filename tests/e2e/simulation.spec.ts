@@ -76,6 +76,13 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   await page.mouse.wheel(0, -200);
   await expect(follow).not.toBeChecked();
   await page.getByTestId('timing-strip').getByRole('button', { name: 'Fit' }).click();
+  // any other net can be recorded too: here the flip-flop's inner gate G2
+  await page.getByTestId('timing-strip').getByRole('button', { name: /^Signals \(/ }).click();
+  await page.getByLabel('Filter signals').fill('g2');
+  await page.getByRole('checkbox', { name: 'g2_out' }).check();
+  await expect(rises(page, 'g2_out')).toHaveCount(1);
+  await page.screenshot({ path: 'test-results/simulation-03b-signal-picker.png' });
+  await page.getByTestId('timing-strip').getByRole('button', { name: /^Signals \(/ }).click();
 
   // The press was a document edit: the viewer's simulation saw it too.
   await expect(level(viewer, 'bench-output-Q')).toHaveAttribute('data-level', '1');
