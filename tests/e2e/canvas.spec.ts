@@ -163,3 +163,83 @@ test('owner and editor edit one board live; undo is per person; a viewer cannot 
 
   for (const p of [owner, editor, viewer]) await p.ctx.close();
 });
+
+// The half adder of CONTRACTS §1 (our own example).
+const HALF_ADDER = {
+  format: 'gatefold-board', version: 1, title: 'Half adder', family: 'ideal',
+  parts: [
+    { id: 'a', kind: 'switch', label: 'A', x: 40, y: 40, on: false },
+    { id: 'b', kind: 'switch', label: 'B', x: 40, y: 140, on: false },
+    { id: 'g1', kind: 'xor', inputs: 2, x: 200, y: 40 },
+    { id: 'g2', kind: 'and', inputs: 2, x: 200, y: 140 },
+    { id: 's', kind: 'lamp', label: 'S', x: 360, y: 60 },
+    { id: 'c', kind: 'lamp', label: 'C', x: 360, y: 160 },
+  ],
+  wires: [
+    { id: 'w1', from: 'a.out', to: 'g1.in0' }, { id: 'w2', from: 'b.out', to: 'g1.in1' },
+    { id: 'w3', from: 'a.out', to: 'g2.in0' }, { id: 'w4', from: 'b.out', to: 'g2.in1' },
+    { id: 'w5', from: 'g1.out', to: 's.in' }, { id: 'w6', from: 'g2.out', to: 'c.in' },
+  ],
+};
+
+test('board files and pictures: import into a new board (errors name the bad ids), export file, PNG and SVG', async ({ page }) => {
+  test.setTimeout(90_000);
+  await signUp(page, OWNER);
+  await expect(page).toHaveURL(/\/boards$/);
+
+  // A file whose wire runs to a missing part is refused, and the message names the wire and the part.
+  const broken = { ...HALF_ADDER, wires: [...HALF_ADDER.wires, { id: 'w9', from: 'g2.out', to: 'zz.in' }] };
+  await page.getByTestId('import-board-input').setInputFiles({ name: 'broken.gatefold.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(broken)) });
+  await expect(page.getByText(/w9: wire to missing part "zz"/).first()).toBeVisible();
+  await expect(page).toHaveURL(/\/boards$/);
+
+  // A good file becomes a new board, which opens.
+  await page.getByTestId('import-board-input').setInputFiles({ name: 'half-adder.gatefold.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(HALF_ADDER)) });
+  await expect(page).toHaveURL(/\/boards\/\d+$/);
+  await expect(page.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
+  for (const id of ['a', 'b', 'g1', 'g2', 's', 'c']) await expect(page.getByTestId(`part-${id}`)).toBeVisible();
+  await expect(page.locator('.react-flow__edge')).toHaveCount(6);
+
+  // Flipping switch A on (a click on its face) lights S = A xor B through the live simulation.
+  await expect(page.getByTestId('part-s').locator('.gf-bulb')).toHaveAttribute('data-lit', 'false');
+  await page.getByTestId('actuator-a').click();
+  await expect(page.getByTestId('part-s').locator('.gf-bulb')).toHaveAttribute('data-lit', 'true');
+  await expect(page.getByTestId('part-c').locator('.gf-bulb')).toHaveAttribute('data-lit', 'false');
+
+  // R turns the selected gate a quarter turn: its box swaps width and height.
+  const before = (await page.getByTestId('part-g2').boundingBox())!;
+  await page.getByTestId('part-g2').click({ position: { x: 50, y: 30 } });
+  await page.keyboard.press('r');
+  await expect.poll(async () => Math.round((await page.getByTestId('part-g2').boundingBox())!.width)).toBe(Math.round(before.height));
+  await page.screenshot({ path: 'test-results/canvas-05-imported-half-adder.png' });
+
+  // The board file downloads with the board's content (the switch now on, the gate turned).
+  const [file] = await Promise.all([page.waitForEvent('download'), page.getByTestId('tool-export-file').click()]);
+  expect(file.suggestedFilename()).toBe('half-adder.gatefold.json');
+  const saved = JSON.parse(await streamText(await file.createReadStream())) as typeof HALF_ADDER;
+  expect(saved.parts.map((p) => p.id)).toEqual(['a', 'b', 'g1', 'g2', 's', 'c']);
+  expect(saved.parts[0]).toMatchObject({ id: 'a', on: true });
+  expect(saved.parts[3]).toMatchObject({ id: 'g2', rotation: 90 });
+  expect(saved.wires).toEqual(HALF_ADDER.wires);
+
+  // PNG (its 8-byte signature, from the PNG specification, ISO/IEC 15948) and SVG pictures.
+  const [png] = await Promise.all([page.waitForEvent('download'), page.getByTestId('tool-export-png').click()]);
+  expect(png.suggestedFilename()).toBe('half-adder.png');
+  const pngBytes = await streamBytes(await png.createReadStream());
+  expect([...pngBytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+  expect(pngBytes.length).toBeGreaterThan(2000);
+  const [svg] = await Promise.all([page.waitForEvent('download'), page.getByTestId('tool-export-svg').click()]);
+  expect(svg.suggestedFilename()).toBe('half-adder.svg');
+  const svgText = await streamText(await svg.createReadStream());
+  expect(svgText).toContain('<svg');
+  expect(svgText).toContain('data-testid="part-g1"');
+});
+
+async function streamBytes(stream: NodeJS.ReadableStream): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of stream) chunks.push(Buffer.from(chunk as Buffer));
+  return Buffer.concat(chunks);
+}
+async function streamText(stream: NodeJS.ReadableStream): Promise<string> {
+  return (await streamBytes(stream)).toString('utf8');
+}

@@ -8,6 +8,7 @@ import { boardsQueryOptions } from '../../features/boards/api';
 import { BoardsTable } from '../../features/boards/components/boards-table';
 import { CreateBoardForm } from '../../features/boards/components/create-board-form';
 import { PageColumn } from '../layout';
+import { ImportBoardButton } from '../../features/canvas';
 import { PageTitle } from '../../components/ui/page-title';
 
 export function BoardsListPage() {
@@ -24,9 +25,12 @@ export function BoardsListPage() {
           </CardBody>
         </Card>
         <section aria-labelledby="boards-heading" className="flex flex-col gap-3">
-          <h1 id="boards-heading" className="text-lg font-semibold text-slate-100">
-            Your boards
-          </h1>
+          <div className="flex items-center justify-between gap-3">
+            <h1 id="boards-heading" className="text-lg font-semibold text-slate-100">
+              Your boards
+            </h1>
+            <ImportBoardButton />
+          </div>
           {boards.isPending ? (
             <LoadingState label="Loading your boards…" />
           ) : boards.isError ? (

@@ -151,3 +151,15 @@ describe('mergeLocal', () => {
     expect(merged.find((n) => n.id === 'b')).toBe(local.find((n) => n.id === 'b'));
   });
 });
+
+describe('deriveNodes with bench badges', () => {
+  it('keeps the node when a new badge object says the same thing', () => {
+    const parts = HALF_ADDER.parts;
+    const n1 = deriveNodes({ parts, readOnly: false, badges: new Map([['s', { tone: 'undriven' as const, text: 'no driver' }]]) }, new Map());
+    const n2 = deriveNodes({ parts, readOnly: false, badges: new Map([['s', { tone: 'undriven' as const, text: 'no driver' }]]) }, byId(n1));
+    expect(n2[4]).toBe(n1[4]);
+    const n3 = deriveNodes({ parts, readOnly: false, badges: new Map([['s', { tone: 'conflict' as const, text: 'two drivers' }]]) }, byId(n2));
+    expect(n3[4]).not.toBe(n2[4]);
+    expect(n3[4].data.badge?.tone).toBe('conflict');
+  });
+});

@@ -44,7 +44,9 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
     const old = prev.get(part.id);
     const levels = pinLevels(part, input.levels);
     const shown = shownState(part, input.tryOut);
-    const badge = input.badges?.get(part.id);
+    // The bench sends fresh badge objects with every simulation step: keep the old one while it says the same.
+    const fresh = input.badges?.get(part.id);
+    const badge = fresh && old?.data.badge && old.data.badge.tone === fresh.tone && old.data.badge.text === fresh.text ? old.data.badge : fresh;
     const highlight = input.highlight?.has(part.id) ?? false;
     const remoteColor = input.remoteSelection?.get(part.id);
     const drag = input.remoteDrag?.get(part.id);

@@ -56,7 +56,8 @@ export function ButtonSymbol({ part, w, level, shown }: SymbolProps<ButtonPart> 
         <line x1={33} y1={8} x2={33} y2={18} stroke={INK.stroke} strokeWidth={2} />
         <line x1={27} y1={8} x2={39} y2={8} stroke={INK.stroke} strokeWidth={2} />
       </g>
-      {part.bounce && <text x={6} y={34} fontFamily={monoFont} fontSize={7} fill={INK.dim}>bounce</text>}
+      {/* contact bounce is on: a small zigzag in the corner */}
+      {part.bounce && <path d="M50 33 l2 -4 l2 4 l2 -4 l2 4" fill="none" stroke={INK.dim} strokeWidth={1} data-testid="bounce-mark" />}
       {/* only the plunger is the actuator (pressing must not start a drag); grab the lower edge to move the part */}
       <rect x={10} y={2} width={46} height={24} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
         style={{ cursor: 'pointer' }} onPointerDown={down} onPointerUp={up} onPointerCancel={up} />

@@ -13,7 +13,9 @@ export function LampSymbol({ h, level }: SymbolProps<LampPart>) {
   return (
     <>
       <Stub x1={0} y1={cy} x2={cx - 14} y2={cy} level={v} />
-      {lit && <circle cx={cx} cy={cy} r={18} fill={SIGNAL.high} opacity={0.25} style={{ filter: 'blur(4px)' }} />}
+      {/* the glow: two soft halos (no blur filter, which is costly on large boards) */}
+      {lit && <circle cx={cx} cy={cy} r={21} fill={SIGNAL.high} opacity={0.12} />}
+      {lit && <circle cx={cx} cy={cy} r={17.5} fill={SIGNAL.high} opacity={0.25} />}
       <circle cx={cx} cy={cy} r={14} {...strokeProps} fill={lit ? SIGNAL.high : INK.fill} stroke={lit ? '#ffd08a' : INK.stroke}
         data-lit={lit ? 'true' : 'false'} className="gf-bulb" />
       {/* the filament */}

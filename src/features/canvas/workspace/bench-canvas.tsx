@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionMode, Controls, MiniMap, ReactFlow, useReactFlow,
+  Background, BackgroundVariant, ConnectionMode, ControlButton, Controls, MiniMap, ReactFlow, useReactFlow,
   type Connection, type OnSelectionChangeParams,
 } from '@xyflow/react';
 import { toast } from 'sonner';
@@ -29,6 +29,9 @@ import { useFlowState, type OverlayProps } from './use-flow-state';
 const nodeTypes = { part: PartNodeComponent };
 const edgeTypes = { wire: WireEdgeComponent };
 const SNAP: [number, number] = [GRID, GRID];
+const MINIMAP_AUTO_LIMIT = 400;
+
+const minimapColor = () => '#3a4654';
 
 export interface BenchCanvasProps extends OverlayProps {
   session: BoardSession;
@@ -55,6 +58,9 @@ export function BenchCanvas(props: BenchCanvasProps) {
   const flow = useFlowState(session, props, peers);
   const pointer = useRef<{ x: number; y: number } | null>(null);
   const [ready, setReady] = useState(false);
+  // The minimap redraws on every pan and zoom; on big boards it starts hidden (one click shows it).
+  const [mapChoice, setMapChoice] = useState<boolean | null>(null);
+  const showMap = mapChoice ?? session.board.parts.length <= MINIMAP_AUTO_LIMIT;
 
   const commands = useBenchCommands({
     session, nodes: flow.nodes, edges: flow.edges, selectOnly: flow.selectOnly, pointer,
@@ -187,9 +193,16 @@ export function BenchCanvas(props: BenchCanvasProps) {
           defaultEdgeOptions={{ type: 'wire' }}
         >
           <Background variant={BackgroundVariant.Dots} gap={GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
-          <Controls showInteractive={false} position="bottom-left" />
-          <MiniMap pannable zoomable position="bottom-right" nodeColor={() => '#3a4654'} maskColor="rgba(13,16,20,0.7)"
-            bgColor="#12161c" nodeStrokeWidth={0} />
+          <Controls showInteractive={false} position="bottom-left">
+            <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
+              aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
+              <svg viewBox="0 0 16 16" aria-hidden="true"><rect x="1.5" y="3" width="13" height="10" rx="1" fill="none" stroke="currentColor" strokeWidth="1.5" /><rect x="8" y="8" width="5" height="3.5" fill="currentColor" /></svg>
+            </ControlButton>
+          </Controls>
+          {showMap && (
+            <MiniMap pannable zoomable position="bottom-right" nodeColor={minimapColor} maskColor="rgba(13,16,20,0.7)"
+              bgColor="#12161c" nodeStrokeWidth={0} />
+          )}
           <RemoteCursors peers={peers.peers} />
         </ReactFlow>
         {helpOpen && <HelpSheet readOnly={readOnly} onClose={() => onHelp(false)} />}
