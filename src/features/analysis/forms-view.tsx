@@ -24,7 +24,7 @@ export function FormsView({ result, notation, focus, onFocus }: {
           <li key={name} className="rounded border border-bench-700 bg-bench-900/60 p-2" data-testid={`forms-${name}`}>
             <div className="flex flex-wrap items-center gap-2">
               <span className="font-mono font-semibold text-amber-300">{name}</span>
-              {f.function && <span className="rounded bg-bench-700 px-1.5 text-xs" title={FUNCTION_TITLES[f.function]} data-testid={`function-${name}`}>{f.function} · {FUNCTION_TITLES[f.function]}</span>}
+              {f.function && <span className="rounded bg-bench-700 px-1.5 text-xs" title={FUNCTION_TITLES[f.function]} data-testid={`function-${name}`} data-function={f.function}>{FUNCTION_TITLES[f.function]}</span>}
               {result.sequential[o] && <span className="rounded bg-fuchsia-950 px-1.5 text-xs text-fuchsia-200" title="A latch, flip-flop or feedback loop feeds this output: rows are simulated from power-on">depends on stored state</span>}
               <button type="button" onClick={() => onFocus(focus === name ? null : name)} aria-pressed={focus === name}
                 className={cn('ml-auto rounded px-1.5 text-xs', focus === name ? 'bg-amber-glow text-bench-950' : 'text-slate-300 hover:bg-bench-700')}>
