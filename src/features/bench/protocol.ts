@@ -14,7 +14,7 @@ export type ToWorker =
   | { type: 'rate'; hz: number }
   /** stored state back to power-on (storage parts to their init, gate loops to X) */
   | { type: 'reset-state' }
-  /** signals (net names) the timing strip records from now on; recording starts afresh */
+  /** signals (net names) the timing strip records from now on; rows already recorded keep their history */
   | { type: 'subscribe'; signals: string[] };
 
 /** An input or output of the board as the bench lists it. */
@@ -69,7 +69,7 @@ export type FromWorker =
       badges: [partId: string, tone: 'conflict' | 'oscillating' | 'undriven' | 'info', text: string][];
       /** `partId.pin` keys of every pin on a net that does not settle (the canvas pulses them) */
       pulsing: string[];
-      /** set when recording restarted (a new subscription or a recompile): the page drops what it had */
+      /** set when the rows changed (another choice of signals, a signal gone): rows that stay keep their history */
       traceReset?: { signals: string[]; at: number };
     }
   | { type: 'error'; message: string };

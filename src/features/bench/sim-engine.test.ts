@@ -173,7 +173,7 @@ describe('BenchEngine', () => {
     expect(h.last().report.races).toEqual(['l']);
   });
 
-  it('keeps recording across a recompile, after the old time, and restarts only on a new subscription', () => {
+  it('keeps recording across a recompile, after the old time, and names new rows on a new subscription', () => {
     const h = harness();
     h.engine.handle({ type: 'load', board: halfAdder(), tryOut: [] });
     h.engine.handle({ type: 'subscribe', signals: ['A', 'S'] });

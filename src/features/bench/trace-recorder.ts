@@ -28,24 +28,22 @@ export class TraceRecorder {
   /** simulated time of the Simulators before the current one */
   base = 0;
 
-  /** A new choice of signals: the recording restarts with it at the next `attach`. */
+  /** A new choice of signals, recorded from the next `attach` on. */
   subscribe(signals: string[]): void {
     this.signals = signals;
-    this.rows = [];
   }
 
   /**
    * Points the recording at the nets of `netlist` (after a subscription or a recompile) and records each
-   * signal's level now. Recording restarts when the rows change (a new subscription, or a signal gone
-   * from the board); otherwise it carries on.
+   * signal's level now. When the rows change (another choice of signals, or a signal gone from the
+   * board) the page is told the new rows; it keeps the history of rows that stay.
    */
   attach(netlist: Netlist, time: number, level: (net: number) => Level): void {
     const byName = new Map(netlist.nets.map((n) => [n.name, n.id]));
     const names = this.signals.filter((s) => byName.has(s));
     const now = this.base + time;
     if (names.length !== this.rows.length || names.some((n, i) => n !== this.rows[i]) || !this.rows.length) {
-      this.trace = [];
-      this.edges = [];
+      this.trace = []; // row numbers change: what was not sent yet is recorded again below as the level now
       this.reset = { signals: names, at: now };
       this.rows = names;
     }

@@ -4,7 +4,7 @@ import { levelCode } from './protocol';
 import { applyTrace } from './trace-store';
 
 describe('applyTrace', () => {
-  it('starts afresh on a reset and folds triples into compressed changes', () => {
+  it('starts a recording on the first reset and folds triples into compressed changes', () => {
     const c = levelCode;
     const first = applyTrace(emptyTrace(['OLD']), {
       traceReset: { signals: ['CLK', 'Q'], at: 5 },
@@ -23,5 +23,15 @@ describe('applyTrace', () => {
     const again = applyTrace(first.trace, { trace: [0, 25, c('1'), 5, 25, c('0')], edges: [], time: 20 });
     expect(again.trace).toBe(first.trace);
     expect(again.changed).toBe(false); // a repeat level and an unknown signal index change nothing
+  });
+
+  it('keeps the history of rows that stay when the rows change, in the new order', () => {
+    const c = levelCode;
+    const first = applyTrace(emptyTrace(), { traceReset: { signals: ['A', 'B'], at: 2 }, trace: [0, 2, c('0'), 1, 2, c('1'), 0, 9, c('1')], edges: [4], time: 10 }).trace;
+    const next = applyTrace(first, { traceReset: { signals: ['N', 'A'], at: 10 }, trace: [0, 10, c('Z'), 1, 10, c('1')], edges: [], time: 10 });
+    expect(next.trace.signals.map((s) => s.name)).toEqual(['N', 'A']);
+    expect(next.trace.signals[1].changes).toEqual([{ t: 2, v: '0' }, { t: 9, v: '1' }]);
+    expect(next.trace.signals[0].changes).toEqual([{ t: 10, v: 'Z' }]);
+    expect([next.trace.start, next.trace.edges]).toEqual([2, [4]]);
   });
 });

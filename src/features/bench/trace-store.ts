@@ -4,14 +4,37 @@ import { codeLevel, type FromWorker } from './protocol';
 type StateMsg = Extract<FromWorker, { type: 'state' }>;
 
 /**
- * Folds one state message's recording into the page's trace: a reset starts a new trace, then each
+ * New rows for the strip: a signal that was already recorded keeps its history, a new one starts empty.
+ * With nothing kept, the recording starts at `at`.
+ */
+function regroup(trace: Trace, signals: string[], at: number): Trace {
+  const old = new Map(trace.signals.map((s) => [s.name, s.changes]));
+  const next = emptyTrace(signals, at);
+  let kept = false;
+  next.signals.forEach((s) => {
+    const changes = old.get(s.name);
+    if (changes?.length) {
+      s.changes = changes;
+      kept = true;
+    }
+  });
+  if (kept) {
+    next.start = trace.start;
+    next.edges = trace.edges;
+    next.end = trace.end;
+  }
+  return next;
+}
+
+/**
+ * Folds one state message's recording into the page's trace: a reset regroups the rows, then each
  * [signal, time, code] triple becomes a compressed change and rising edges are appended.
  * Returns the trace to keep (the same object unless the recording restarted) and whether it changed.
  */
 export function applyTrace(trace: Trace, msg: Pick<StateMsg, 'trace' | 'edges' | 'traceReset' | 'time'>): { trace: Trace; changed: boolean } {
   let changed = false;
   if (msg.traceReset) {
-    trace = emptyTrace(msg.traceReset.signals, msg.traceReset.at);
+    trace = regroup(trace, msg.traceReset.signals, msg.traceReset.at);
     changed = true;
   }
   const { trace: flat } = msg;
