@@ -7,6 +7,7 @@ import { isInputKind, isOutputKind } from '../board';
 import type { Level } from './levels';
 import { L0, L1, LX, LZ, NONE, levelCode, levelName } from './codes';
 import { EventWheel } from './event-wheel';
+import { buildLayout } from './layout';
 import { familyDelays, familyOf } from './families';
 import { evaluatePart, stateSize } from './parts';
 import { isRisingEdge } from './parts/flip-flop';
@@ -32,7 +33,6 @@ export class Simulator {
   private readonly inNet: Int32Array;
   private readonly slotStart: Int32Array;
   private readonly slotNet: Int32Array;
-  private readonly slotPart: Int32Array;
   private readonly slotVal: Uint8Array;
   private readonly slotPend: Uint8Array;
   private readonly slotPendTime: Float64Array;
@@ -78,47 +78,24 @@ export class Simulator {
     let maxDelay = 1;
     for (let i = 0; i < n; i++) maxDelay = Math.max(maxDelay, this.rise[i], this.fall[i]);
 
-    this.inStart = new Int32Array(n + 1);
-    this.slotStart = new Int32Array(n + 1);
-    this.stateOff = new Int32Array(n);
-    let nIn = 0, nSlots = 0, nState = 0;
-    this.parts.forEach((p, i) => {
-      this.inStart[i] = nIn; nIn += p.inputs.length;
-      this.slotStart[i] = nSlots; nSlots += p.outputs.length;
-      this.stateOff[i] = nState; nState += stateSize(p.kind);
-    });
-    this.inStart[n] = nIn;
-    this.slotStart[n] = nSlots;
-    this.inNet = new Int32Array(nIn);
-    this.slotNet = new Int32Array(nSlots);
-    this.slotPart = new Int32Array(nSlots);
-    this.parts.forEach((p, i) => {
-      this.inNet.set(p.inputs, this.inStart[i]);
-      p.outputs.forEach((net, k) => { this.slotNet[this.slotStart[i] + k] = net; this.slotPart[this.slotStart[i] + k] = i; });
-    });
+    const lay = buildLayout(this.parts, nNets);
+    this.inStart = lay.inStart;
+    this.inNet = lay.inNet;
+    this.slotStart = lay.slotStart;
+    this.slotNet = lay.slotNet;
+    this.stateOff = lay.stateOff;
+    this.netDrivers = lay.netDrivers;
+    this.fanStart = lay.fanStart;
+    this.fanPart = lay.fanPart;
+    const nSlots = this.slotNet.length;
     this.slotVal = new Uint8Array(nSlots);
     this.slotPend = new Uint8Array(nSlots);
     this.slotPendTime = new Float64Array(nSlots);
-    this.state = new Uint8Array(nState);
+    this.state = new Uint8Array(lay.nState);
     this.evaluates = Uint8Array.from(this.parts, (p) => (!isInputKind(p.kind) && p.outputs.length > 0 ? 1 : 0));
     this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
-
     this.netVal = new Uint8Array(nNets);
     this.netChange = new Float64Array(nNets).fill(-1);
-    // a net's single driver slot, −1 undriven, −2 conflict
-    this.netDrivers = new Int32Array(nNets).fill(-1);
-    for (let s = 0; s < nSlots; s++) {
-      const net = this.slotNet[s];
-      this.netDrivers[net] = this.netDrivers[net] === -1 ? s : -2;
-    }
-    // fan-out: parts reading each net, once per part
-    const fan: number[][] = Array.from({ length: nNets }, () => []);
-    this.parts.forEach((p, i) => { for (const net of new Set(p.inputs)) fan[net].push(i); });
-    this.fanStart = new Int32Array(nNets + 1);
-    let f = 0;
-    fan.forEach((list, net) => { this.fanStart[net] = f; f += list.length; });
-    this.fanStart[nNets] = f;
-    this.fanPart = Int32Array.from(fan.flat());
     this.dirty = new Int32Array(n);
     this.dirtyMark = new Uint8Array(n);
     this.seen = new Uint8Array(nNets);
