@@ -58,7 +58,8 @@ export function drawWaveforms(ctx: CanvasRenderingContext2D, trace: Trace, o: Dr
     ctx.beginPath();
     ctx.rect(LABEL_W, top, plotW, ROW_H);
     ctx.clip();
-    drawRow(ctx, signal.changes, o, plotW, top, trace.start);
+    // nothing before a row's first recorded change (a signal picked later has no earlier history)
+    if (signal.changes.length) drawRow(ctx, signal.changes, o, plotW, top, Math.max(trace.start, signal.changes[0].t));
     ctx.restore();
   });
   if (o.cursor !== null) {
@@ -100,7 +101,7 @@ function drawAxis(ctx: CanvasRenderingContext2D, trace: Trace, o: DrawOptions, p
   }
 }
 
-/** One signal's waveform; nothing is drawn before `from`, where the recording started. */
+/** One signal's waveform; nothing is drawn before `from`, where its recording started. */
 function drawRow(ctx: CanvasRenderingContext2D, changes: Trace['signals'][number]['changes'], o: DrawOptions, plotW: number, top: number, from: number): void {
   const hi = top + 5;
   const lo = top + ROW_H - 5;
