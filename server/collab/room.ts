@@ -9,11 +9,8 @@ import type { NewBoardUpdate } from '../db/board-updates';
 import { ServerOrigin, appendBoardChanges, boardStillExists, compactBoardRows, recordBoardMeta } from '../services/board-docs';
 import { metaMap } from '../../shared/board/ydoc';
 import { repairBoard } from '../../shared/board/edits';
+import { MSG, SYNC, awarenessClients } from './protocol';
 import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
-
-/** Message types of the y-websocket protocol. */
-export const MSG = { sync: 0, awareness: 1, auth: 2, queryAwareness: 3 } as const;
-const SYNC = { step1: 0, step2: 1, update: 2 } as const;
 
 /** One open socket in a room. */
 export interface Conn {
@@ -177,9 +174,13 @@ export class Room {
         Y.applyUpdate(this.doc, update, conn.ws);
         return null;
       }
-      case MSG.awareness:
-        awarenessProtocol.applyAwarenessUpdate(this.awareness, decoding.readVarUint8Array(decoder), conn.ws);
+      case MSG.awareness: {
+        const update = decoding.readVarUint8Array(decoder);
+        // A socket speaks only for its own clients: never move or hide someone else's cursor.
+        if (awarenessClients(update).some((id) => this.ownerOf(id, conn))) return null;
+        awarenessProtocol.applyAwarenessUpdate(this.awareness, update, conn.ws);
         return null;
+      }
       case MSG.queryAwareness:
         return this.awarenessMessage([...this.awareness.getStates().keys()]);
       case MSG.auth:
@@ -187,6 +188,12 @@ export class Room {
       default:
         throw new CollabError('unknown_message', `unknown message type ${type}`);
     }
+  }
+
+  /** True when awareness client `id` belongs to a socket other than `conn`. */
+  private ownerOf(id: number, conn: Conn): boolean {
+    for (const other of this.conns.values()) if (other !== conn && other.clients.has(id)) return true;
+    return false;
   }
 
   private awarenessMessage(clients: number[]): Uint8Array {

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import WebSocket from 'ws';
+import * as encoding from 'lib0/encoding';
 import { startTestServer, type TestServer } from '../helpers/test-app';
 import { addPart, connect, deleteSelection, movePart, relabelPart } from '../../shared/board/edits';
 import { docToBoard } from '../../shared/board/ydoc';
@@ -117,6 +118,22 @@ describe('live board sync', () => {
     await Promise.all([a.synced, b.synced]);
     b.provider.awareness.setLocalState({ user: { id: editor.id, name: 'Editor', color: '#888' }, cursor: { x: 5, y: 6 }, selection: [] });
     await waitFor(() => [...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 5), 'a viewer cursor to arrive');
+    // a third socket cannot remove or move b's cursor by speaking for b's client id
+    const raw = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: owner.cookie } });
+    await new Promise((r) => raw.once('open', r));
+    const spoof = encoding.createEncoder();
+    encoding.writeVarUint(spoof, 1);
+    encoding.writeVarUint(spoof, b.doc.clientID);
+    encoding.writeVarUint(spoof, 1000);
+    encoding.writeVarString(spoof, JSON.stringify({ cursor: { x: 666, y: 0 } }));
+    const frame = encoding.createEncoder();
+    encoding.writeVarUint(frame, 1);
+    encoding.writeVarUint8Array(frame, encoding.toUint8Array(spoof));
+    raw.send(encoding.toUint8Array(frame));
+    b.provider.awareness.setLocalStateField('cursor', { x: 7, y: 6 });
+    await waitFor(() => a.provider.awareness.getStates().get(b.doc.clientID)?.cursor?.x === 7, 'b’s own next cursor');
+    expect([...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 666)).toBe(false);
+    raw.close();
   });
 });
 
