@@ -206,6 +206,16 @@ test('board files and pictures: import into a new board (errors name the bad ids
   await expect(page.getByTestId('part-s').locator('.gf-bulb')).toHaveAttribute('data-lit', 'true');
   await expect(page.getByTestId('part-c').locator('.gf-bulb')).toHaveAttribute('data-lit', 'false');
 
+  // Double-click renames a part in place; a label already in use is refused with the part that has it.
+  await page.getByTestId('part-s').dblclick();
+  await page.getByTestId('label-edit-s').fill('C');
+  await page.getByTestId('label-edit-s').press('Enter');
+  await expect(page.getByText('label "C" is already on c')).toBeVisible();
+  await page.getByTestId('part-s').dblclick();
+  await page.getByTestId('label-edit-s').fill('SUM');
+  await page.getByTestId('label-edit-s').press('Enter');
+  await expect(page.getByTestId('part-s').locator('.gf-label')).toHaveText('SUM');
+
   // R turns the selected gate a quarter turn: its box swaps width and height.
   const before = (await page.getByTestId('part-g2').boundingBox())!;
   await page.getByTestId('part-g2').click({ position: { x: 50, y: 30 } });
@@ -220,6 +230,7 @@ test('board files and pictures: import into a new board (errors name the bad ids
   expect(saved.parts.map((p) => p.id)).toEqual(['a', 'b', 'g1', 'g2', 's', 'c']);
   expect(saved.parts[0]).toMatchObject({ id: 'a', on: true });
   expect(saved.parts[3]).toMatchObject({ id: 'g2', rotation: 90 });
+  expect(saved.parts[4]).toMatchObject({ id: 's', label: 'SUM' });
   expect(saved.wires).toEqual(HALF_ADDER.wires);
 
   // PNG (its 8-byte signature, from the PNG specification, ISO/IEC 15948) and SVG pictures.

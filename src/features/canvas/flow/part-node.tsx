@@ -3,7 +3,7 @@
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */
-import { memo, useMemo } from 'react';
+import { memo, useMemo, useState } from 'react';
 import { Handle, Position, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board/validate';
 import type { Level } from '../../../../shared/sim/levels';
@@ -11,6 +11,7 @@ import { levelColor } from '../lib/colors';
 import { placedShape, rotationTransform, type Side } from '../lib/geometry';
 import { PartSymbol } from '../symbols';
 import { NoteSymbol } from '../symbols/note-symbol';
+import { PartLabel } from './label-editor';
 import type { PartNode } from './types';
 
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
@@ -19,6 +20,7 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const { part, levels, shown, badge, highlight, remoteColor, readOnly } = data;
   const shape = useMemo(() => placedShape(part), [part]);
   const pinNames = useMemo(() => allPins(part), [part]);
+  const [renaming, setRenaming] = useState(false);
   const level = (pin: string): Level | undefined => {
     const c = levels[pinNames.indexOf(pin)];
     return c === '0' || c === '1' || c === 'X' || c === 'Z' ? c : undefined;
@@ -29,8 +31,9 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const outline = remoteColor && !selected ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
   return (
     <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
-      style={{ width: shape.w, height: shape.h, ...outline }}>
-      {part.label ? <div className="gf-label">{part.label}</div> : null}
+      style={{ width: shape.w, height: shape.h, ...outline }}
+      onDoubleClick={part.kind === 'note' || readOnly ? undefined : (e) => { e.stopPropagation(); setRenaming(true); }}>
+      <PartLabel partId={part.id} label={part.label} editing={renaming} onDone={() => setRenaming(false)} />
       {part.kind === 'note' ? (
         <NoteSymbol part={part} />
       ) : (

@@ -13,6 +13,7 @@ import { connect, movePart, relabelPart, setPartField } from '../../../../shared
 import { partsMap } from '../../../../shared/board/ydoc';
 import { INK, SIGNAL } from '../lib/colors';
 import { GRID, snap } from '../lib/geometry';
+import { labelProblem } from '../lib/labels';
 import type { TrayChoice } from '../lib/new-part';
 import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
@@ -105,7 +106,10 @@ export function BenchCanvas(props: BenchCanvasProps) {
       },
       relabel: (id, label) => {
         const s = live.current.session;
-        if (!s.readOnly) try { relabelPart(s.doc, id, label, s.origin); } catch (err) { fail(err); }
+        if (s.readOnly) return;
+        const problem = labelProblem(s.board, id, label);
+        if (problem) { toast.error(problem); return; }
+        try { relabelPart(s.doc, id, label, s.origin); } catch (err) { fail(err); }
       },
     };
   }, []);
@@ -200,7 +204,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
             </ControlButton>
           </Controls>
           {showMap && (
-            <MiniMap pannable zoomable position="bottom-right" nodeColor={minimapColor} maskColor="rgba(13,16,20,0.7)"
+            <MiniMap pannable zoomable position="bottom-right" nodeColor={minimapColor} maskColor="rgba(13,16,20,0.7)" style={{ width: 160, height: 110 }}
               bgColor="#12161c" nodeStrokeWidth={0} />
           )}
           <RemoteCursors peers={peers.peers} />
