@@ -30,6 +30,13 @@ async function main(argv: string[]): Promise<number> {
   return 0;
 }
 
+// a reader that stops early (`… | head`) closes the pipe: end quietly instead of printing a stack
+process.stdout.on('error', (err: NodeJS.ErrnoException) => {
+  if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+  process.stderr.write(`error: cannot write output (${err.code ?? err.message})\n`);
+  process.exit(1);
+});
+
 main(process.argv.slice(2)).then(
   (code) => { process.exitCode = code; },
   (err: unknown) => {

@@ -282,10 +282,12 @@ export class Simulator {
   /**
    * Runs until nothing changes, or until the event budget is spent: then watches a little longer and
    * names the nets that keep changing (oscillating). Clocks do not run here (see runFor).
+   * `eventBudget` overrides the simulator's budget for this call.
    */
-  settle(): SettleReport {
+  settle(opts: { eventBudget?: number } = {}): SettleReport {
     this.stats.settles++;
     this.races = new Set();
+    const budget = opts.eventBudget ?? this.budget;
     const start = this.stats.events;
     const window = Math.max(256, 4 * this.netVal.length);
     let settled = true;
@@ -294,8 +296,8 @@ export class Simulator {
       const t = this.nextTime();
       if (t === Infinity) break;
       const spent = this.stats.events - start;
-      if (!this.observing && spent >= this.budget) { this.observing = true; this.seenCount = 0; }
-      if (this.observing && spent >= this.budget + window) { settled = false; break; }
+      if (!this.observing && spent >= budget) { this.observing = true; this.seenCount = 0; }
+      if (this.observing && spent >= budget + window) { settled = false; break; }
       this.advance(t);
     }
     const oscillating: string[] = [];

@@ -13,6 +13,7 @@ import { CliError } from '../errors';
 import type { CliCommand } from './types';
 
 const MAX_CYCLES = 100_000;
+const OSCILLATING_BUDGET = 2_000;
 
 function inputByLabel(netlist: Netlist, label: string, flag: string): CompiledPart {
   const part = netlist.inputs.find((p) => p.name === label);
@@ -86,10 +87,12 @@ export const simulate: CliCommand = {
     const d = familyDelays(board.family);
     const period = clock?.part.kind === 'clock' && clock.part.period ? clock.part.period : DEFAULT_CLOCK_PERIOD_GATE_DELAYS * Math.max(d.rise, d.fall);
     const half = Math.max(1, Math.round(period / 2));
+    // once the board is known to oscillate, later settles get a small budget so long runs stay quick
+    const budget = () => (settled ? undefined : OSCILLATING_BUDGET);
     const phase = (level: 0 | 1) => {
       const start = sim.time;
       sim.setInput(clock!.id, level);
-      report = sim.settle();
+      report = sim.settle({ eventBudget: budget() });
       absorb();
       if (sim.time < start + half) sim.runFor(start + half - sim.time, { clocks: false });
     };
