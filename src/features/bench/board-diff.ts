@@ -9,11 +9,18 @@ const NON_STRUCTURAL = new Set(['x', 'y', 'rotation', 'text', 'on', 'pressed']);
  * every stored bit — and only set the new input values.
  */
 export function structureKey(board: BoardFile): string {
-  const parts = board.parts
-    .filter((p) => p.kind !== 'note')
-    .map((p) => Object.entries(p).filter(([k]) => !NON_STRUCTURAL.has(k)).sort(([a], [b]) => (a < b ? -1 : 1)));
-  const wires = board.wires.map((w) => [w.from, w.to]);
-  return JSON.stringify([board.family, parts, wires]);
+  // Plain string building: this runs on every board change, and JSON with sorted keys cost ~80 ms for
+  // 5000 parts. Field order comes from the schema; a different order only costs one extra recompile.
+  let key = board.family;
+  for (const part of board.parts) {
+    if (part.kind === 'note') continue;
+    key += '\u0001';
+    for (const field in part) {
+      if (!NON_STRUCTURAL.has(field)) key += `${field}=${String((part as Record<string, unknown>)[field])};`;
+    }
+  }
+  for (const w of board.wires) key += `\u0002${w.from}>${w.to}`;
+  return key;
 }
 
 /** The value a document gives an input part (switch `on`, button `pressed`), undefined for other kinds. */

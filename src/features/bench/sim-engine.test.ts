@@ -2,8 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { BoardFileSchema, type BoardFile } from '../../../shared/board';
 import type { Level } from '../../../shared/sim/levels';
 import { debouncedDffBoard } from './fixtures/debounced-dff';
-import { decodeLevels, type FromWorker } from './protocol';
-import { BenchEngine } from './sim-engine';
+import { compileBoard, Simulator } from '../../../shared/sim';
+import { decodeLevels, encodeLevels, type FromWorker } from './protocol';
+import { BenchEngine, packLevels } from './sim-engine';
 import type { Timers } from './clock-driver';
 
 type Compiled = Extract<FromWorker, { type: 'compiled' }>;
@@ -193,6 +194,21 @@ describe('BenchEngine', () => {
     times.forEach((t) => expect(t).toBeGreaterThan(before));
     h.engine.handle({ type: 'subscribe', signals: ['S', 'C'] });
     expect(h.last().traceReset).toEqual({ signals: ['S', 'C'], at: h.last().time });
+  });
+
+  it('packs pin levels exactly as the Simulator reports them pin by pin', () => {
+    const boards = [halfAdder({ a: true }), debouncedDffBoard(), BoardFileSchema.parse({
+      format: 'gatefold-board', version: 1, title: 'Open inputs', family: 'ttl-74ls',
+      parts: [{ id: 'g', kind: 'nand', inputs: 3 }, { id: 'l', kind: 'lamp', label: 'L' }, { id: 'p', kind: 'probe', label: 'P' }],
+      wires: [{ id: 'w1', from: 'g.out', to: 'l.in' }],
+    })];
+    for (const board of boards) {
+      const netlist = compileBoard(board);
+      const sim = new Simulator(netlist);
+      sim.settle();
+      const keys = netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`));
+      expect(Array.from(packLevels(netlist, sim))).toEqual(Array.from(encodeLevels(keys, sim.levels())));
+    }
   });
 
   it('answers a bad message with a clear error and keeps working', () => {

@@ -1,4 +1,4 @@
-import type { BoardFile, Part } from '../../../shared/board';
+import { isOutputKind, type BoardFile, type Part } from '../../../shared/board';
 import { compileBoard, DEFAULT_CLOCK_PERIOD_GATE_DELAYS, Simulator } from '../../../shared/sim';
 import { familyOf } from '../../../shared/sim/families';
 import type { Level } from '../../../shared/sim/levels';
@@ -6,7 +6,7 @@ import type { Netlist, SettleReport } from '../../../shared/sim/types';
 import { partBadges } from './badges';
 import { documentValue, structureKey } from './board-diff';
 import { ClockDriver, type Timers } from './clock-driver';
-import { encodeLevels, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+import { levelCode, type FromWorker, type PortInfo, type ToWorker } from './protocol';
 import { TraceRecorder } from './trace-recorder';
 
 /**
@@ -18,6 +18,28 @@ export function halfPeriod(netlist: Netlist): number {
   const clock = netlist.inputs.find((p) => p.part.kind === 'clock');
   const period = clock?.part.kind === 'clock' && clock.part.period ? clock.part.period : DEFAULT_CLOCK_PERIOD_GATE_DELAYS * slowest;
   return Math.max(1, Math.round(period / 2));
+}
+
+/**
+ * Level codes of every pin in the order of the `compiled.keys` (each part's input pins, then its output
+ * pins) — what `encodeLevels(keys, sim.levels())` gives, read straight from the nets: that map of
+ * strings cost ~50 ms a state for 5000 gates. As Simulator.pinLevel: an input pin on an undriven net
+ * reads the family's floating value, except on lamps and probes, which show the net (Z).
+ */
+export function packLevels(netlist: Netlist, sim: Simulator): Uint8Array {
+  const out = new Uint8Array(netlist.parts.reduce((n, p) => n + p.inputs.length + p.outputs.length, 0));
+  const floating = levelCode(sim.floating);
+  const z = levelCode('Z');
+  let k = 0;
+  for (const p of netlist.parts) {
+    const reads = !isOutputKind(p.kind);
+    for (const net of p.inputs) {
+      const c = levelCode(sim.level(net));
+      out[k++] = reads && c === z ? floating : c;
+    }
+    for (const net of p.outputs) out[k++] = levelCode(sim.level(net));
+  }
+  return out;
 }
 
 /** Wall time one clock tick may spend simulating. */
@@ -203,7 +225,7 @@ export class BenchEngine {
     const sim = this.sim;
     const netlist = this.netlist;
     if (!sim || !netlist || !this.board) return;
-    const levels = encodeLevels(this.keys, sim.levels());
+    const levels = packLevels(netlist, sim);
     const values: Record<string, Level> = {};
     for (const p of netlist.inputs) values[p.id] = sim.pinLevel(p.id, 'out');
     for (const p of netlist.outputs) values[p.id] = sim.pinLevel(p.id, 'in');
