@@ -62,6 +62,9 @@ describe('BenchEngine', () => {
     expect([h.last().values.s, h.last().values.c]).toEqual(['1', '0']);
   });
 
+  // Six-gate edge-triggered D flip-flop of NANDs, the structure of the 7474 logic diagram (source: NJIT
+  // Digital Commons "dld-animations" 84, Fig. 6.18, 2023): Q takes D on the rising clock edge, and changing
+  // D while the clock is high or low does not change Q. Debouncer: a stability-window filter (common practice, no source).
   it('clocks the debounced gate flip-flop from the bouncy button: one press, one edge, Q takes D', () => {
     const h = harness();
     const board = debouncedDffBoard();
