@@ -21,7 +21,10 @@ export interface MinimalCovers {
 
 export interface MinimiseOptions {
   exactLimit?: number;
+  /** products Petrick's expansion may keep before the depth-first search takes over */
   budget?: number;
+  /** steps of the depth-first search before it settles for the best cover found (not proven minimal) */
+  work?: number;
   maxCovers?: number;
 }
 
@@ -45,7 +48,7 @@ export function minimiseOnes(n: number, fn: FunctionRows, opts: MinimiseOptions 
     const pick = greedyCover(clauses, primes.map(literals));
     return { covers: [order(pick.map((i) => primes[i]))], exact: false, truncated: false, note: 'too many prime implicants: greedy cover, not proven minimal' };
   }
-  const sel = selectCovers(primes, care, { budget: opts.budget, maxCovers: opts.maxCovers });
+  const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work, maxCovers: opts.maxCovers });
   const covers = sel.covers.map((c) => order(c.map((i) => primes[i])));
   return { covers: dedupeOrder(covers, n), exact: sel.exact, truncated: sel.truncated, note: sel.note };
 }

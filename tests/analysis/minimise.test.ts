@@ -75,6 +75,15 @@ describe('minimalForms', () => {
     col.forEach((v, m) => expect(v ? 1 : 0).toBe(fn[m]));
   });
 
+  it('says so when the exact search runs out of budget, and still gives a correct cover', () => {
+    // the cyclic example again (common practice, textbook classic), with no room to search
+    const fn = rows(3, [0, 1, 2, 5, 6, 7]);
+    const { forms } = minimalForms(['A', 'B', 'C'], fn, { budget: 1, work: 1 });
+    expect(forms.exact).toBe(false);
+    expect(forms.note).toMatch(/not proven minimal/);
+    expect(satEquivalentOnCare(forms.sop, ['A', 'B', 'C'], [0, 1, 2, 5, 6, 7], [])).toBe(true);
+  });
+
   it('labels a heuristic cover of more than 12 inputs as not proven minimal and keeps it correct', () => {
     const names = Array.from({ length: 14 }, (_, i) => `I${i}`);
     const fn = new Uint8Array(1 << 14);

@@ -27,6 +27,17 @@ describe('truth tables with stored state', () => {
   });
 });
 
+describe('inputs not enumerated', () => {
+  // CONTRACTS §2: inputs not chosen are held at their board values; with B on, S = A XOR 1 = ~A.
+  it('holds them at their board values', () => {
+    const board = buildBoard('Half adder', ['A', 'B'], [{ id: 'x', kind: 'xor', ins: ['A', 'B'] }], { S: 'x' });
+    const on = { ...board, parts: board.parts.map((p) => (p.id === 'sw_B' && p.kind === 'switch' ? { ...p, on: true } : p)) };
+    const result = analyzeBoard(on, { inputs: ['A'] });
+    expect(result.rows).toEqual([{ in: '0', out: '1' }, { in: '1', out: '0' }]);
+    expect(result.outputsInfo.S.sop).toBe('~A');
+  });
+});
+
 describe('four values', () => {
   // An undriven net is Z; an ideal-family reader of it sees X (CONTRACTS §1; common practice, no source).
   it('reads Z on an unconnected lamp and X after a floating gate input', () => {

@@ -32,5 +32,9 @@ describe('runAnalysis (the worker job)', () => {
     expect(logicKey(moved)).toBe(logicKey(board));
     const rewired = { ...board, wires: board.wires.slice(1) };
     expect(logicKey(rewired)).not.toBe(logicKey(board));
+    // flipping an enumerated switch changes nothing in the table; a switch held at its value does
+    const flipped = { ...board, parts: board.parts.map((p) => (p.id === 'a' ? { ...p, on: true } : p)) };
+    expect(logicKey(flipped)).toBe(logicKey(board));
+    expect(logicKey(flipped, ['B'])).not.toBe(logicKey(board, ['B']));
   });
 });

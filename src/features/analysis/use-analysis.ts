@@ -15,10 +15,20 @@ export type AnalysisStatus = 'waiting' | 'running' | 'done' | 'error' | 'cancell
 /** Wait after the last edit before recomputing, so a drag or a burst of typing runs one analysis. */
 export const ANALYSIS_DEBOUNCE_MS = 100;
 
-/** The part of a board that decides its logic: positions, rotations and notes do not. */
-export function logicKey(board: BoardFile): string {
+/**
+ * The part of a board that decides its table: positions, rotations and notes do not, nor the
+ * positions of the switches and buttons being enumerated (`chosen` labels; undefined = the default,
+ * every switch and button) — flipping one of those must not recompute a million rows.
+ */
+export function logicKey(board: BoardFile, chosen?: readonly string[]): string {
+  const enumerated = (p: BoardFile['parts'][number]) =>
+    (p.kind === 'switch' || p.kind === 'button') && (chosen === undefined || chosen.includes(p.label || p.id));
   const parts = board.parts.filter((p) => p.kind !== 'note').map((p) => {
     const { x: _x, y: _y, rotation: _r, ...rest } = p;
+    if (enumerated(p)) {
+      const { on: _on, pressed: _pressed, ...fixed } = rest as typeof rest & { on?: boolean; pressed?: boolean };
+      return fixed;
+    }
     return rest;
   });
   return JSON.stringify([board.family, parts, board.wires.map((w) => [w.from, w.to])]);
@@ -38,7 +48,7 @@ export function useAnalysis(board: BoardFile) {
   const [error, setError] = useState<string | null>(null);
   const [focus, setFocus] = useState<string | null>(null);
   const [runCount, setRunCount] = useState(0);
-  const key = useMemo(() => logicKey(board), [board]);
+  const key = useMemo(() => logicKey(board, choices.inputs), [board, choices.inputs]);
   const boardRef = useRef(board);
   boardRef.current = board;
 
