@@ -5,7 +5,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { rippleCounter, norSrLatch } from '../sim/circuits';
+import { rippleCounter, norSrLatch, ringOscillator } from '../sim/circuits';
 import { readVcd } from '../sim/vcd-read';
 import { runCli } from './run-cli';
 
@@ -81,6 +81,18 @@ describe('simulate', () => {
     const out = JSON.parse(r.stdout);
     expect(out.settled).toBe(false);
     expect(out.oscillating.sort()).toEqual(['Q', 'QN']);
+  });
+
+  it('clocks an oscillating board for many cycles quickly and names the ring nets', async () => {
+    // ring oscillator: N (odd) inverting stages never settle (Rabaey et al. 2003, from memory)
+    const board = ringOscillator(3).part({ id: 'ck', kind: 'clock', label: 'CLK' }).board();
+    const started = Date.now();
+    const r = await runCli(['simulate', file('ring.gatefold.json', board), '--set', 'EN=1', '--clock', 'CLK', '--cycles', '500']);
+    const out = JSON.parse(r.stdout);
+    expect(out.settled).toBe(false);
+    expect(out.oscillating.sort()).toEqual(['Y', 'r0_out', 'r1_out']);
+    expect(out.trace).toHaveLength(500);
+    expect(Date.now() - started).toBeLessThan(20_000);
   });
 
   it('adds the safety caution for a tube board and defers to local codes', async () => {
