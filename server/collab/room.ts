@@ -4,9 +4,8 @@ import * as awarenessProtocol from 'y-protocols/awareness';
 import * as encoding from 'lib0/encoding';
 import * as decoding from 'lib0/decoding';
 import { WebSocket } from 'ws';
-import { nowIso } from '../db/knex';
-import type { NewBoardUpdate } from '../db/board-updates';
-import { ServerOrigin, appendBoardChanges, boardStillExists, compactBoardRows, recordBoardMeta } from '../services/board-docs';
+import { ServerOrigin, recordBoardMeta } from '../services/board-docs';
+import { UpdateLog } from './update-log';
 import { metaMap } from '../../shared/board/ydoc';
 import { repairBoard } from '../../shared/board/edits';
 import { MSG, SYNC, awarenessClients } from './protocol';
@@ -28,19 +27,18 @@ export interface Conn {
 export class Room {
   readonly conns = new Map<WebSocket, Conn>();
   readonly awareness: awarenessProtocol.Awareness;
-  private pending: NewBoardUpdate[] = [];
-  private writing: Promise<void> = Promise.resolve();
-  private discarded = false;
+  private readonly log: UpdateLog;
   private destroyed = false;
 
   constructor(
     private readonly ctx: CollabContext,
     readonly boardId: number,
     readonly doc: Y.Doc,
-    private seq: number,
-    private rows: number,
-    private readonly options: () => CollabOptions,
+    seq: number,
+    rows: number,
+    options: () => CollabOptions,
   ) {
+    this.log = new UpdateLog(ctx, boardId, doc, seq, rows, () => options().compactThreshold);
     this.awareness = new awarenessProtocol.Awareness(doc);
     this.awareness.setLocalState(null);
     doc.on('update', this.onDocUpdate);
@@ -58,21 +56,20 @@ export class Room {
     if (!this.conns.has(tr.origin as WebSocket)) return;
     const lists = new Set<unknown>([this.doc.getMap('parts'), this.doc.getMap('wires')]);
     const touched = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || keys.has('inputs') || (lists.has(type) && keys.size > 0));
-    if (touched) queueMicrotask(() => !this.discarded && !this.destroyed && repairBoard(this.doc, new ServerOrigin(null, 'repair')));
+    if (touched) queueMicrotask(() => !this.log.isDiscarded && !this.destroyed && repairBoard(this.doc, new ServerOrigin(null, 'repair')));
   };
 
   /** A collaborator renamed the board (or changed its family) on the canvas: the board row follows. */
   private onMetaChange = (_event: Y.YMapEvent<unknown>, tr: Y.Transaction): void => {
     if (tr.origin instanceof ServerOrigin || !this.conns.has(tr.origin as WebSocket)) return;
     const meta = metaMap(this.doc);
-    const done = recordBoardMeta(this.ctx, this.boardId, { title: meta.get('title'), family: meta.get('family') });
-    this.writing = this.writing.then(() => done).catch((err) => console.error(`collab: board ${this.boardId}: updating the board row failed:`, err));
+    const next = { title: meta.get('title'), family: meta.get('family') };
+    this.log.after(() => recordBoardMeta(this.ctx, this.boardId, next), 'updating the board row');
   };
 
   private onDocUpdate = (update: Uint8Array, origin: unknown): void => {
     const userId = origin instanceof ServerOrigin ? origin.userId : (this.conns.get(origin as WebSocket)?.peer.userId ?? null);
-    this.pending.push({ seq: ++this.seq, data: update, userId, createdAt: nowIso() });
-    void this.flush();
+    this.log.append(update, userId);
     const enc = encoding.createEncoder();
     encoding.writeVarUint(enc, MSG.sync);
     syncProtocol.writeUpdate(enc, update);
@@ -95,30 +92,9 @@ export class Room {
     this.broadcast(encoding.toUint8Array(enc), null);
   };
 
-  /** Writes every queued update, in order; compacts when the board has too many rows. */
+  /** Resolves when every applied update is in the database. */
   flush(): Promise<void> {
-    this.writing = this.writing.catch(() => undefined).then(async () => {
-      const batch = this.pending.splice(0);
-      if (!batch.length || this.discarded) return;
-      try {
-        await appendBoardChanges(this.ctx, this.boardId, batch);
-        this.rows += batch.length;
-      } catch (err) {
-        if (this.discarded || !(await boardStillExists(this.ctx, this.boardId).catch(() => true))) return this.discard();
-        // Nothing of the batch was written (one transaction): keep it for the next flush.
-        this.pending.unshift(...batch);
-        console.error(`collab: board ${this.boardId}: storing ${batch.length} update(s) failed; will retry:`, err);
-        return;
-      }
-      if (this.rows <= this.options().compactThreshold) return;
-      try {
-        await compactBoardRows(this.ctx, this.boardId, this.doc, batch[batch.length - 1].seq);
-        this.rows = 1;
-      } catch (err) {
-        console.error(`collab: board ${this.boardId}: compaction failed (the rows are kept):`, err);
-      }
-    });
-    return this.writing;
+    return this.log.flush();
   }
 
   /** Adds a socket: it gets our sync step 1 and everyone's awareness at once. */
@@ -221,8 +197,7 @@ export class Room {
 
   /** The board is gone: drop queued updates (their rows would have no board) and stop writing. */
   discard(): void {
-    this.discarded = true;
-    this.pending = [];
+    this.log.discard();
   }
 
   destroy(): void {
