@@ -50,6 +50,7 @@ describe('compileBoard', () => {
 
 describe('Simulator', () => {
   it('runs clocks free in runFor: a ripple counter counts one per period', () => {
+    // 4-bit ripple counter reads k mod 16 after k cycles (common practice, no source)
     const b = rippleCounter();
     const board = b.board();
     (board.parts[0] as { period?: number }).period = 20;
@@ -78,6 +79,7 @@ describe('Simulator', () => {
   });
 
   it('reports pin levels: an input pin reads the floating value, the net itself is Z', () => {
+    // an open TTL input reads high (from memory)
     const board = new BoardBuilder('ttl-74ls').part({ id: 'g', kind: 'not' }).lamp('y', 'Y', 'g.out').board();
     const sim = new Simulator(compileBoard(board));
     sim.settle();
@@ -99,6 +101,7 @@ describe('Simulator', () => {
   });
 
   it('a family option overrides the floating value and delays', () => {
+    // CMOS inputs must never float (TI application report SCBA004): a pull-down is assumed, reads low
     const board = new BoardBuilder().part({ id: 'g', kind: 'not' }).lamp('y', 'Y', 'g.out').board();
     const sim = new Simulator(compileBoard(board), { family: 'cmos-74hc' });
     const r = sim.settle();

@@ -105,6 +105,8 @@ describe('SR NOR latch of gates', () => {
   });
 });
 
+// Built-in parts: CONTRACTS §1 (power-on at init or 0); SR as the NOR latch above (textbook classic);
+// D latch transparent while enabled and rising-edge D flip-flop (common practice, no source).
 describe('built-in storage parts', () => {
   function storage(kind: 'srlatch' | 'dlatch' | 'dff', init?: 0 | 1) {
     const [a, b] = kind === 'srlatch' ? ['s', 'r'] : kind === 'dlatch' ? ['d', 'en'] : ['d', 'clk'];
