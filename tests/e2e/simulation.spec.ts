@@ -179,6 +179,9 @@ test('the bench clock steps and runs, a ring that will not settle pulses, a tube
   await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', n % 2 ? '1' : '0');
   await page.getByRole('button', { name: 'Clock cycles' }).click();
   await page.screenshot({ path: 'test-results/simulation-06-clock-cycles.png' });
+  expect(Number(await rises(page, 'CK').getAttribute('data-rises'))).toBeGreaterThan(6);
+  await page.getByTestId('timing-strip').getByRole('button', { name: 'Clear' }).click();
+  await expect(rises(page, 'CK')).toHaveAttribute('data-rises', '0');
 
   // enabling the ring: it never settles, its wires pulse and its gates carry a badge
   await bench.getByRole('button', { name: 'Switch EN' }).click();

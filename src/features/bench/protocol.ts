@@ -15,7 +15,9 @@ export type ToWorker =
   /** stored state back to power-on (storage parts to their init, gate loops to X) */
   | { type: 'reset-state' }
   /** signals (net names) the timing strip records from now on; rows already recorded keep their history */
-  | { type: 'subscribe'; signals: string[] };
+  | { type: 'subscribe'; signals: string[] }
+  /** forget the recording so far and record the same signals from now on */
+  | { type: 'clear-trace' };
 
 /** An input or output of the board as the bench lists it. */
 export interface PortInfo {
@@ -70,7 +72,7 @@ export type FromWorker =
       /** `partId.pin` keys of every pin on a net that does not settle (the canvas pulses them) */
       pulsing: string[];
       /** set when the rows changed (another choice of signals, a signal gone): rows that stay keep their history */
-      traceReset?: { signals: string[]; at: number };
+      traceReset?: { signals: string[]; at: number; fresh?: boolean };
     }
   | { type: 'error'; message: string };
 

@@ -197,6 +197,9 @@ describe('BenchEngine', () => {
     times.forEach((t) => expect(t).toBeGreaterThan(before));
     h.engine.handle({ type: 'subscribe', signals: ['S', 'C'] });
     expect(h.last().traceReset).toEqual({ signals: ['S', 'C'], at: h.last().time });
+    h.engine.handle({ type: 'clear-trace' });
+    expect(h.last().traceReset).toEqual({ signals: ['S', 'C'], at: h.last().time, fresh: true });
+    expect(h.last().trace).toEqual([0, h.last().time, 1, 1, h.last().time, 0]); // S = 1, C = 0 now
   });
 
   it('packs pin levels exactly as the Simulator reports them pin by pin', () => {

@@ -111,6 +111,9 @@ export class BenchEngine {
           this.report = this.sim.settle();
         }
         break;
+      case 'clear-trace':
+        if (this.sim && this.netlist) this.recorder.clear(this.netlist, this.sim.time, (net) => this.sim!.level(net));
+        break;
       case 'subscribe':
         this.recorder.subscribe(msg.signals);
         if (this.sim && this.netlist) this.recorder.attach(this.netlist, this.sim.time, (net) => this.sim!.level(net));

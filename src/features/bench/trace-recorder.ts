@@ -9,7 +9,8 @@ const TRACE_BUDGET = 3 * 60_000;
 export interface TraceBatch {
   trace: number[];
   edges: number[];
-  traceReset?: { signals: string[]; at: number };
+  /** new rows; with `fresh` the page drops everything it recorded */
+  traceReset?: { signals: string[]; at: number; fresh?: boolean };
 }
 
 /**
@@ -53,6 +54,14 @@ export class TraceRecorder {
       this.netRows.set(net, [...(this.netRows.get(net) ?? []), i]);
       this.trace.push(i, now, levelCode(level(net)));
     });
+  }
+
+  /** Starts the recording over at `time` with the current rows and their levels now. */
+  clear(netlist: Netlist, time: number, level: (net: number) => Level): void {
+    this.rows = [];
+    this.edges = [];
+    this.attach(netlist, time, level);
+    this.reset = { ...this.reset!, fresh: true };
   }
 
   /** A net changed (the Simulator's change listener). */

@@ -34,4 +34,12 @@ describe('applyTrace', () => {
     expect(next.trace.signals[0].changes).toEqual([{ t: 10, v: 'Z' }]);
     expect([next.trace.start, next.trace.edges]).toEqual([2, [4]]);
   });
+
+  it('drops everything on a fresh reset', () => {
+    const c = levelCode;
+    const first = applyTrace(emptyTrace(), { traceReset: { signals: ['A'], at: 0 }, trace: [0, 0, c('0'), 0, 5, c('1')], edges: [5], time: 8 }).trace;
+    const next = applyTrace(first, { traceReset: { signals: ['A'], at: 8, fresh: true }, trace: [0, 8, c('1')], edges: [], time: 8 }).trace;
+    expect(next.signals[0].changes).toEqual([{ t: 8, v: '1' }]);
+    expect([next.start, next.edges]).toEqual([8, []]);
+  });
 });

@@ -34,7 +34,8 @@ function regroup(trace: Trace, signals: string[], at: number): Trace {
 export function applyTrace(trace: Trace, msg: Pick<StateMsg, 'trace' | 'edges' | 'traceReset' | 'time'>): { trace: Trace; changed: boolean } {
   let changed = false;
   if (msg.traceReset) {
-    trace = regroup(trace, msg.traceReset.signals, msg.traceReset.at);
+    const { signals, at, fresh } = msg.traceReset;
+    trace = fresh ? emptyTrace(signals, at) : regroup(trace, signals, at);
     changed = true;
   }
   const { trace: flat } = msg;

@@ -159,6 +159,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
       available,
       chosen: signals,
       onChoose: setChosen,
+      onClear: () => send({ type: 'clear-trace' }),
       timeUnitNs: compiled?.timeUnitNs ?? 1,
       title: session.board.title,
     },

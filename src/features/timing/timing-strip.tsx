@@ -14,6 +14,8 @@ export interface TimingStripProps {
   available: SignalChoice[];
   chosen: string[];
   onChoose(names: string[]): void;
+  /** forget the recording so far */
+  onClear(): void;
   /** nanoseconds per simulated time unit of the board's family (for the VCD timescale) */
   timeUnitNs: number;
   title: string;
@@ -23,7 +25,7 @@ const INITIAL: Viewport = { start: 0, span: 400, follow: true };
 
 /** The timing strip: waveforms of chosen signals over simulated time, with zoom, cursor and export. */
 export function TimingStrip(props: TimingStripProps) {
-  const { trace, version, available, chosen, onChoose, timeUnitNs, title } = props;
+  const { trace, version, available, chosen, onChoose, onClear, timeUnitNs, title } = props;
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const wrapRef = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(800);
@@ -105,6 +107,8 @@ export function TimingStrip(props: TimingStripProps) {
         <button type="button" aria-label="Zoom in" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 0.5))}>+</button>
         <button type="button" aria-label="Zoom out" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 2))}>−</button>
         <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView({ start: trace.start, span: Math.max(8, (trace.end - trace.start) * 1.05), follow: false })}>Fit</button>
+        <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" title="Forget the recording so far"
+          onClick={() => { onClear(); setPinned(null); setView(INITIAL); }}>Clear</button>
         <label className="flex items-center gap-1">
           <input type="checkbox" checked={view.follow} onChange={(e) => setView({ ...shown, follow: e.target.checked })} /> Follow
         </label>
