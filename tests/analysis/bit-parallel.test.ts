@@ -27,10 +27,12 @@ describe('bit-parallel truth tables', () => {
 
   // Independent reference: Icarus Verilog (`iverilog`, `vvp`; CHECKS.md "Formats": "Icarus Verilog simulates
   // an exported netlist as an independent check") on the structural Verilog (IEEE Std 1364) of toVerilog.
+  // Open inputs included: IEEE Std 1364 gate primitives read z as x and a controlling value still wins,
+  // as ours do (an undriven lamp shows z / Z in both); see randomBoardArb's verilogSafe for the limits.
   it('agree with Icarus Verilog on the exported netlist', () => {
     const dir = mkdtempSync(join(tmpdir(), 'gatefold-iv-'));
     try {
-      fc.assert(fc.property(randomBoardArb({ maxInputs: 5, maxGates: 16 }), (board) => {
+      fc.assert(fc.property(randomBoardArb({ maxInputs: 5, maxGates: 16, loose: true, verilogSafe: true }), (board) => {
         const netlist = compileBoard(board);
         const table = enumerateTable(netlist, resolveSpec(netlist));
         const verilog = toVerilog(board, netlist);

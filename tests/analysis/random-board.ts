@@ -14,6 +14,12 @@ export interface RandomBoardOptions {
   maxGates?: number;
   /** leave some gate and lamp inputs unconnected (undriven nets) */
   loose?: boolean;
+  /**
+   * with `loose`: leave open only the second and later inputs of AND/OR/NAND/NOR/XOR/XNOR gates, and
+   * lamps. An event-driven Verilog simulator never evaluates a gate none of whose inputs ever changes
+   * (it keeps its initial z), and passes a selected open multiplexer input on as z where we read X.
+   */
+  verilogSafe?: boolean;
   /** sometimes wire a second gate output onto a gate's input net (a conflict) */
   conflicts?: boolean;
 }
@@ -50,7 +56,8 @@ export function randomBoardArb(opts: RandomBoardOptions = {}): fc.Arbitrary<Boar
       if (g.kind === 'not' || g.kind === 'buffer' || g.kind === 'mux2' || g.kind === 'mux4') parts.push({ ...base, kind: g.kind });
       else parts.push({ ...base, kind: g.kind, inputs: g.n });
       INPUT_PINS[g.kind](g.n).forEach((pin, p) => {
-        if (loose()) return;
+        const mayOpen = !opts.verilogSafe || (p > 0 && g.kind !== 'not' && g.kind !== 'buffer' && g.kind !== 'mux2' && g.kind !== 'mux4');
+        if (mayOpen && loose()) return;
         wires.push({ id: `w${gi}_${p}`, from: sources[g.picks[p] % sources.length], to: `${id}.${pin}` });
       });
       sources.push(`${id}.out`);
