@@ -150,6 +150,9 @@ export function attachCollab(server: Server, ctx: CollabContext): CollabHandle {
     for (const conn of room.conns.values()) {
       if (conn.peer.userId !== userId) continue;
       if (role === null) conn.ws.close(CLOSE.removed, 'removed from the board');
+      // A viewer made editor reconnects (the client does so by itself) so that the full sync runs again:
+      // edits of theirs the server ignored so far would otherwise leave later ones without their base.
+      else if (conn.peer.role === 'viewer' && role !== 'viewer') conn.ws.close(CLOSE.roleChanged, 'role changed');
       else conn.peer.role = role;
     }
   };

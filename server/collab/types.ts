@@ -57,6 +57,7 @@ export const CLOSE = {
   goingAway: 1001,
   invalidData: 1007,
   tooBig: 1009,
+  roleChanged: 4001,
   removed: 4403,
   boardDeleted: 4404,
 } as const;

@@ -111,6 +111,20 @@ describe('membership changes reach open sockets', () => {
     e.provider.disconnect();
   });
 
+  it('making a viewer an editor reconnects them, and then their edits count', async () => {
+    const boardId = await createBoard(server, owner);
+    await addMember(server, owner, boardId, viewer, 'viewer');
+    const o = open(boardId, owner);
+    const v = open(boardId, viewer);
+    await Promise.all([o.synced, v.synced]);
+    const closed = new Promise<number>((resolve) => v.provider.once('connection-close', (ev: { code: number } | null) => resolve(ev?.code ?? -1)));
+    expect((await api(server, 'PATCH', `/api/boards/${boardId}/members/${viewer.id}`, owner.cookie, { role: 'editor' })).status).toBe(200);
+    expect(await closed).toBe(4001);
+    await waitFor(() => v.provider.wsconnected && v.provider.synced, 'the reconnect');
+    addPart(v.doc, { id: 'now-editor', kind: 'lamp', label: 'E', x: 0, y: 0 }, ME);
+    await waitFor(() => o.doc.getMap('parts').has('now-editor'), 'the new editor’s edit');
+  });
+
   it('deleting the board closes its sockets', async () => {
     const boardId = await createBoard(server, owner);
     const o = open(boardId, owner);
