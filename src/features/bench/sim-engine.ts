@@ -58,7 +58,6 @@ export class BenchEngine {
   private current = new Map<string, Part>();
   private netlist: Netlist | null = null;
   private sim: Simulator | null = null;
-  private keys: string[] = [];
   private tryOut = new Map<string, boolean>();
   private applied = new Map<string, boolean>();
   private report: SettleReport = EMPTY_REPORT;
@@ -149,13 +148,13 @@ export class BenchEngine {
     this.applied.clear();
     this.clock.restart();
     this.lastEdgeAt = 0;
-    this.keys = netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`));
     this.half = halfPeriod(netlist);
     const port = (p: Netlist['parts'][number], pin: string): PortInfo => ({ partId: p.id, label: p.name, kind: p.kind, net: netlist.nets[netlist.netOf(p.id, pin)].name });
     const family = familyOf(board.family);
     this.post({
       type: 'compiled',
-      keys: this.keys,
+      // the order of packLevels
+      keys: netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`)),
       inputs: netlist.inputs.map((p) => port(p, 'out')),
       outputs: netlist.outputs.map((p) => port(p, 'in')),
       nets: netlist.nets.map((n) => n.name),

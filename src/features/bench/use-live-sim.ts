@@ -40,8 +40,8 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   const [chosen, setChosen] = useState<string[] | null>(null);
   const traceRef = useRef<Trace>(emptyTrace());
   const [traceVersion, setTraceVersion] = useState(0);
+  // the worker's copy must never lag a click, so the ref changes at once and the state follows
   const tryOutRef = useRef(tryOutValues);
-  tryOutRef.current = tryOutValues;
 
   const send = useCallback((msg: ToWorker) => worker.current?.postMessage(msg), []);
 
@@ -105,11 +105,14 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   }, [signalsKey, compiled, send]);
 
   const setTry = useCallback((partId: string, _field: 'on' | 'pressed', value: boolean) => {
-    setTryOutValues((m) => new Map(m).set(partId, value));
+    const next = new Map(tryOutRef.current).set(partId, value);
+    tryOutRef.current = next;
+    setTryOutValues(next);
     send({ type: 'set-input', partId, value });
   }, [send]);
   const clearTry = useCallback(() => {
-    setTryOutValues(new Map());
+    tryOutRef.current = new Map();
+    setTryOutValues(tryOutRef.current);
     send({ type: 'clear-try-out' });
   }, [send]);
 
