@@ -49,6 +49,15 @@ describe('four values', () => {
     expect(result.rows).toEqual([{ in: '0', out: '0Z' }, { in: '1', out: 'XZ' }]);
     expect(result.outputsInfo.Y.sop).toBe('0');
   });
+
+  // An open TTL input reads high (CHECKS.md "Logic families": from memory); shared/sim/families.ts decides it.
+  it('reads an open input by the board\'s logic family', () => {
+    const board = buildBoard('Open TTL input', ['A'], [{ id: 'g', kind: 'and', ins: ['A'] }], { Y: 'g' });
+    const ttl = { ...board, family: 'ttl-74ls' as const, parts: board.parts.map((p) => (p.id === 'g' ? { ...p, inputs: 2 } : p)) };
+    const result = analyzeBoard(ttl);
+    expect(result.rows).toEqual([{ in: '0', out: '0' }, { in: '1', out: '1' }]);
+    expect(result.outputsInfo.Y.sop).toBe('A');
+  });
 });
 
 describe('large tables', () => {
