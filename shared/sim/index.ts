@@ -20,4 +20,4 @@ export { Simulator, DEFAULT_CLOCK_PERIOD_GATE_DELAYS } from './simulator';
 export { FAMILIES, familyOf, familyDelays, type FamilyData } from './families';
 export { mulberry32 } from './bounce';
 export { toVcd, vcdId, timescaleFor, type VcdSignal, type VcdSample, type VcdOptions } from './vcd';
-export { toVerilog } from './verilog';
+export { toVerilog, type VerilogOptions } from './verilog';

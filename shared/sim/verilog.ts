@@ -6,6 +6,7 @@
  */
 import type { BoardFile } from '../board';
 import { familyOf } from './families';
+import { timescaleFor } from './vcd';
 import type { CompiledPart, Netlist } from './types';
 import { VerilogNames } from './verilog-names';
 
@@ -13,8 +14,17 @@ const PRIMITIVE: Partial<Record<CompiledPart['kind'], string>> = {
   and: 'and', or: 'or', nand: 'nand', nor: 'nor', xor: 'xor', xnor: 'xnor', not: 'not', buffer: 'buf',
 };
 
+/** Options of toVerilog. */
+export interface VerilogOptions {
+  /**
+   * Write each part's delays (`#(rise, fall)` in simulation time units) on its primitive or assign, so an
+   * event-driven Verilog simulator reproduces the timing; default false (zero-delay netlist).
+   */
+  delays?: boolean;
+}
+
 /** Verilog text of the board's netlist. */
-export function toVerilog(board: BoardFile, netlist: Netlist): string {
+export function toVerilog(board: BoardFile, netlist: Netlist, opts: VerilogOptions = {}): string {
   const names = new VerilogNames();
   // module names live in their own name space: the title never renames a port
   const moduleName = new VerilogNames().take(board.title.trim() ? board.title : 'gatefold_board', 'm_');
@@ -35,6 +45,8 @@ export function toVerilog(board: BoardFile, netlist: Netlist): string {
   const header = [...ports.values()];
   const lines: string[] = [];
   lines.push(`// Structural Verilog (IEEE Std 1364) exported by Gatefold: board "${board.title.replace(/[\r\n]/g, ' ')}", family ${netlist.family}`);
+  // one time unit of the simulator = one Verilog time unit, so `#(rise, fall)` means what the bench shows
+  lines.push(`\`timescale ${timescaleFor(familyOf(netlist.family).timeUnitNs).replace(' ', '')}/1ps`);
   const caution = familyOf(netlist.family).caution;
   if (caution) lines.push(`// CAUTION: ${caution}`);
   lines.push(`module ${moduleName} (${header.join(', ')});`);
@@ -51,11 +63,12 @@ export function toVerilog(board: BoardFile, netlist: Netlist): string {
     const read = netlist.nets[net].readers.some((r) => { const k = netlist.partById(r.part)?.kind; return k !== 'lamp' && k !== 'probe'; });
     if (read && (floating === '0' || floating === '1')) body.push(`  assign ${wire[net]} = 1'b${floating}; // open input: reads ${floating} in family ${netlist.family}`);
   }
-  for (const p of netlist.parts) body.push(...partLines(p, wire, ports, names, unused));
+  for (const p of netlist.parts) body.push(...partLines(p, wire, ports, names, unused, opts.delays ? `#(${p.rise}, ${p.fall}) ` : ''));
   return [...lines, ...body, 'endmodule', ''].join('\n');
 }
 
-function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, string>, names: VerilogNames, unused: (net: number) => boolean): string[] {
+function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, string>, names: VerilogNames,
+  unused: (net: number) => boolean, delay: string): string[] {
   const i = (k: number) => wire[p.inputs[k]];
   const o = (k: number) => wire[p.outputs[k]];
   const inst = () => names.take(`g_${p.id}`, 'g_');
@@ -73,11 +86,11 @@ function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, str
       return i(0) === port ? [] : [`  assign ${port} = ${i(0)};`];
     }
     case 'buffer': case 'not': case 'and': case 'or': case 'nand': case 'nor': case 'xor': case 'xnor':
-      return [`  ${PRIMITIVE[p.kind]} ${inst()} (${[o(0), ...p.inputs.map((_, k) => i(k))].join(', ')});`];
+      return [`  ${PRIMITIVE[p.kind]} ${delay}${inst()} (${[o(0), ...p.inputs.map((_, k) => i(k))].join(', ')});`];
     case 'mux2':
-      return [`  assign ${o(0)} = ${i(0)} ? ${i(2)} : ${i(1)};`];
+      return [`  assign ${delay}${o(0)} = ${i(0)} ? ${i(2)} : ${i(1)};`];
     case 'mux4':
-      return [`  assign ${o(0)} = ${i(1)} ? (${i(0)} ? ${i(5)} : ${i(4)}) : (${i(0)} ? ${i(3)} : ${i(2)});`];
+      return [`  assign ${delay}${o(0)} = ${i(1)} ? (${i(0)} ? ${i(5)} : ${i(4)}) : (${i(0)} ? ${i(3)} : ${i(2)});`];
     case 'srlatch': case 'dlatch': case 'dff': {
       const init = 'init' in p.part && p.part.init === 1 ? 1 : 0;
       const q = names.take(`${p.id}_q`, 'r_');
@@ -92,7 +105,7 @@ function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, str
           `    else if (${i(1)}) begin ${q} <= 1'b0; ${qn} <= 1'b1; end`,
           `    else if (${q} === 1'b0 && ${qn} === 1'b0) begin ${q} <= 1'bx; ${qn} <= 1'bx; end // released from 11: a race`);
       }
-      r.push(`  assign ${o(0)} = ${q};`, `  assign ${o(1)} = ${qn};`);
+      r.push(`  assign ${delay}${o(0)} = ${q};`, `  assign ${delay}${o(1)} = ${qn};`);
       return r;
     }
     case 'note':
