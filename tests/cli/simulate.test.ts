@@ -112,5 +112,9 @@ describe('export-verilog', () => {
     expect(r.stdout).toContain('output wire C;');
     expect(r.stdout).toMatch(/xor \w+ \(S, A, B\);/);
     expect(r.stdout.trim().endsWith('endmodule')).toBe(true);
+    expect(r.stdout).not.toContain('#(');
+    const timed = await runCli(['export-verilog', file('ha4.gatefold.json', { ...halfAdder, family: 'ttl-74ls' }), '--delays']);
+    expect(timed.stdout).toContain('`timescale 1ns/1ps');
+    expect(timed.stdout).toMatch(/xor #\(9, 10\) \w+ \(S, A, B\);/);
   });
 });

@@ -1,14 +1,17 @@
-/** `export-verilog FILE`: the board as one structural Verilog (IEEE Std 1364) module on stdout. */
+/**
+ * `export-verilog FILE [--delays]`: the board as one structural Verilog (IEEE Std 1364) module on stdout;
+ * `--delays` writes each part's rise/fall delays in the family's time unit.
+ */
 import { compileBoard, toVerilog } from '../../../shared/sim';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
 import type { CliCommand } from './types';
 
 export const exportVerilog: CliCommand = {
-  usage: 'export-verilog FILE',
+  usage: 'export-verilog FILE [--delays]',
   run(args, io) {
-    const { positionals } = parseCommandArgs(args, {});
+    const { positionals, values } = parseCommandArgs(args, { delays: { type: 'boolean' } });
     const board = readBoard(positionals[0]);
-    io.stdout(toVerilog(board, compileBoard(board)));
+    io.stdout(toVerilog(board, compileBoard(board), { delays: values.delays === true }));
   },
 };
