@@ -254,3 +254,32 @@ async function streamBytes(stream: NodeJS.ReadableStream): Promise<Buffer> {
 async function streamText(stream: NodeJS.ReadableStream): Promise<string> {
   return (await streamBytes(stream)).toString('utf8');
 }
+
+test('an editor who drops off the network keeps editing; the edits reach the others on reconnect', async ({ browser, gatefold }) => {
+  test.setTimeout(90_000);
+  const owner = await person(browser, gatefold.baseURL, OWNER);
+  const headers = { Origin: gatefold.baseURL };
+  const created = await owner.page.request.post('/api/boards', { data: { title: 'Debounced clock' }, headers });
+  const boardId = ((await created.json()) as { board: { id: number } }).board.id;
+  const editor = await person(browser, gatefold.baseURL, EDITOR);
+  await owner.page.request.post(`/api/boards/${boardId}/members`, { data: { email: EDITOR.email, role: 'editor' }, headers });
+  const o = owner.page;
+  const e = editor.page;
+  await openBoard(o, boardId);
+  await openBoard(e, boardId);
+
+  await editor.ctx.setOffline(true);
+  await expect(e.getByTestId('connection-status')).not.toHaveAttribute('data-status', 'live', { timeout: 20_000 });
+  await e.getByTestId('tray-nand').click();
+  await clickBench(e, 0.4, 0.4);
+  await expect.poll(() => partIds(e, 'g')).toHaveLength(1);
+  const [gate] = await partIds(e, 'g');
+  await o.waitForTimeout(1000);
+  await expect(o.getByTestId(`part-${gate}`)).toHaveCount(0);
+  await e.screenshot({ path: 'test-results/canvas-06-editor-offline.png' });
+
+  await editor.ctx.setOffline(false);
+  await expect(e.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 30_000 });
+  await expect(o.getByTestId(`part-${gate}`)).toBeVisible({ timeout: 15_000 });
+  for (const p of [owner, editor]) await p.ctx.close();
+});

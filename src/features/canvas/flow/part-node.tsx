@@ -4,7 +4,7 @@
  * Memoised: React Flow re-renders it only when its node object changes.
  */
 import { memo, useMemo, useState } from 'react';
-import { Handle, Position, type NodeProps } from '@xyflow/react';
+import { Handle, Position, useStore, type NodeProps, type ReactFlowState } from '@xyflow/react';
 import { allPins } from '../../../../shared/board/validate';
 import type { Level } from '../../../../shared/sim/levels';
 import { levelColor } from '../lib/colors';
@@ -14,6 +14,10 @@ import { NoteSymbol } from '../symbols/note-symbol';
 import { PartLabel } from './label-editor';
 import type { PartNode } from './types';
 
+/** Below this zoom a part is drawn as a plain box: a thousand detailed symbols cost whole frames to paint. */
+const DETAIL_ZOOM = 0.45;
+const zoomedOut = (s: ReactFlowState) => s.transform[2] < DETAIL_ZOOM;
+
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
 function PartNodeView({ data, selected }: NodeProps<PartNode>) {
@@ -21,6 +25,7 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const shape = useMemo(() => placedShape(part), [part]);
   const pinNames = useMemo(() => allPins(part), [part]);
   const [renaming, setRenaming] = useState(false);
+  const far = useStore(zoomedOut);
   const level = (pin: string): Level | undefined => {
     const c = levels[pinNames.indexOf(pin)];
     return c === '0' || c === '1' || c === 'X' || c === 'Z' ? c : undefined;
@@ -34,7 +39,9 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
       style={{ width: shape.w, height: shape.h, ...outline }}
       onDoubleClick={part.kind === 'note' || readOnly ? undefined : (e) => { e.stopPropagation(); setRenaming(true); }}>
       <PartLabel partId={part.id} label={part.label} editing={renaming} onDone={() => setRenaming(false)} />
-      {part.kind === 'note' ? (
+      {far ? (
+        <div className="gf-far" data-kind={part.kind} />
+      ) : part.kind === 'note' ? (
         <NoteSymbol part={part} />
       ) : (
         <svg width={shape.w} height={shape.h} viewBox={`0 0 ${shape.w} ${shape.h}`} className="gf-symbol" overflow="visible">
@@ -46,7 +53,7 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
       {shape.pins.map((spot) => (
         <Handle key={spot.pin} id={spot.pin} type={spot.output ? 'source' : 'target'} position={POSITION[spot.side]}
           isConnectable={!readOnly} data-testid={`pin-${part.id}-${spot.pin}`} title={`${part.id}.${spot.pin}`}
-          className={spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'}
+          className={`${spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'}${far ? ' gf-pin-far' : ''}`}
           style={{ left: spot.x, top: spot.y, right: 'auto', bottom: 'auto', transform: 'translate(-50%, -50%)', borderColor: levelColor(level(spot.pin)) }} />
       ))}
       {badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null}
