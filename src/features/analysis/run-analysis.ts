@@ -24,12 +24,16 @@ export async function runAnalysis(req: AnalysisRequest, opts: { onProgress?: (p:
   const forms: Record<string, OutputForms> = {};
   const terms: Record<string, OutputTerms> = {};
   const dcs: Record<string, Set<number>> = {};
-  table.outputs.forEach((name, o) => {
+  for (let o = 0; o < table.outputs.length; o++) {
+    // a big table's forms take a while per output: let a cancel in between
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    if (opts.signal?.aborted) { const e = new Error('analysis cancelled'); e.name = 'AbortError'; throw e; }
+    const name = table.outputs[o];
     dcs[name] = new Set((req.dontCares[name] ?? []).filter((r) => r < table.rowCount));
     const f = minimalForms(table.inputs, functionRows(table, o, dcs[name]));
     forms[name] = f.forms;
     terms[name] = f.terms;
-  });
+  }
   const select = req.select.filter((s) => table.inputs.includes(s));
   const cones: Record<string, string[]> = {};
   for (const p of netlist.outputs) cones[p.name] = [...fanInCone(netlist, [p.id])];
