@@ -19,7 +19,8 @@ export interface LiveSimSession {
 }
 
 type Compiled = Extract<FromWorker, { type: 'compiled' }>;
-type State = Extract<FromWorker, { type: 'state' }>;
+/** A state message with the pin keys of the compilation it belongs to. */
+type State = Extract<FromWorker, { type: 'state' }> & { keys: string[] };
 
 export interface PortValue extends PortInfo {
   value: Level;
@@ -48,10 +49,13 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   useEffect(() => {
     const w = new Worker(new URL('./sim-worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
+    // a state decodes with the keys of the compilation before it, even if React renders in between
+    let keys: string[] = [];
     w.onmessage = (e: MessageEvent<FromWorker>) => {
       const msg = e.data;
       switch (msg.type) {
         case 'compiled':
+          keys = msg.keys;
           setCompiled(msg);
           setError(null);
           break;
@@ -59,7 +63,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
           const next = applyTrace(traceRef.current, msg);
           traceRef.current = next.trace;
           if (next.changed) setTraceVersion((v) => v + 1);
-          setState(msg);
+          setState({ ...msg, keys });
           break;
         }
         case 'error':
@@ -125,7 +129,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
     else setPartField(session.doc, partId, field, value, session.origin);
   }, [session.board, session.doc, session.origin, tryOut, setTry]);
 
-  const levels = useMemo(() => (compiled && state ? decodeLevels(compiled.keys, state.levels) : new Map<string, Level>()), [compiled, state]);
+  const levels = useMemo(() => (state ? decodeLevels(state.keys, state.levels) : new Map<string, Level>()), [state]);
   const partBadges = useMemo(() => new Map<string, Badge>((state?.badges ?? []).map(([id, tone, text]) => [id, { tone, text }])), [state]);
   const pulsing = useMemo<ReadonlySet<string>>(() => new Set(state?.pulsing ?? []), [state]);
   const pulsingWires = useMemo(() => pulsingWireIds(session.board.wires, pulsing), [session.board.wires, pulsing]);
