@@ -12,6 +12,8 @@ const OWNER = { name: 'Mara Quinn', email: 'mara@larkspur.example', password: 'f
 const VIEWER = { name: 'Theo Brandt', email: 'theo@room14.example', password: 'slate-cool-0917' };
 
 const level = (page: Page, row: string) => page.getByTestId(row).locator('[data-level]').first();
+/** The lamp as the canvas draws it (lit or not). */
+const bulb = (page: Page, partId: string) => page.locator(`.react-flow__node[data-id="${partId}"] .gf-bulb`);
 const rises = (page: Page, signal: string) => page.locator(`[data-testid="timing-summary"][data-signal="${signal}"]`);
 
 test('a button press clocks the gate flip-flop on every screen; a viewer try-out stays private', async ({ page, browser, gatefold }) => {
@@ -44,6 +46,7 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
     await expect(level(p, 'bench-input-D')).toHaveAttribute('data-level', '1');
   }
   await expect(page.getByTestId('settle-status')).toContainText('Settled');
+  await expect(bulb(page, 'lamp_q')).toHaveAttribute('data-lit', 'false');
   await page.screenshot({ path: 'test-results/simulation-01-power-on.png' });
 
   // The owner holds the push button on the canvas for a moment, then lets go.
@@ -53,6 +56,7 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   await page.mouse.down();
   await expect(level(page, 'bench-input-STEP')).toHaveAttribute('data-level', '1');
   await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(bulb(page, 'lamp_q')).toHaveAttribute('data-lit', 'true');
   await page.screenshot({ path: 'test-results/simulation-02-pressed.png' });
   await page.waitForTimeout(300);
   await page.mouse.up();
@@ -87,6 +91,7 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
 
   // The press was a document edit: the viewer's simulation saw it too.
   await expect(level(viewer, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(bulb(viewer, 'lamp_q')).toHaveAttribute('data-lit', 'true');
   await expect(rises(viewer, 'CLK')).toHaveAttribute('data-rises', '1');
 
   // The viewer flips D on the canvas: a private try-out.
@@ -94,11 +99,13 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   await expect(viewer.getByTestId('try-out-chip')).toContainText('Try-out — only you see this');
   await expect(level(viewer, 'bench-input-D')).toHaveAttribute('data-level', '0');
   await expect(level(viewer, 'bench-output-CHG')).toHaveAttribute('data-level', '1');
+  await expect(bulb(viewer, 'lamp_chg')).toHaveAttribute('data-lit', 'true');
   await viewer.screenshot({ path: 'test-results/simulation-04-viewer-try-out.png' });
   await page.waitForTimeout(1000);
   await expect(level(page, 'bench-input-D')).toHaveAttribute('data-level', '1');
   await expect(level(page, 'bench-output-CHG')).toHaveAttribute('data-level', '0');
   await expect(level(page, 'bench-output-Q')).toHaveAttribute('data-level', '1');
+  await expect(bulb(page, 'lamp_chg')).toHaveAttribute('data-lit', 'false');
   await expect(page.getByTestId('try-out-chip')).toHaveCount(0);
   await page.screenshot({ path: 'test-results/simulation-05-owner-unchanged.png' });
 
