@@ -195,6 +195,9 @@ test('the bench clock steps and runs, a ring that will not settle pulses, a tube
   await expect(page.getByTestId('settle-status')).toContainText('Oscillating');
   await expect(page.getByTestId('net-pulse-style')).toHaveCount(1);
   expect(await page.getByTestId('net-pulse-style').textContent()).toContain('[data-id="w6"]');
+  const animation = (id: string) => page.locator(`.react-flow__edge[data-id="${id}"] .react-flow__edge-path`).evaluate((el) => getComputedStyle(el).animationName);
+  expect(await animation('w6')).toBe('gf-net-pulse');
+  expect(await animation('w1')).toBe('none'); // the clock's wire settles between edges
   await expect(page.getByTestId('badge-r2')).toHaveAttribute('title', /does not settle/);
   await page.screenshot({ path: 'test-results/simulation-07-oscillating.png' });
 
