@@ -1,10 +1,4 @@
-/**
- * Depth-first branch and bound over Petrick's function (the product over rows of the sums of their
- * primes), for cores too big to multiply out. Branches on the row with the fewest remaining primes;
- * branch i takes prime i and forbids primes 1..i-1, so no cover is reached twice. The bound is the cost
- * so far plus one prime per row in a set of rows that share no prime. Finds every cover of minimal cost
- * (fewest terms, then fewest literals), up to `maxCovers`, or gives up after `work` steps.
- */
+/** What the depth-first cover search found. */
 export interface SearchResult {
   covers: number[][];
   /** false when the work budget ran out: `covers` holds the best found, not proven minimal */
@@ -12,6 +6,13 @@ export interface SearchResult {
   truncated: boolean;
 }
 
+/**
+ * Depth-first branch and bound over Petrick's function (the product over rows of the sums of their
+ * primes), for cores too big to multiply out. Branches on the row with the fewest remaining primes;
+ * branch i takes prime i and forbids primes 1..i-1, so no cover is reached twice. The bound is the cost
+ * so far plus one prime per row in a set of rows that share no prime. Finds every cover of minimal cost
+ * (fewest terms, then fewest literals), up to `maxCovers`, or gives up after `work` steps.
+ */
 export function searchCovers(clauses: number[][], lits: number[], upper: { count: number; lits: number }, opts: { work: number; maxCovers: number }): SearchResult {
   const nPrimes = lits.length;
   const rowsOf: number[][] = Array.from({ length: nPrimes }, () => []);

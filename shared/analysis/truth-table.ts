@@ -25,6 +25,7 @@ export interface TruthTable {
 /** Progress of an enumeration. */
 export interface TableProgress { done: number; total: number }
 
+/** Options of the enumeration. */
 export interface EnumerateOptions {
   /** rows per chunk between progress reports (rounded to whole words; default 8,192) */
   chunkRows?: number;
