@@ -216,6 +216,21 @@ test('board files and pictures: import into a new board (errors name the bad ids
   await page.getByTestId('label-edit-s').press('Enter');
   await expect(page.getByTestId('part-s').locator('.gf-label')).toHaveText('SUM');
 
+  // Copy in this tab, paste in another tab: the fragment travels on the system clipboard.
+  await page.getByTestId('part-g1').click({ position: { x: 50, y: 30 } });
+  await page.keyboard.press('Control+c');
+  const other = await page.context().newPage();
+  await other.goto(page.url());
+  await expect(other.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
+  await expect(other.getByTestId('part-g1')).toBeVisible();
+  const obox = (await other.locator('.react-flow__pane').boundingBox())!;
+  await other.mouse.move(obox.x + obox.width * 0.5, obox.y + obox.height * 0.8);
+  await other.keyboard.press('Control+v');
+  await expect(page.locator('[data-kind="xor"]')).toHaveCount(2);
+  await other.keyboard.press('Control+z');
+  await expect(page.locator('[data-kind="xor"]')).toHaveCount(1);
+  await other.close();
+
   // R turns the selected gate a quarter turn: its box swaps width and height.
   const before = (await page.getByTestId('part-g2').boundingBox())!;
   await page.getByTestId('part-g2').click({ position: { x: 50, y: 30 } });

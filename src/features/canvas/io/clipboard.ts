@@ -1,20 +1,21 @@
 /**
- * The bench clipboard holds a board-file FRAGMENT as JSON text, on the system clipboard when the
- * browser allows it (so pasting works between boards, tabs and windows) and always in memory too.
+ * The bench clipboard holds a board-file FRAGMENT as JSON text: on the system clipboard through the
+ * browser's copy/paste events (so pasting works between boards, tabs and windows; see
+ * use-bench-commands) and always in this tab's memory too.
  */
 import { FragmentSchema, type Fragment } from '../../../../shared/board/schema';
 
 let memory: string | null = null;
 
-/** Puts a fragment on the clipboard. */
-export async function writeFragment(fragment: Fragment): Promise<void> {
-  const text = JSON.stringify(fragment);
-  memory = text;
-  try {
-    await navigator.clipboard?.writeText(text);
-  } catch {
-    // No permission (or no secure context): the in-memory copy still serves this tab.
-  }
+/** Keeps a fragment in this tab's memory (the fallback when the system clipboard is out of reach). */
+export function rememberFragment(fragment: Fragment): string {
+  memory = JSON.stringify(fragment);
+  return memory;
+}
+
+/** The fragment in this tab's memory, if any. */
+export function rememberedFragment(): Fragment | null {
+  return parseFragment(memory);
 }
 
 /** Parses clipboard text into a fragment, or null when it is not one. */
@@ -26,18 +27,6 @@ export function parseFragment(text: string | null | undefined): Fragment | null 
   } catch {
     return null;
   }
-}
-
-/** The fragment on the clipboard: the system clipboard's if it holds one, else the in-memory copy. */
-export async function readFragment(): Promise<Fragment | null> {
-  try {
-    const text = await navigator.clipboard?.readText();
-    const fromSystem = parseFragment(text);
-    if (fromSystem) return fromSystem;
-  } catch {
-    // Reading needs a permission the page may not have; fall back to memory.
-  }
-  return parseFragment(memory);
 }
 
 /** Top-left corner of a fragment's parts (to paste it where the pointer is). */

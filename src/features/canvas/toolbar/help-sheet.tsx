@@ -22,6 +22,7 @@ export function HelpSheet({ onClose, readOnly }: { onClose(): void; readOnly: bo
         </table>
         <p className="mt-3 text-[11px] text-slate-500">
           Wire by dragging from one pin to another. An input pin takes one wire; joining two outputs is allowed but warned about.
+          Double-click a part to rename it; click a switch to flip it; hold a push button down. Shift-drag selects a box.
           {readOnly ? ' You are viewing: switches and buttons change only your own view (try-out).' : ''}
         </p>
       </div>

@@ -5,7 +5,8 @@
 import { useCallback, useEffect, useRef } from 'react';
 import { toast } from 'sonner';
 import { addPart, copyFragment, deleteSelection, pasteFragment, rotateParts } from '../../../../shared/board/edits';
-import { fragmentOrigin, readFragment, writeFragment } from '../io/clipboard';
+import { fragmentOrigin, parseFragment, rememberFragment, rememberedFragment } from '../io/clipboard';
+import type { Fragment } from '../../../../shared/board/schema';
 import { snap } from '../lib/geometry';
 import { newPart, type TrayChoice } from '../lib/new-part';
 import { commandOf, type CommandName } from '../toolbar/shortcuts';
@@ -35,16 +36,22 @@ export function useBenchCommands(deps: Deps) {
 
   const selectedIds = () => ref.current.nodes.filter((n) => n.selected).map((n) => n.id);
 
-  const paste = useCallback(async (shift?: { x: number; y: number }) => {
+  const paste = useCallback((fragment: Fragment | null, shift?: { x: number; y: number }) => {
     const { session, pointer, selectOnly } = ref.current;
     if (session.readOnly) return;
-    const fragment = await readFragment();
     if (!fragment || !fragment.parts.length) { toast.message('Nothing to paste: copy some parts first'); return; }
     const o = fragmentOrigin(fragment);
     const at = shift ? { x: o.x + shift.x, y: o.y + shift.y } : pointer.current ?? { x: o.x + 40, y: o.y + 40 };
     const offset = { x: snap(at.x - o.x), y: snap(at.y - o.y) };
     const { partIds } = pasteFragment(session.doc, fragment, offset, session.origin);
     selectOnly(partIds);
+  }, []);
+
+  /** The selection as a fragment (also kept in memory), or null when nothing is selected. */
+  const copySelection = useCallback((): string | null => {
+    const ids = selectedIds();
+    if (!ids.length) return null;
+    return rememberFragment(copyFragment(ref.current.session.doc, ids));
   }, []);
 
   const run = useCallback((command: CommandName) => {
@@ -59,12 +66,10 @@ export function useBenchCommands(deps: Deps) {
         return;
       }
       case 'copy': {
-        const ids = selectedIds();
-        if (!ids.length) return;
-        void writeFragment(copyFragment(session.doc, ids)).then(() => toast.message(`Copied ${ids.length} part${ids.length === 1 ? '' : 's'}`));
+        if (copySelection()) toast.message(`Copied ${selectedIds().length} part(s)`);
         return;
       }
-      case 'paste': void paste(); return;
+      case 'paste': paste(rememberedFragment()); return;
       case 'duplicate': {
         if (!editing) return;
         const ids = selectedIds();
@@ -88,7 +93,7 @@ export function useBenchCommands(deps: Deps) {
         throw new Error(`unknown command ${String(never)}`);
       }
     }
-  }, [paste]);
+  }, [paste, copySelection]);
 
   const place = useCallback((choice: TrayChoice, at: { x: number; y: number }) => {
     const { session, selectOnly } = ref.current;
@@ -102,19 +107,52 @@ export function useBenchCommands(deps: Deps) {
     }
   }, []);
 
+  // Copy and paste ride on the browser's own copy/paste events, whose clipboard needs no permission and
+  // reaches other tabs, windows and boards; the in-memory copy covers a browser that sends no event.
   useEffect(() => {
+    let pasteFallback: ReturnType<typeof setTimeout> | null = null;
     const onKey = (e: KeyboardEvent) => {
       if (isEditable(e.target)) return;
       const command = commandOf(e);
       if (!command) return;
-      // Leave the browser's own copy alone when the user has selected text somewhere.
-      if (command === 'copy' && String(window.getSelection() ?? '').length > 0) return;
+      if (command === 'copy') {
+        if (String(window.getSelection() ?? '').length > 0) return; // the user is copying text
+        copySelection(); // the copy event (if the browser sends one) puts it on the system clipboard
+        return;
+      }
+      if (command === 'paste') {
+        if (pasteFallback) clearTimeout(pasteFallback);
+        pasteFallback = setTimeout(() => { pasteFallback = null; paste(rememberedFragment()); }, 120);
+        return;
+      }
       e.preventDefault();
       run(command);
     };
+    const onCopy = (e: ClipboardEvent) => {
+      if (isEditable(e.target) || String(window.getSelection() ?? '').length > 0) return;
+      const text = copySelection();
+      if (!text || !e.clipboardData) return;
+      e.clipboardData.setData('text/plain', text);
+      e.preventDefault();
+      toast.message(`Copied ${selectedIds().length} part(s)`);
+    };
+    const onPaste = (e: ClipboardEvent) => {
+      if (isEditable(e.target)) return;
+      if (pasteFallback) { clearTimeout(pasteFallback); pasteFallback = null; }
+      const fragment = parseFragment(e.clipboardData?.getData('text/plain')) ?? rememberedFragment();
+      e.preventDefault();
+      paste(fragment);
+    };
     window.addEventListener('keydown', onKey);
-    return () => window.removeEventListener('keydown', onKey);
-  }, [run]);
+    window.addEventListener('copy', onCopy);
+    window.addEventListener('paste', onPaste);
+    return () => {
+      window.removeEventListener('keydown', onKey);
+      window.removeEventListener('copy', onCopy);
+      window.removeEventListener('paste', onPaste);
+      if (pasteFallback) clearTimeout(pasteFallback);
+    };
+  }, [run, paste, copySelection]);
 
   return { run, place, paste };
 }
