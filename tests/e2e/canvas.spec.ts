@@ -43,6 +43,12 @@ async function wire(page: Page, from: Locator, to: Locator): Promise<void> {
   await page.mouse.up();
 }
 
+/** The translate() of a node on the bench (its position as drawn). */
+async function nodePos(page: Page, id: string): Promise<string> {
+  const style = (await page.locator(`.react-flow__node[data-id="${id}"]`).getAttribute('style')) ?? '';
+  return /translate\([^)]*\)/.exec(style)?.[0] ?? '';
+}
+
 async function nodeTransform(page: Page, id: string): Promise<string | null> {
   return page.locator(`.react-flow__node[data-id="${id}"]`).getAttribute('style');
 }
@@ -121,6 +127,18 @@ test('owner and editor edit one board live; undo is per person; a viewer cannot 
   // Redo brings the switch back for everyone.
   await o.keyboard.press('Control+Shift+z');
   await expect(e.getByTestId(`part-${sw}`)).toBeVisible();
+
+  // A drag shows on the other screen while it happens (through presence), and lands where it was dropped.
+  const lb = (await o.getByTestId(`part-${lamp}`).boundingBox())!;
+  const startE = await nodePos(e, lamp);
+  await o.mouse.move(lb.x + lb.width * 0.6, lb.y + lb.height / 2);
+  await o.mouse.down();
+  await o.mouse.move(lb.x + 80, lb.y + 100, { steps: 10 });
+  await expect.poll(() => nodePos(e, lamp)).not.toBe(startE);
+  await o.mouse.up();
+  await expect.poll(() => nodePos(e, lamp)).toBe(await nodePos(o, lamp));
+  // …and the owner's selection is outlined in the owner's colour on the editor's screen.
+  await expect(e.getByTestId(`part-${lamp}`)).toHaveAttribute('style', /box-shadow/);
 
   // Copy and paste (Ctrl+C / Ctrl+V) through the bench clipboard: a second lamp with a fresh id and label.
   await e.getByTestId(`part-${lamp}`).click();

@@ -33,7 +33,8 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const classes = ['gf-part', `gf-kind-${part.kind}`];
   if (selected) classes.push('gf-selected');
   if (highlight) classes.push('gf-highlight');
-  const outline = remoteColor && !selected ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
+  // A collaborator's selection (box-shadow) shows even when the part is selected here too (dashed outline).
+  const outline = remoteColor ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
   return (
     <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
       style={{ width: shape.w, height: shape.h, ...outline }}
