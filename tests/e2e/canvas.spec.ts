@@ -219,6 +219,7 @@ test('board files and pictures: import into a new board (errors name the bad ids
   await expect(page.locator('.react-flow__edge')).toHaveCount(6);
 
   // Flipping switch A on (a click on its face) lights S = A xor B through the live simulation.
+  // Half adder: S = A ⊕ B, C = A·B (any digital-logic textbook; common practice, no source).
   await expect(page.getByTestId('part-s').locator('.gf-bulb')).toHaveAttribute('data-lit', 'false');
   await page.getByTestId('actuator-a').click();
   await expect(page.getByTestId('part-s').locator('.gf-bulb')).toHaveAttribute('data-lit', 'true');
@@ -266,7 +267,7 @@ test('board files and pictures: import into a new board (errors name the bad ids
   expect(saved.parts[4]).toMatchObject({ id: 's', label: 'SUM' });
   expect(saved.wires).toEqual(HALF_ADDER.wires);
 
-  // PNG (its 8-byte signature, from the PNG specification, ISO/IEC 15948) and SVG pictures.
+  // PNG (its 8-byte signature, PNG specification ISO/IEC 15948 §5.2 — from memory) and SVG pictures.
   const [png] = await Promise.all([page.waitForEvent('download'), page.getByTestId('tool-export-png').click()]);
   expect(png.suggestedFilename()).toBe('half-adder.png');
   const pngBytes = await streamBytes(await png.createReadStream());
