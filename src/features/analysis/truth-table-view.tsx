@@ -5,7 +5,8 @@ import { CODE_CHARS } from '../../../shared/analysis';
 import { cn } from '../../lib/cn';
 import type { AnalysisResult } from './protocol';
 
-const ROW_PX = 20;
+// 16 px rows keep a million-row table (16.8 M px) under every browser's tallest element
+const ROW_PX = 16;
 const TONE: Record<string, string> = {
   '1': 'text-signal-high', '0': 'text-signal-low', X: 'text-signal-x', Z: 'text-signal-z', '-': 'text-slate-300',
 };
@@ -40,7 +41,7 @@ export function TruthTableView({ result, dontCares, onToggle }: {
         return (
           <button type="button" onClick={() => onToggle(name, r)} data-testid={`tt-${name}-${r}`}
             title={ch === '-' ? 'don’t-care (click to use the value again)' : 'click to mark this row don’t-care for minimisation'}
-            className={cn('w-full rounded px-1 hover:bg-bench-700', TONE[ch])}>
+            className={cn('w-full rounded px-1 leading-4 hover:bg-bench-700', TONE[ch])}>
             {ch === '-' ? '–' : ch}
           </button>
         );
@@ -75,7 +76,7 @@ export function TruthTableView({ result, dontCares, onToggle }: {
           {rows.map((row) => (
             <tr key={row.original} style={{ height: ROW_PX }} className="odd:bg-bench-900/60" aria-rowindex={row.original + 2}>
               {row.getVisibleCells().map((cell, i) => (
-                <td key={cell.id} className={cn('px-1.5 text-center', i === k - 1 && 'border-r border-bench-600')}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
+                <td key={cell.id} className={cn('px-1.5 text-center leading-4', i === k - 1 && 'border-r border-bench-600')}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
               ))}
             </tr>
           ))}
