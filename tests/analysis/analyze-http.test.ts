@@ -46,6 +46,18 @@ describe('POST /api/analyze', () => {
     expect(unknown.body.error.fields).toEqual({ select: 'Q' });
   });
 
+  it('answers 429 past 60 analyses a minute for one account', async () => {
+    const agent = await app.signUp('Eve Larkspur', 'eve@larkspur.test');
+    const tiny = { format: 'gatefold-board', version: 1, parts: [{ id: 'a', kind: 'switch', label: 'A', x: 0, y: 0 }], wires: [] };
+    const codes: number[] = [];
+    for (let i = 0; i < 61; i++) codes.push((await agent.post('/api/analyze').send(tiny)).status);
+    expect(codes.slice(0, 60).every((c) => c === 200)).toBe(true);
+    expect(codes[60]).toBe(429);
+    // another account is not held back
+    const other = await app.signUp('Fay Room', 'fay@room14.test');
+    expect((await other.post('/api/analyze').send(tiny)).status).toBe(200);
+  });
+
   it('answers 401 to an anonymous caller and 413 to a body over the limit', async () => {
     expect((await app.request().post('/api/analyze').send(halfAdder)).status).toBe(401);
     const agent = await app.signUp('Di Room', 'di@room14.test');

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import { AnalysisError, analyzeBoardFile } from '../../../shared/analysis';
 import { HttpError, badRequest, parseInput } from '../errors';
@@ -31,9 +32,15 @@ export const AnalyzeOptionsSchema = z.object({
  * `analyze` JSON of CONTRACTS §2 out. Signed-in users only; the body size limit of the JSON parser
  * answers 413; a bad board 400 naming its ids in `fields`.
  */
-export function analyzeRouter(): Router {
+export function analyzeRouter(opts: { perMinute?: number } = {}): Router {
   const r = Router();
-  r.post('/analyze', requireUser, (req, res) => {
+  // a million-row table keeps the server busy for a second or two: bound how often one account asks
+  const limit = rateLimit({
+    windowMs: 60_000, limit: opts.perMinute ?? 60, standardHeaders: 'draft-7', legacyHeaders: false,
+    keyGenerator: (req) => `user:${String(req.session?.userId ?? 'none')}`,
+    handler: (_req, _res, next) => next(new HttpError(429, 'too_many_attempts', 'Too many analyses in a minute; wait a moment and try again')),
+  });
+  r.post('/analyze', requireUser, limit, (req, res) => {
     const body = (req.body ?? {}) as Record<string, unknown>;
     if (typeof body !== 'object' || Array.isArray(body)) throw badRequest('invalid_board', 'Send a board file as the JSON body', { _: 'not an object' });
     const board = body.board && typeof body.board === 'object' ? body.board : body;
