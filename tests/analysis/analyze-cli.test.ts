@@ -54,7 +54,7 @@ describe('cli analyze', () => {
       expect(r.stderr).toMatch(/^error: /);
     }
     expect(cli('analyze', bad).stderr).toMatch(/"g"|g:/);
-  });
+  }, 90_000);
 
   it('exits 2 for more than 20 inputs', () => {
     const parts = Array.from({ length: 21 }, (_, i) => ({ id: `s${i}`, kind: 'switch', label: `I${i}`, x: 0, y: 0 }));

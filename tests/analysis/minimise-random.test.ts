@@ -61,7 +61,7 @@ describe('minimalForms on random functions', () => {
         const col = expressionColumn(parseExpression(expr), names);
         col.forEach((v, m) => { if (fn[m] !== 2) expect(v ? 1 : 0).toBe(fn[m]); });
       }
-    }), { numRuns: 40 });
+    }), { numRuns: 30 });
   }, 180_000);
 
   it('finds no smaller cover than an exhaustive search for up to 4 inputs', () => {
