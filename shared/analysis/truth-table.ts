@@ -36,8 +36,8 @@ export interface EnumerateOptions {
 /**
  * Enumerates a truth table in chunks: a generator that yields progress after each chunk and returns
  * the table. Combinational outputs use the bit-parallel path; outputs that depend on stored state use
- * the event simulator, each row from power-on with the inputs set, so a held value shows as X (or as a
- * storage part's power-on state).
+ * the event simulator, each row from power-on with the inputs set, so a held value shows the power-on
+ * state (a storage part's `init`, a gate loop's resolved level — decision 002 — or X where it stays X).
  */
 export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: EnumerateOptions = {}): Generator<TableProgress, TruthTable> {
   const k = spec.inputs.length;

@@ -13,6 +13,8 @@ import { evaluatePart, stateSize } from './parts';
 import { isRisingEdge } from './parts/flip-flop';
 import { initialSourceLevel, sourceOutputs } from './parts/sources';
 import { Bouncer } from './bounce';
+import { findFeedbackLoops, selfSustainedX, type FeedbackLoops } from './loops';
+import type { SimLayout } from './layout';
 import type { ChangeListener, CompiledPart, Netlist, SettleReport, SimStats, SimulatorOptions } from './types';
 
 /** A clock toggles every half period; its period defaults to this many of the slowest gate delay. */
@@ -62,6 +64,13 @@ export class Simulator {
   private seenCount = 0;
   private races = new Set<string>();
   private readonly undrivenInputList: string[];
+  private readonly layout: SimLayout;
+  private readonly resolveAtPowerOn: boolean;
+  /** gate-level feedback loops, found the first time a power-on settle ends with an X net */
+  private loops: FeedbackLoops | null = null;
+  /** true from power-on until the end of the next settle: that settle may resolve X loops */
+  private powerOnPending = false;
+  private readonly forced: number[] = [];
 
   constructor(netlist: Netlist, opts: SimulatorOptions = {}) {
     this.netlist = netlist;
@@ -79,6 +88,8 @@ export class Simulator {
     for (let i = 0; i < n; i++) maxDelay = Math.max(maxDelay, this.rise[i], this.fall[i]);
 
     const lay = buildLayout(this.parts, nNets);
+    this.layout = lay;
+    this.resolveAtPowerOn = (opts.powerOn ?? 'resolve') === 'resolve';
     this.inStart = lay.inStart;
     this.inNet = lay.inNet;
     this.slotStart = lay.slotStart;
@@ -122,6 +133,7 @@ export class Simulator {
 
   /** Gate outputs to X, storage to its `init` (or 0), inputs kept at their levels, queue emptied. */
   private powerOn(): void {
+    this.powerOnPending = this.resolveAtPowerOn;
     this.wheel.clear();
     this.bouncer.clear();
     this.slotVal.fill(LX);
@@ -158,7 +170,10 @@ export class Simulator {
     });
   }
 
-  /** Storage back to its initial value, gate outputs to X; input levels stay. */
+  /**
+   * Storage back to its initial value, gate outputs to X; input levels stay. The next settle resolves
+   * self-sustained X loops again (option `powerOn`).
+   */
   resetState(): void {
     this.powerOn();
   }
@@ -291,13 +306,26 @@ export class Simulator {
     const start = this.stats.events;
     const window = Math.max(256, 4 * this.netVal.length);
     let settled = true;
+    const resolving = this.powerOnPending;
+    this.powerOnPending = false;
+    this.forced.length = 0;
+    // each round forces at least one X net that no later round sees at X unless the loop re-made it
+    let rounds = resolving ? this.netVal.length + 1 : 0;
+    let watchFrom = budget;
     this.evalDirty();
     for (;;) {
       const t = this.nextTime();
-      if (t === Infinity) break;
+      if (t === Infinity) {
+        if (rounds > 0 && this.resolveLoops()) { rounds--; continue; }
+        break;
+      }
       const spent = this.stats.events - start;
-      if (!this.observing && spent >= budget) { this.observing = true; this.seenCount = 0; }
-      if (this.observing && spent >= budget + window) { settled = false; break; }
+      if (!this.observing && spent >= watchFrom) {
+        // a loop fed by an oscillating part of the board still powers on somewhere; its first changes
+        // are not oscillation, so the watch starts a window later
+        if (rounds > 0 && this.resolveLoops()) { rounds--; watchFrom = spent + window; } else { this.observing = true; this.seenCount = 0; }
+      }
+      if (this.observing && spent >= watchFrom + window) { settled = false; break; }
       this.advance(t);
     }
     const oscillating: string[] = [];
@@ -311,7 +339,32 @@ export class Simulator {
       conflicts: this.netlist.conflicts.map((id) => this.netlist.nets[id].name),
       undrivenInputs: [...this.undrivenInputList],
       races: [...this.races],
+      powerOn: this.forced.map((net) => this.netlist.nets[net].name),
     };
+  }
+
+  /**
+   * One power-on round: in every gate loop whose X sustains itself (all nets entering it read 0 or 1),
+   * the driver of the loop's lowest X net powers on low — scheduled as an ordinary change, so delays
+   * apply. Returns the number of nets forced.
+   */
+  private resolveLoops(): number {
+    let anyX = false;
+    for (let net = 0; net < this.netVal.length && !anyX; net++) anyX = this.netVal[net] === LX && this.netDrivers[net] >= 0;
+    if (!anyX) return 0;
+    if (!this.loops) {
+      const gate = Uint8Array.from(this.parts, (p, i) => (this.evaluates[i] && stateSize(p.kind) === 0 ? 1 : 0));
+      this.loops = findFeedbackLoops(this.layout, gate, this.netVal.length);
+    }
+    const picked: number[] = [];
+    selfSustainedX(this.loops, (net) => this.netVal[net] === LX && this.slotPend[this.netDrivers[net]] === NONE,
+      (net) => { const v = this.read(net); return v === L0 || v === L1; }, picked);
+    for (const net of picked) {
+      const s = this.netDrivers[net];
+      this.schedule(s, L0, this.layout.slotPart[s]);
+      this.forced.push(net);
+    }
+    return picked.length;
   }
 
   /**

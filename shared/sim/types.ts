@@ -90,6 +90,12 @@ export interface SettleReport {
   undrivenInputs: string[];
   /** ids of built-in storage parts that met a race in this settle (SR released from 11, D changing on the clock edge) */
   races: string[];
+  /**
+   * names of the loop nets this settle chose a power-on level for (each driven low) because their X
+   * sustained itself; empty except in the first settle after power-on or resetState() with `powerOn:
+   * 'resolve'`
+   */
+  powerOn: string[];
 }
 
 /** Options of a Simulator. */
@@ -100,6 +106,13 @@ export interface SimulatorOptions {
   seed?: number;
   /** events one settle() may process before it declares oscillation (default max(20000, 200 × parts)) */
   eventBudget?: number;
+  /**
+   * What gate loops do at power-on (default `'resolve'`): a real node never stays unknown, so the first
+   * settle picks a level for a loop whose X only feeds itself (its lowest X net driven low, again until
+   * none is left) — a ring of inverters then oscillates, a latch of gates starts at Q = 0. `'x'` keeps
+   * IEEE Std 1364 semantics: such a loop stays X until something loads it.
+   */
+  powerOn?: 'resolve' | 'x';
 }
 
 /** Counters since the simulator was made. */

@@ -5,13 +5,14 @@ import { buildBoard, type GateSpec } from './build-board';
 
 describe('truth tables with stored state', () => {
   // SR NOR latch: S,R = 00 hold; 01 → Q=0; 10 → Q=1; 11 → Q = Q' = 0 (CHECKS.md "Sequential references").
-  // Rows are simulated from power-on, so the holding row reads X: the output depends on stored state.
-  it('flags a NOR latch built from gates and shows its hold row as unknown', () => {
+  // Rows are simulated from power-on; the latch's X sustains itself, so power-on resolution (decision 002)
+  // starts it at Q = 0 and the holding row shows that power-on state, as for a built-in storage part.
+  it('flags a NOR latch built from gates and shows its hold row at the power-on state', () => {
     const gates: GateSpec[] = [{ id: 'n1', kind: 'nor', ins: ['R', 'n2'] }, { id: 'n2', kind: 'nor', ins: ['S', 'n1'] }];
     const result = analyzeBoard(buildBoard('NOR latch', ['S', 'R'], gates, { Q: 'n1', Qn: 'n2' }));
     expect(result.sequential).toBe(true);
     expect(result.outputsInfo.Q.sequential).toBe(true);
-    expect(result.rows).toEqual([{ in: '00', out: 'XX' }, { in: '01', out: '01' }, { in: '10', out: '10' }, { in: '11', out: '00' }]);
+    expect(result.rows).toEqual([{ in: '00', out: '01' }, { in: '01', out: '01' }, { in: '10', out: '10' }, { in: '11', out: '00' }]);
   });
 
   it('flags only the outputs fed by a storage part', () => {

@@ -41,6 +41,8 @@ const cases: [string, string[], RegExp][] = [
   ['unknown --clock label', ['simulate', good, '--clock', 'CLK', '--cycles', '2'], /unknown input label "CLK"/],
   ['bad --cycles', ['simulate', good, '--clock', 'A', '--cycles', 'many'], /--cycles/],
   ['unknown flag', ['simulate', good, '--fast'], /--fast/],
+  ['bad --power-on', ['simulate', good, '--power-on', 'low'], /--power-on: "low" is not resolve or x/],
+  ['--power-on without a value', ['simulate', good, '--power-on'], /--power-on/],
   ['unknown command', ['frobnicate', good], /unknown command "frobnicate"/],
   ['no file', ['export-verilog'], /missing FILE/],
   ['unwritable --vcd', ['simulate', good, '--vcd', join(dir, 'no-such-dir', 'out.vcd')], /cannot write .*out\.vcd/],

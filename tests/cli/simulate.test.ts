@@ -5,7 +5,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { rippleCounter, norSrLatch, ringOscillator } from '../sim/circuits';
+import { inverterRing, rippleCounter, norSrLatch, ringOscillator } from '../sim/circuits';
 import { readVcd } from '../sim/vcd-read';
 import { runCli } from './run-cli';
 
@@ -93,6 +93,23 @@ describe('simulate', () => {
     expect(out.oscillating.sort()).toEqual(['Y', 'r0_out', 'r1_out']);
     expect(out.trace).toHaveLength(500);
     expect(Date.now() - started).toBeLessThan(20_000);
+  });
+
+  it('a ring of three plain inverters powers on, oscillates and is reported with its nets; --power-on x keeps X', async () => {
+    // ring oscillator: N (odd) inverters never settle (Rabaey et al., Digital Integrated Circuits, 2nd ed.,
+    // 2003 — from memory); the first inverter listed powers on low (decision 002)
+    const path = file('ring3.gatefold.json', inverterRing(3).board());
+    const r = await runCli(['simulate', path]);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.settled).toBe(false);
+    expect(out.oscillating.sort()).toEqual(['Y', 'i0_out', 'i1_out']);
+    expect(out.powerOn).toEqual(['i0_out']);
+    const strict = JSON.parse((await runCli(['simulate', path, '--power-on', 'x'])).stdout);
+    expect(strict).toMatchObject({ settled: true, oscillating: [], powerOn: [], outputs: { Y: 'X' } });
+    const even = JSON.parse((await runCli(['simulate', file('ring2.gatefold.json', inverterRing(2).board()), '--power-on', 'resolve'])).stdout);
+    expect(even).toMatchObject({ settled: true, oscillating: [], powerOn: ['i0_out'], outputs: { Y: '1' } });
   });
 
   it('adds the safety caution for a tube board and defers to local codes', async () => {

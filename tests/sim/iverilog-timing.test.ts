@@ -16,7 +16,8 @@ import { runIverilogTrace, type Stimulus } from './iverilog';
 function gatefoldTrace(board: BoardFile, watch: string[], stimulus: Stimulus[], until: number): string[] {
   const netlist = compileBoard(board);
   const byLabel = new Map(netlist.parts.map((p) => [p.name, p]));
-  const sim = new Simulator(netlist, { eventBudget: 1e9 });
+  // strict X at power-on, as Icarus Verilog has it (a gate loop stays X until it is loaded)
+  const sim = new Simulator(netlist, { eventBudget: 1e9, powerOn: 'x' });
   const nets = new Map(watch.map((w) => { const p = byLabel.get(w)!; return [p.kind === 'lamp' || p.kind === 'probe' ? p.inputs[0] : p.outputs[0], w]; }));
   const seen: string[] = [];
   for (const s of stimulus.filter((s) => s.time === 0)) sim.setInput(byLabel.get(s.port)!.id, s.value);

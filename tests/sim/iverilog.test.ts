@@ -15,6 +15,8 @@ import { runIverilog } from './iverilog';
 function gatefoldRows(board: BoardFile, rows: number[][]): { inputs: string[]; outputs: string[]; results: string[] } {
   const netlist = compileBoard(board);
   const ins = netlist.inputs.filter((p) => p.kind !== 'const');
+  // default power-on resolution: every compared row comes after the first row has set or reset each
+  // gate loop, so the rows mean the same as in Icarus Verilog (whose loops start at X)
   const sim = new Simulator(netlist);
   sim.settle();
   const results = rows.map((row) => {

@@ -11,29 +11,56 @@ function gates(sim: Simulator): string {
   return ['g1', 'g2', 'g3', 'g4', 'g5', 'g6'].map((g) => sim.pinLevel(g, 'out')).join('');
 }
 
+/** The published trace after the start state: D↑, CLK↑, CLK↓, D↓, CLK↑. */
+function followTrace(sim: Simulator): void {
+  const steps: [string, 0 | 1, string][] = [
+    ['d', 1, '111001'], // D↑
+    ['clk', 1, '101010'], // CLK↑
+    ['clk', 0, '111010'], // CLK↓
+    ['d', 0, '011110'], // D↓
+    ['clk', 1, '010101'], // CLK↑
+  ];
+  for (const [input, v, expected] of steps) {
+    sim.setInput(input, v);
+    const r = sim.settle();
+    expect(r.settled).toBe(true);
+    expect(gates(sim), `${input}=${v}`).toBe(expected);
+  }
+}
+
 describe('six-NAND edge-triggered D flip-flop', () => {
-  // Source: NJIT Digital Commons "dld-animations" 84, Fig. 6.18, 2023 (trace G1..G6, PRE' = CLR' = 1).
-  it('reproduces the published trace step by step after one priming clock with D = 0', () => {
+  // Source: NJIT Digital Commons "dld-animations" 84, Fig. 6.18, 2023 (trace G1..G6, PRE' = CLR' = 1):
+  // start CLK=0,D=0 → 011101; D↑ → 111001; CLK↑ → 101010; CLK↓ → 111010; D↓ → 011110; CLK↑ → 010101.
+  it('reaches the published start state at power-on (Q resolved low) and follows the trace, no priming clock', () => {
     const sim = new Simulator(compileBoard(sixNandDff().board()));
+    const r = sim.settle();
+    expect(r.settled).toBe(true);
+    expect(r.powerOn).toEqual(['Q']); // G5 = Q powers on low, G6 = Q' follows high
+    expect(gates(sim)).toBe('011101'); // start CLK=0, D=0
+    followTrace(sim);
+  });
+
+  it('after resetState() the power-on choice is made again', () => {
+    const sim = new Simulator(compileBoard(sixNandDff().board()));
+    sim.settle();
+    sim.setInput('d', 1); sim.settle();
+    sim.setInput('clk', 1); sim.settle();
+    expect(sim.outputValues()).toEqual({ Q: '1', QN: '0' });
+    expect(sim.settle().powerOn).toEqual([]); // only the first settle after power-on chooses
+    sim.setInput('d', 0); sim.setInput('clk', 0); sim.resetState();
+    expect(sim.settle().powerOn).toEqual(['Q']);
+    expect(gates(sim)).toBe('011101');
+  });
+
+  it('with powerOn: \'x\' reproduces the published trace after one priming clock with D = 0', () => {
+    const sim = new Simulator(compileBoard(sixNandDff().board()), { powerOn: 'x' });
     expect(sim.settle().settled).toBe(true);
     // from all-X with CLK = 0 the output latch (G5, G6) stays unknown until a clock edge loads it
     expect(gates(sim)).toBe('0111XX');
     sim.setInput('clk', 1); sim.settle();
     sim.setInput('clk', 0); sim.settle();
     expect(gates(sim)).toBe('011101'); // start CLK=0, D=0
-    const steps: [string, 0 | 1, string][] = [
-      ['d', 1, '111001'], // D↑
-      ['clk', 1, '101010'], // CLK↑
-      ['clk', 0, '111010'], // CLK↓
-      ['d', 0, '011110'], // D↓
-      ['clk', 1, '010101'], // CLK↑
-    ];
-    for (const [input, v, expected] of steps) {
-      sim.setInput(input, v);
-      const r = sim.settle();
-      expect(r.settled).toBe(true);
-      expect(gates(sim), `${input}=${v}`).toBe(expected);
-    }
+    followTrace(sim);
   });
 
   it('ignores D while the clock is high', () => {
@@ -47,25 +74,29 @@ describe('six-NAND edge-triggered D flip-flop', () => {
     }
   });
 
-  it('agrees with the built-in dff over random D/CLK sequences (fast-check)', () => {
-    const b = sixNandDff();
-    b.part({ id: 'ff', kind: 'dff' }).wire('d.out', 'ff.d').wire('clk.out', 'ff.clk').lamp('q2', 'Q2', 'ff.q');
-    const netlist = compileBoard(b.board());
-    fc.assert(fc.property(fc.array(fc.record({ d: fc.integer({ min: 0, max: 1 }), clk: fc.integer({ min: 0, max: 1 }) }), { minLength: 1, maxLength: 40 }), (seq) => {
-      const sim = new Simulator(netlist);
-      // power on, then prime both: clock in D = 0 (the built-in starts at 0, the gate version at X)
-      sim.settle();
-      sim.setInput('clk', 1); sim.settle(); sim.setInput('clk', 0); sim.settle();
-      for (const { d, clk } of seq) {
-        // D first, then the clock, each settled: the gate flip-flop needs its setup time
-        sim.setInput('d', d as 0 | 1); sim.settle();
-        sim.setInput('clk', clk as 0 | 1); sim.settle();
-        const out = sim.outputValues();
-        if (out.Q !== out.Q2) return false;
-      }
-      return true;
-    }), { numRuns: 200, seed: 42 });
-  });
+  // Rising-edge D flip-flop behaviour (common practice, no source), the built-in part as the reference.
+  for (const primed of [true, false]) {
+    it(`agrees with the built-in dff over random D/CLK sequences (fast-check, ${primed ? 'after a priming clock' : 'from power-on'})`, () => {
+      const b = sixNandDff();
+      b.part({ id: 'ff', kind: 'dff' }).wire('d.out', 'ff.d').wire('clk.out', 'ff.clk').lamp('q2', 'Q2', 'ff.q');
+      const netlist = compileBoard(b.board());
+      fc.assert(fc.property(fc.array(fc.record({ d: fc.integer({ min: 0, max: 1 }), clk: fc.integer({ min: 0, max: 1 }) }), { minLength: 1, maxLength: 40 }), (seq) => {
+        const sim = new Simulator(netlist);
+        // power on: the built-in starts at 0, the gate version resolves Q low; primed: clock in D = 0 first
+        sim.settle();
+        if (sim.outputValues().Q !== sim.outputValues().Q2) return false;
+        if (primed) { sim.setInput('clk', 1); sim.settle(); sim.setInput('clk', 0); sim.settle(); }
+        for (const { d, clk } of seq) {
+          // D first, then the clock, each settled: the gate flip-flop needs its setup time
+          sim.setInput('d', d as 0 | 1); sim.settle();
+          sim.setInput('clk', clk as 0 | 1); sim.settle();
+          const out = sim.outputValues();
+          if (out.Q !== out.Q2) return false;
+        }
+        return true;
+      }), { numRuns: 200, seed: 42 });
+    });
+  }
 });
 
 describe('SR NOR latch of gates', () => {
@@ -83,6 +114,16 @@ describe('SR NOR latch of gates', () => {
     expect(sim.outputValues()).toEqual({ Q: '0', QN: '1' });
     sim.setInput('s', 1); sim.setInput('r', 1); sim.settle();
     expect(sim.outputValues()).toEqual({ Q: '0', QN: '0' });
+  });
+
+  it('powers on with S = R = 0 at Q = 0, Q\' = 1 (the first gate listed powers on low)', () => {
+    const sim = new Simulator(compileBoard(norSrLatch().board()));
+    const r = sim.settle();
+    expect(r).toMatchObject({ settled: true, powerOn: ['Q'] });
+    expect(sim.outputValues()).toEqual({ Q: '0', QN: '1' });
+    // and then holds, sets and resets as usual
+    sim.setInput('s', 1); sim.settle(); sim.setInput('s', 0); sim.settle();
+    expect(sim.outputValues()).toEqual({ Q: '1', QN: '0' });
   });
 
   it('reports the release race as oscillation and names both nets', () => {

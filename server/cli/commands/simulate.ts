@@ -1,5 +1,5 @@
 /**
- * `simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd]` (CONTRACTS §2).
+ * `simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd] [--power-on resolve|x]` (CONTRACTS §2).
  * A cycle drives the clock input high, settles, drives it low, settles, then records the outputs; each
  * phase lasts at least half the clock's period so that the dumped waveform shows the clock's shape.
  */
@@ -14,6 +14,15 @@ import type { CliCommand } from './types';
 
 const MAX_CYCLES = 100_000;
 const OSCILLATING_BUDGET = 2_000;
+const POWER_ON = ['resolve', 'x'] as const;
+
+/** `--power-on`: how gate loops power on (decision 002); default resolve. */
+function parsePowerOn(value: string | boolean | undefined): (typeof POWER_ON)[number] {
+  if (value === undefined) return 'resolve';
+  const mode = POWER_ON.find((m) => m === value);
+  if (!mode) throw new CliError(`--power-on: "${String(value)}" is not resolve or x`);
+  return mode;
+}
 
 function inputByLabel(netlist: Netlist, label: string, flag: string): CompiledPart {
   const part = netlist.inputs.find((p) => p.name === label);
@@ -46,11 +55,13 @@ function vcdSignals(netlist: Netlist): { signals: VcdSignal[]; byNet: number[][]
 }
 
 export const simulate: CliCommand = {
-  usage: 'simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd]',
+  usage: 'simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd] [--power-on resolve|x]',
   run(args, io) {
     const { positionals, values } = parseCommandArgs(args, {
       set: { type: 'string' }, clock: { type: 'string' }, cycles: { type: 'string' }, vcd: { type: 'string' },
+      'power-on': { type: 'string' },
     });
+    const powerOn = parsePowerOn(values['power-on']);
     const board = readBoard(positionals[0]);
     const netlist = compileBoard(board);
     const sets = typeof values.set === 'string' ? parseSets(netlist, values.set) : [];
@@ -63,7 +74,7 @@ export const simulate: CliCommand = {
       cycles = n;
     } else if (clock) cycles = 1;
 
-    const sim = new Simulator(netlist);
+    const sim = new Simulator(netlist, { powerOn });
     const { signals, byNet } = vcdSignals(netlist);
     const samples: VcdSample[] = [];
     // levels at power-on (time 0): sources and storage are driven already, gates still X
@@ -74,6 +85,8 @@ export const simulate: CliCommand = {
     const races = new Set<string>();
     let settled = true;
     let report = sim.settle();
+    // the loop nets whose power-on level was chosen (only the first settle chooses)
+    const resolved = report.powerOn;
     const absorb = () => {
       settled &&= report.settled;
       report.oscillating.forEach((n) => oscillating.add(n));
@@ -104,7 +117,7 @@ export const simulate: CliCommand = {
     }
     const result = {
       settled, oscillating: [...oscillating], conflicts: report.conflicts, outputs: sim.outputValues(), trace,
-      undrivenInputs: report.undrivenInputs, races: [...races], time: sim.time, events: sim.stats.events,
+      undrivenInputs: report.undrivenInputs, races: [...races], powerOn: resolved, time: sim.time, events: sim.stats.events,
       ...(familyOf(board.family).caution ? { caution: familyOf(board.family).caution } : {}),
     };
     io.stdout(JSON.stringify(result, null, 2) + '\n');

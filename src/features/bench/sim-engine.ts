@@ -45,7 +45,7 @@ export function packLevels(netlist: Netlist, sim: Simulator): Uint8Array {
 /** Wall time one clock tick may spend simulating. */
 const RUN_BUDGET_MS = 40;
 
-const EMPTY_REPORT: SettleReport = { settled: true, time: 0, events: 0, oscillating: [], conflicts: [], undrivenInputs: [], races: [] };
+const EMPTY_REPORT: SettleReport = { settled: true, time: 0, events: 0, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
 
 /**
  * The simulation side of the bench, free of worker plumbing so tests can drive it directly: it keeps
