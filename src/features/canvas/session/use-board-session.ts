@@ -7,7 +7,8 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import * as Y from 'yjs';
 import { WebsocketProvider } from 'y-websocket';
 import type { BoardFile } from '../../../../shared/board/schema';
-import { docToBoard, metaMap, partsMap, wiresMap } from '../../../../shared/board/ydoc';
+import { docToBoard } from '../../../../shared/board/ydoc';
+import { createUndoManager } from './undo';
 import { presenceColor } from '../lib/colors';
 import { stabilizeBoard } from '../flow/derive-flow';
 import type { PresenceUser } from './awareness';
@@ -57,7 +58,7 @@ function createLive(boardId: string, shareToken: string | undefined): Live {
   const params: Record<string, string> = shareToken ? { share: shareToken } : {};
   const provider = new WebsocketProvider(wsBase(), boardId, doc, { connect: false, params, maxBackoffTime: 4000 });
   const origin = { session: boardId, client: doc.clientID };
-  const undo = new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 300 });
+  const undo = createUndoManager(doc, origin);
   return { doc, provider, undo, origin };
 }
 

@@ -1,0 +1,11 @@
+/**
+ * Per-user undo: a Y.UndoManager over the board's maps that tracks only this session's own origin, so
+ * undo never removes a collaborator's edit. captureTimeout 0: every named edit (one transaction) is one
+ * undo step, so two quick edits, say a switch flip and a delete, are never undone together.
+ */
+import * as Y from 'yjs';
+import { metaMap, partsMap, wiresMap } from '../../../../shared/board/ydoc';
+
+export function createUndoManager(doc: Y.Doc, origin: object): Y.UndoManager {
+  return new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 0 });
+}
