@@ -19,7 +19,7 @@ export interface MinimalCovers {
   note?: string;
 }
 
-/** Limits of the exact method (defaults: 12 inputs, 600 products, 6,000,000 search steps, 32 covers). */
+/** Limits of the exact method (defaults: 12 inputs, 600 products, 2,000,000 search steps, 32 covers). */
 export interface MinimiseOptions {
   exactLimit?: number;
   /** products Petrick's expansion may keep before the depth-first search takes over */

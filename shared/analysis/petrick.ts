@@ -53,7 +53,7 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
     const covers = expanded.slice(0, maxCovers).map((extra) => sorted([...base, ...extra]));
     return { covers, exact: true, truncated: expanded.length > maxCovers };
   }
-  const found = searchCovers(prob.clauses, lits, upper, { work: opts.work ?? 6e6, maxCovers });
+  const found = searchCovers(prob.clauses, lits, upper, { work: opts.work ?? 2e6, maxCovers });
   const extras = found.covers.length ? found.covers : [greedy];
   const covers = extras.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {
