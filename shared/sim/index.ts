@@ -6,9 +6,11 @@
  * const sim = new Simulator(netlist, { seed: 1 });
  * sim.setInput('a', true);
  * const report = sim.settle();                    // {settled, oscillating, conflicts, undrivenInputs, …}
+ * report.powerOn;                                 // loop nets whose power-on level was chosen (option powerOn)
  * sim.outputValues();                             // { S: '1', C: '0' }
  * ```
- * See docs/decisions/002-simulation-model.md for the model (four values, delays, initial state).
+ * See docs/decisions/002-simulation-model.md for the model (four values, delays, initial state and the
+ * power-on resolution of gate loops).
  */
 export type { Level } from './levels';
 export { LEVELS } from './levels';

@@ -131,7 +131,10 @@ export class Simulator {
     return this.now;
   }
 
-  /** Gate outputs to X, storage to its `init` (or 0), inputs kept at their levels, queue emptied. */
+  /**
+   * Gate outputs to X, storage to its `init` (or 0), inputs kept at their levels, queue emptied; the
+   * next settle may resolve self-sustained X loops (option `powerOn`).
+   */
   private powerOn(): void {
     this.powerOnPending = this.resolveAtPowerOn;
     this.wheel.clear();

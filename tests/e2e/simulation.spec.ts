@@ -39,9 +39,9 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   await viewer.goto(`/boards/${board.id}`);
   await expect(page.getByTestId('bench-panel')).toBeVisible();
   await expect(viewer.getByTestId('read-only-note')).toBeVisible();
-  // power-on: a flip-flop built of gates holds an unknown value until its first clock edge
+  // power-on: the output latch of a flip-flop built of gates picks a level, Q low (decision 002)
   for (const p of [page, viewer]) {
-    await expect(level(p, 'bench-output-Q')).toHaveAttribute('data-level', 'X');
+    await expect(level(p, 'bench-output-Q')).toHaveAttribute('data-level', '0');
     await expect(level(p, 'bench-output-CLK')).toHaveAttribute('data-level', '0');
     await expect(level(p, 'bench-input-D')).toHaveAttribute('data-level', '1');
   }
@@ -67,7 +67,7 @@ test('a button press clocks the gate flip-flop on every screen; a viewer try-out
   // The timing strip: the raw button bounced, the debounced clock rose exactly once.
   await expect(rises(page, 'CLK')).toHaveAttribute('data-rises', '1');
   expect(Number(await rises(page, 'STEP').getAttribute('data-rises'))).toBeGreaterThan(1);
-  await expect(rises(page, 'Q')).toHaveAttribute('data-rises', '0'); // X → 1 is not a rising edge
+  await expect(rises(page, 'Q')).toHaveAttribute('data-rises', '1'); // from its power-on 0
   const strip = page.getByTestId('timing-canvas');
   const box = (await strip.boundingBox())!;
   await page.mouse.move(box.x + box.width - 4, box.y + box.height / 2);
