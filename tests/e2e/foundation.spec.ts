@@ -41,7 +41,7 @@ test('owner invites an editor by e-mail; the invitee signs up from the mailed li
   await expect(page.getByTestId('board-title')).toHaveText('Half adder, tube build');
 
   // A tube family shows the safety caution.
-  await header.getByRole('combobox', { name: 'Logic family' }).selectOption('tube-drl-nor');
+  await page.getByLabel('Bench logic family').selectOption('tube-drl-nor');
   await expect(page.getByTestId('safety-caution')).toContainText('local electrical codes');
   await page.screenshot({ path: 'test-results/foundation-03-board-owner.png' });
 

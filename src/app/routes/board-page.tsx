@@ -8,7 +8,6 @@ import { meQueryOptions } from '../../features/auth/api';
 import { boardQueryOptions } from '../../features/boards/api';
 import { BoardTitleEditor } from '../../features/boards/components/board-title-editor';
 import { DeleteBoardButton } from '../../features/boards/components/delete-board-button';
-import { FamilyPicker } from '../../features/boards/components/family-picker';
 import { SafetyCaution } from '../../features/boards/components/safety-caution';
 import { MemberAvatars } from '../../features/members/components/member-avatars';
 import { MemberListPanel } from '../../features/members/components/member-list-panel';
@@ -52,7 +51,6 @@ export function BoardPage() {
         <span className="flex items-center gap-1.5 text-xs text-slate-400">
           you are <RoleBadge role={b.role} />
         </span>
-        <FamilyPicker board={b} editable={canEdit(b.role)} />
         <div className="ml-auto flex items-center gap-3">
           <MemberAvatars boardId={b.id} />
           {isOwner(b.role) && (
@@ -65,8 +63,7 @@ export function BoardPage() {
           )}
         </div>
       </header>
-      <SafetyCaution family={b.family} />
-      <div className="flex min-h-0 flex-1">
+      <div className="flex min-h-0 flex-1 flex-col">
         {/* board workspace: canvas, bench and analysis panels mount here */}
         <LiveBoard board={b} me={me.data ?? null} />
       </div>
@@ -79,8 +76,11 @@ function LiveBoard({ board, me }: { board: ApiBoard; me: { id: number; name: str
   const session = useBoardSession(String(board.id), board.role, me ? { user: me } : {});
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
+  // The family is part of the live document (the bench's family select edits it for everyone), so the
+  // caution follows the document, not the board row.
   return (
     <>
+      <SafetyCaution family={session.board.family} />
       <PulseStyle wireIds={sim.pulsingWires} />
       <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values} highlight={analysis.highlight}
         panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}

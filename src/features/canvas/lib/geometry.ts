@@ -121,7 +121,7 @@ export function rotationTransform(w: number, h: number, rotation: Rotation): str
 
 /** Shape of a placed part with its rotation applied: the box and the pins as they sit on the bench. */
 export function placedShape(part: Part): PartShape & { rotation: Rotation; baseW: number; baseH: number } {
-  const base = shapeOf(part.kind, 'inputs' in part ? part.inputs : 2);
+  const base = part.kind === 'note' ? noteShape(part.text) : shapeOf(part.kind, 'inputs' in part ? part.inputs : 2);
   const rotation = (part.rotation ?? 0) as Rotation;
   const turned = rotation === 90 || rotation === 270;
   return {
@@ -132,6 +132,17 @@ export function placedShape(part: Part): PartShape & { rotation: Rotation; baseW
     rotation,
     pins: base.pins.map((spot) => ({ ...spot, ...rotatePoint(spot.x, spot.y, base.w, base.h, rotation), side: rotateSide(spot.side, rotation) })),
   };
+}
+
+/** A note grows with its text (11 px mono, ~7 px a character, 15 px a line), on the 20 px grid. */
+export function noteShape(text: string): PartShape {
+  const lines = (text || ' ').split('\n');
+  const longest = Math.max(...lines.map((l) => l.length));
+  const w = Math.min(320, Math.max(160, Math.ceil((longest * 6.7 + 18) / GRID) * GRID));
+  const perLine = Math.max(1, Math.floor((w - 18) / 6.7));
+  const rows = lines.reduce((n, l) => n + Math.max(1, Math.ceil(l.length / perLine)), 0);
+  const h = Math.max(60, Math.ceil((rows * 15 + 14) / GRID) * GRID);
+  return { w, h, pins: [] };
 }
 
 /** Nearest grid point (the bench snaps to a 20 px grid). */

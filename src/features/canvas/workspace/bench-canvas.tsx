@@ -195,6 +195,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
           colorMode="dark"
           connectionLineStyle={{ stroke: SIGNAL.high, strokeWidth: 2 }}
           defaultEdgeOptions={{ type: 'wire' }}
+          proOptions={{ hideAttribution: true }}
         >
           <Background variant={BackgroundVariant.Dots} gap={GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
           <Controls showInteractive={false} position="bottom-left">
