@@ -71,6 +71,9 @@ export class Simulator {
   /** true from power-on until the end of the next settle: that settle may resolve X loops */
   private powerOnPending = false;
   private readonly forced: number[] = [];
+  /** per driver slot: 1 when its level was chosen at power-on, so an X evaluation keeps that level */
+  private readonly hold: Uint8Array;
+  private holding = false;
 
   constructor(netlist: Netlist, opts: SimulatorOptions = {}) {
     this.netlist = netlist;
@@ -102,6 +105,7 @@ export class Simulator {
     this.slotVal = new Uint8Array(nSlots);
     this.slotPend = new Uint8Array(nSlots);
     this.slotPendTime = new Float64Array(nSlots);
+    this.hold = new Uint8Array(nSlots);
     this.state = new Uint8Array(lay.nState);
     this.evaluates = Uint8Array.from(this.parts, (p) => (!isInputKind(p.kind) && p.outputs.length > 0 ? 1 : 0));
     this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
@@ -272,6 +276,8 @@ export class Simulator {
   }
 
   private schedule(s: number, v: number, p: number): void {
+    // a level chosen at power-on stands until the gate's inputs know better (cf. a storage part's init)
+    if (v === LX && this.holding && this.hold[s]) return;
     const pend = this.slotPend[s];
     if (pend !== NONE) {
       if (pend === v) return;
@@ -312,6 +318,7 @@ export class Simulator {
     const resolving = this.powerOnPending;
     this.powerOnPending = false;
     this.forced.length = 0;
+    this.holding = resolving;
     // each round forces at least one X net that no later round sees at X unless the loop re-made it
     let rounds = resolving ? this.netVal.length + 1 : 0;
     let watchFrom = budget;
@@ -331,6 +338,7 @@ export class Simulator {
       if (this.observing && spent >= watchFrom + window) { settled = false; break; }
       this.advance(t);
     }
+    if (this.holding) { this.holding = false; this.hold.fill(0); }
     const oscillating: string[] = [];
     if (this.observing) {
       for (let i = 0; i < this.seenCount; i++) { const net = this.seenList[i]; this.seen[net] = 0; if (!settled) oscillating.push(this.netlist.nets[net].name); }
@@ -365,7 +373,8 @@ export class Simulator {
     for (const net of picked) {
       const s = this.netDrivers[net];
       this.schedule(s, L0, this.layout.slotPart[s]);
-      this.forced.push(net);
+      this.hold[s] = 1;
+      if (!this.forced.includes(net)) this.forced.push(net);
     }
     return picked.length;
   }

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { FamilyId } from '../../shared/board';
-import { compileBoard, Simulator } from '../../shared/sim';
+import { compileBoard, familyDelays, Simulator } from '../../shared/sim';
 import { buildLayout } from '../../shared/sim/layout';
 import { findFeedbackLoops } from '../../shared/sim/loops';
 import { BoardBuilder } from './board-builder';
@@ -83,6 +83,29 @@ describe('power-on resolution', () => {
     expect(sim.outputValues()).toEqual({ Y: '1', Q: '0', QN: '1' });
   });
 
+  it('the chosen level arrives after the gate\'s t_PHL, as an ordinary change (74LS delays)', () => {
+    const d = familyDelays('ttl-74ls');
+    const netlist = compileBoard(inverterRing(3, new BoardBuilder('ttl-74ls')).board());
+    const sim = new Simulator(netlist, { eventBudget: 200 });
+    const first: [number, string][] = [];
+    const i0 = netlist.netOf('i0', 'out');
+    sim.onChange((t, net, level) => { if (net === i0 && first.length < 2) first.push([t, level]); });
+    sim.settle();
+    // low after t_PHL; high again when the change has gone round: i1 rises, i2 falls, i0 rises
+    expect(first[0]).toEqual([d.fall, '0']);
+    expect(first[1]).toEqual([d.fall + d.rise + d.fall + d.rise, '1']);
+  });
+
+  it('a gate reading its own output keeps its chosen level while its other input is still X', () => {
+    // G0 = OR(G3, G0), G3 = XOR(G0, S0): with S0 = 0 both levels are stable; the choice is 0
+    const b = new BoardBuilder().switch('s0', 'S0');
+    b.gate('g0', 'or', ['g3.out', 'g0.out']).gate('g3', 'xor', ['g0.out', 's0.out']);
+    const sim = new Simulator(compileBoard(b.board()));
+    const r = sim.settle();
+    expect(r).toMatchObject({ settled: true, powerOn: ['g0_out'] });
+    expect([sim.pinLevel('g0', 'out'), sim.pinLevel('g3', 'out')]).toEqual(['0', '0']);
+  });
+
   it('powerOn: \'x\' leaves every loop at X', () => {
     const sim = new Simulator(compileBoard(norSrLatch().board()), { powerOn: 'x' });
     expect(sim.settle().powerOn).toEqual([]);
@@ -117,18 +140,44 @@ function loopsByReachability(netlist: ReturnType<typeof compileBoard>): string[]
   return [...groups.keys()].sort();
 }
 
+/** A random board of up to 3 switches and gates reading any switch or gate output (so with feedback). */
+function randomLoopBoard(nIn: number, specs: [number, number, number][], on: number): BoardBuilder {
+  const kinds = ['and', 'or', 'nand', 'nor', 'xor', 'xnor', 'not', 'buffer'];
+  const b = new BoardBuilder();
+  const inputs = Math.min(nIn, 3);
+  for (let i = 0; i < inputs; i++) b.switch(`s${i}`, `S${i}`, ((on >> i) & 1) === 1);
+  const all = inputs + specs.length;
+  const source = (k: number) => (k % all < inputs ? `s${k % all}.out` : `g${k % all - inputs}.out`);
+  specs.forEach(([kind, a, c], g) => {
+    const kd = kinds[kind % kinds.length];
+    b.gate(`g${g}`, kd, kd === 'not' || kd === 'buffer' ? [source(a)] : [source(a), source(c)]);
+  });
+  return b;
+}
+
+const boardArgs = fc.tuple(fc.integer({ min: 1, max: 3 }), fc.array(fc.tuple(fc.nat(), fc.nat(), fc.nat()), { minLength: 1, maxLength: 30 }), fc.nat(7));
+
+describe('power-on resolution on random boards with feedback (fast-check)', () => {
+  // A gate with only 0/1 inputs gives 0/1 (IEEE Std 1364 primitive tables), so once no loop's X can
+  // sustain itself a quiet board whose sources are all 0/1 has no X left (common practice, no source).
+  it('a board that settles after power-on has no X net left, and the same board gives the same choice', () => {
+    fc.assert(fc.property(boardArgs, ([nIn, specs, on]) => {
+      const netlist = compileBoard(randomLoopBoard(nIn, specs, on).board());
+      const sim = new Simulator(netlist, { eventBudget: 5000 });
+      const r = sim.settle();
+      const again = new Simulator(netlist, { eventBudget: 5000 }).settle();
+      expect(again.powerOn).toEqual(r.powerOn);
+      if (!r.settled) return;
+      const x = netlist.nets.filter((n) => n.drivers.length > 0 && sim.level(n.id) === 'X').map((n) => n.name);
+      expect(x).toEqual([]);
+    }), { numRuns: 300, seed: 11 });
+  });
+});
+
 describe('feedback loop finder (iterative Tarjan)', () => {
   it('finds the same loops as mutual reachability on random gate boards with feedback (fast-check)', () => {
-    const kinds = ['and', 'or', 'nand', 'nor', 'xor', 'xnor', 'not', 'buffer'];
-    fc.assert(fc.property(fc.integer({ min: 1, max: 30 }), fc.array(fc.tuple(fc.nat(), fc.nat(), fc.nat()), { minLength: 1, maxLength: 30 }), (nIn, specs) => {
-      const b = new BoardBuilder();
-      const inputs = Math.min(nIn, 3);
-      for (let i = 0; i < inputs; i++) b.switch(`s${i}`);
-      const sources = (k: number) => (k % (inputs + specs.length) < inputs ? `s${k % (inputs + specs.length)}.out` : `g${k % (inputs + specs.length) - inputs}.out`);
-      specs.forEach(([kind, a, c], g) => {
-        const kd = kinds[kind % kinds.length];
-        b.gate(`g${g}`, kd, kd === 'not' || kd === 'buffer' ? [sources(a)] : [sources(a), sources(c)]);
-      });
+    fc.assert(fc.property(boardArgs, ([nIn, specs, on]) => {
+      const b = randomLoopBoard(nIn, specs, on);
       const netlist = compileBoard(b.board());
       const lay = buildLayout(netlist.parts, netlist.nets.length);
       const gate = Uint8Array.from(netlist.parts, (p) => (p.kind === 'switch' ? 0 : 1));
