@@ -13,6 +13,7 @@ import { PresenceBar } from '../presence/presence-bar';
 import { usePeers } from '../presence/use-peers';
 import type { BoardSession } from '../session/use-board-session';
 import { CanvasToolbar } from '../toolbar/canvas-toolbar';
+import { PartInspector } from '../inspector/part-inspector';
 import { PartsTray } from '../tray/parts-tray';
 import { BenchCanvas, type BenchApi } from './bench-canvas';
 import { BottomDock } from './bottom-dock';
@@ -76,6 +77,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
           <div ref={canvasBox} className="relative min-h-0 flex-1">
             <BenchCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
               highlight={highlight} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setBench} />
+            <PartInspector session={session} />
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">
                 <span className="rounded bg-bench-800/90 px-3 py-1 text-xs text-slate-300" data-testid="sync-note">
