@@ -319,7 +319,7 @@ export class Simulator {
     this.powerOnPending = false;
     this.forced.length = 0;
     this.holding = resolving;
-    // each round forces at least one X net that no later round sees at X unless the loop re-made it
+    // each round forces at least one net (and a chosen level holds); the bound only guards odd boards
     let rounds = resolving ? this.netVal.length + 1 : 0;
     let watchFrom = budget;
     this.evalDirty();
@@ -356,8 +356,8 @@ export class Simulator {
 
   /**
    * One power-on round: in every gate loop whose X sustains itself (all nets entering it read 0 or 1),
-   * the driver of the loop's lowest X net powers on low — scheduled as an ordinary change, so delays
-   * apply. Returns the number of nets forced.
+   * X net whose driver is listed first powers on low — scheduled as an ordinary change, so delays
+   * apply — and holds that level against X for the rest of the settle. Returns the number of nets forced.
    */
   private resolveLoops(): number {
     let anyX = false;
