@@ -9,14 +9,17 @@ import { parsePeriod, ROTATIONS } from './inspector-fields';
 export const boxClass =
   'nodrag w-full rounded border border-bench-600 bg-bench-950 px-2 py-1 font-mono text-xs text-slate-100 focus:border-amber-glow focus:outline-none aria-[invalid=true]:border-rose-500';
 const segClass = (on: boolean) =>
-  `h-6 min-w-8 rounded px-2 font-mono text-xs ${on ? 'bg-amber-glow font-semibold text-bench-950' : 'border border-bench-600 bg-bench-800 text-slate-200 hover:border-bench-500'}`;
+  `h-6 min-w-8 rounded px-1.5 font-mono text-[11px] ${on ? 'bg-amber-glow font-semibold text-bench-950' : 'border border-bench-600 bg-bench-800 text-slate-200 hover:border-bench-500'}`;
 
+/** One line of the card: the field's name on the left, its control (and any refusal) on the right. */
 export function Row({ title, htmlFor, error, children }: { title: string; htmlFor?: string; error?: string; children: ReactNode }) {
   return (
-    <div className="space-y-1">
-      <label className="block text-[11px] uppercase tracking-wide text-slate-400" htmlFor={htmlFor}>{title}</label>
-      {children}
-      {error ? <p className="text-[11px] text-rose-300" role="alert">{error}</p> : null}
+    <div className="grid grid-cols-[4.5rem_minmax(0,1fr)] items-start gap-x-2">
+      <label className="pt-1 text-[11px] text-slate-400" htmlFor={htmlFor}>{title}</label>
+      <div className="min-w-0">
+        {children}
+        {error ? <p className="mt-1 text-[11px] leading-snug text-rose-300" role="alert">{error}</p> : null}
+      </div>
     </div>
   );
 }
@@ -53,7 +56,7 @@ export function DraftBox({ id, value, onCommit, multiline, invalid, testId, plac
 
 export function RotationButtons({ value, onPick }: { value: number; onPick(r: (typeof ROTATIONS)[number]): void }) {
   return (
-    <div className="flex gap-1" role="group" aria-label="Rotation">
+    <div className="grid grid-cols-4 gap-1" role="group" aria-label="Rotation">
       {ROTATIONS.map((r) => (
         <button key={r} type="button" className={segClass(value === r)} aria-pressed={value === r} data-testid={`inspector-rotation-${r}`}
           onClick={() => { if (value !== r) onPick(r); }}>{r}°</button>
@@ -79,14 +82,14 @@ export function KindField({ spec, inputId, value, onCommit, invalid }: {
         <label className="flex items-center gap-2 text-xs text-slate-200">
           <input id={inputId} type="checkbox" className="accent-amber-500" checked={value === true} data-testid={`inspector-${spec.field}`}
             onChange={(e) => onCommit(e.target.checked)} />
-          the contacts chatter for a moment after each press and release
+          contact bounce
         </label>
       );
     case 'number':
       return (
         <div className="flex items-center gap-2">
           <PeriodBox id={inputId} value={typeof value === 'number' ? value : undefined} onCommit={onCommit} invalid={invalid} />
-          <span className="shrink-0 text-[11px] text-slate-400">{spec.unit}</span>
+          <span className="shrink-0 text-[11px] text-slate-400" title="simulation time units">{spec.unit}</span>
         </div>
       );
     case 'bit':

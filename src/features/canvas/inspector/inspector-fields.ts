@@ -25,8 +25,8 @@ const POWER_ON: InspectorField = { field: 'init', control: 'bit', title: 'Power-
 /** The kind's own fields, in the order the inspector lists them. */
 export function inspectorFields(kind: PartKind): InspectorField[] {
   switch (kind) {
-    case 'button': return [{ field: 'bounce', control: 'check', title: 'Contact bounce' }];
-    case 'clock': return [{ field: 'period', control: 'number', title: 'Period', unit: 'sim time units' }];
+    case 'button': return [{ field: 'bounce', control: 'check', title: 'Bounce' }];
+    case 'clock': return [{ field: 'period', control: 'number', title: 'Period', unit: 'time units' }];
     case 'const': return [{ field: 'value', control: 'bit', title: 'Value' }];
     case 'and': case 'or': case 'nand': case 'nor': case 'xor': case 'xnor': return [GATE_INPUTS];
     case 'srlatch': case 'dlatch': case 'dff': return [POWER_ON];

@@ -84,21 +84,21 @@ function OnePart({ session, part }: { session: BoardSession; part: Part }) {
         <h2 className="truncate text-sm font-semibold text-amber-300" data-testid="inspector-kind">{KIND_TITLES[part.kind]}</h2>
         <code className="truncate font-mono text-[11px] text-slate-400" data-testid="inspector-id" title="part id">{part.id}</code>
       </header>
-      <div className="space-y-2.5">
+      <div className="space-y-2">
         <Row title="Label" htmlFor={tid('label')} error={errors.label}>
           {readOnly
-            ? <p className="font-mono text-xs">{part.label ?? '—'}</p>
+            ? <p className="pt-1 font-mono text-xs" data-testid="inspector-label">{part.label ?? '—'}</p>
             : <DraftBox id={tid('label')} value={part.label ?? ''} onCommit={relabel} invalid={!!errors.label} testId="inspector-label" placeholder="no label" />}
         </Row>
         <Row title="Rotation" error={errors.rotation}>
           {readOnly
-            ? <p className="font-mono text-xs">{rotation}°</p>
+            ? <p className="pt-1 font-mono text-xs" data-testid="inspector-rotation">{rotation}°</p>
             : <RotationButtons value={rotation} onPick={(r) => attempt('rotation', () => setPartField(doc, part.id, 'rotation', r, origin))} />}
         </Row>
         {fields.map((spec) => (
           <Row key={spec.field} title={spec.title} htmlFor={spec.control === 'bit' ? undefined : tid(spec.field)} error={errors[spec.field]}>
             {readOnly
-              ? <p className="whitespace-pre-wrap break-words font-mono text-xs" data-testid={`inspector-${spec.field}`}>{shown(spec, record[spec.field])}</p>
+              ? <p className="whitespace-pre-wrap break-words pt-1 font-mono text-xs" data-testid={`inspector-${spec.field}`}>{shown(spec, record[spec.field])}</p>
               : <KindField spec={spec} inputId={tid(spec.field)} value={record[spec.field]} invalid={!!errors[spec.field]}
                   onCommit={(v) => attempt(spec.field, () => setPartField(doc, part.id, spec.field, v, origin))} />}
           </Row>
