@@ -203,7 +203,7 @@ test('the bench clock steps and runs, a ring that will not settle pulses, a tube
 
   // the family is a document edit; a tube family brings the safety caution
   await bench.getByLabel('Bench logic family').selectOption('tube-drl-nor');
-  await expect(page.getByTestId('bench-safety')).toContainText('local electrical codes');
+  await expect(page.getByTestId('safety-caution')).toContainText('local electrical codes');
   await page.screenshot({ path: 'test-results/simulation-08-tube-caution.png' });
 
   const [png] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export PNG' }).click()]);

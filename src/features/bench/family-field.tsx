@@ -1,14 +1,14 @@
 import type * as Y from 'yjs';
 import { FamilySchema, type FamilyId } from '../../../shared/board';
 import { setMeta } from '../../../shared/board/edits';
-import { FAMILY_LABELS, FAMILY_OPTIONS, safetyCautionFor } from '../../lib/families';
+import { FAMILY_LABELS, FAMILY_OPTIONS } from '../../lib/families';
 
 /**
  * The board's logic family, read from the document; editors change it with a document edit, so
- * every screen re-simulates with the new floating-input reading and delays at once.
+ * every screen re-simulates with the new floating-input reading and delays at once. (The safety
+ * caution of dangerous families is the band above the workspace, which follows the same value.)
  */
 export function FamilyField({ family, readOnly, doc, origin }: { family: FamilyId; readOnly: boolean; doc: Y.Doc; origin: object }) {
-  const caution = safetyCautionFor(family);
   return (
     <div className="space-y-1.5 text-xs">
       <label className="flex items-center gap-2 text-slate-400">
@@ -31,11 +31,6 @@ export function FamilyField({ family, readOnly, doc, origin }: { family: FamilyI
           </select>
         )}
       </label>
-      {caution && (
-        <p role="note" data-testid="bench-safety" className="rounded border border-amber-600/50 bg-amber-600/10 p-2 text-amber-200">
-          <strong>Caution:</strong> {caution}
-        </p>
-      )}
     </div>
   );
 }

@@ -36,6 +36,8 @@ export interface BenchReport {
   undrivenInputs: string[];
   /** storage parts that met a race in the last settle (SR released from 11, D changing on the clock edge) */
   races: string[];
+  /** nets in gate feedback loops whose power-on level was chosen (low), since the last compile or reset */
+  powerOn: string[];
 }
 
 /** Messages from the worker to the page. */

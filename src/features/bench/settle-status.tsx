@@ -22,6 +22,9 @@ export function SettleStatus({ report, family }: { report: BenchReport; family: 
         <Issue title={`Undriven inputs (an open ${f.title} input reads ${f.floating})`} items={report.undrivenInputs} />
       )}
       {report.races.length > 0 && <Issue title="Race in the last change (the order of simultaneous inputs decided the stored value)" items={report.races} />}
+      {report.powerOn.length > 0 && (
+        <Issue title="Power-on state chosen (a real loop settles either way; reset stored state to choose again): started low" items={report.powerOn} />
+      )}
     </div>
   );
 }

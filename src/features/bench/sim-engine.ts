@@ -61,6 +61,8 @@ export class BenchEngine {
   private tryOut = new Map<string, boolean>();
   private applied = new Map<string, boolean>();
   private report: SettleReport = EMPTY_REPORT;
+  /** nets whose power-on level the simulator chose since the last compile or reset (a real loop settles either way) */
+  private powerOn: string[] = [];
   private half = 10;
   private lastEdgeAt = 0;
   private readonly recorder = new TraceRecorder();
@@ -108,6 +110,7 @@ export class BenchEngine {
         if (this.sim) {
           this.sim.resetState();
           this.report = this.sim.settle();
+          this.powerOn = this.report.powerOn;
         }
         break;
       case 'clear-trace':
@@ -145,6 +148,7 @@ export class BenchEngine {
     const sim = new Simulator(netlist, { family: board.family });
     this.netlist = netlist;
     this.sim = sim;
+    this.powerOn = [];
     this.applied.clear();
     this.clock.restart();
     this.lastEdgeAt = 0;
@@ -164,6 +168,7 @@ export class BenchEngine {
     });
     this.apply(false);
     if (!this.applied.size) this.report = sim.settle();
+    if (this.report.powerOn.length) this.powerOn = this.report.powerOn;
     this.unsubscribe = sim.onChange((time, net, level) => this.recorder.record(time, net, level));
     this.recorder.attach(netlist, sim.time, (net) => sim.level(net));
   }
@@ -188,6 +193,7 @@ export class BenchEngine {
       this.applied.set(id, value);
     }
     this.report = sim.settle();
+    if (this.report.powerOn.length) this.powerOn = this.report.powerOn;
   }
 
   /**
@@ -239,7 +245,7 @@ export class BenchEngine {
       {
         type: 'state',
         levels,
-        report: { settled, oscillating: osc, conflicts, undrivenInputs, races },
+        report: { settled, oscillating: osc, conflicts, undrivenInputs, races, powerOn: this.powerOn },
         values,
         time: this.recorder.base + sim.time,
         events: sim.stats.events,

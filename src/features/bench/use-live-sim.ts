@@ -26,7 +26,7 @@ export interface PortValue extends PortInfo {
   value: Level;
 }
 
-const NO_REPORT: BenchReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [], races: [] };
+const NO_REPORT: BenchReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
 
 /**
  * The live simulation of a board, in a Web Worker. With `tryOut` (viewers) input changes stay private
