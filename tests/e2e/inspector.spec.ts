@@ -92,6 +92,13 @@ test('the inspector sets a gate to 3 inputs as one undoable edit and refuses a d
   await inspector.getByTestId('inspector-rotate-all').click();
   for (const id of ['s', 'c']) await expect(page.locator(`.react-flow__node[data-id="${id}"] g[transform*="rotate(90)"]`)).toHaveCount(1);
   await page.screenshot({ path: 'test-results/inspector-03-two-selected.png' });
+
+  // It sits atop the right-hand column; with that column hidden it floats over the bench instead.
+  await expect(inspector).toHaveAttribute('data-placement', 'panel');
+  await page.getByTestId('toggle-panels').click();
+  await expect(inspector).toHaveAttribute('data-placement', 'float');
+  await expect(inspector.getByTestId('inspector-count')).toHaveText('2 parts selected');
+  await page.screenshot({ path: 'test-results/inspector-03b-floating.png' });
 });
 
 test('the inspector sets a clock period and a note text; a viewer sees the fields without controls', async ({ page, browser, gatefold }) => {

@@ -1,5 +1,6 @@
 /**
- * The part inspector: a small card at the top right of the bench showing the one selected part's kind,
+ * The part inspector: a section at the top of the right-hand column (or, when that column is not shown,
+ * a small card floating at the top right of the bench, where it can cover parts) showing the one selected part's kind,
  * id, label, rotation and its kind's own fields (CONTRACTS §1). Every change is one named edit of
  * shared/board/edits on the session's own origin, so this user's undo takes it back; a refused value is
  * shown beside its field. Viewers see the values without controls. With several parts selected it
@@ -15,23 +16,28 @@ import { DraftBox, KindField, RotationButtons, Row } from './field-controls';
 import { inspectorFields, type InspectorField } from './inspector-fields';
 import { useSelectedPartIds } from './use-selected-part-ids';
 
-const cardClass = 'pointer-events-auto w-64 rounded-lg border border-bench-600 bg-bench-900/95 p-3 text-slate-100 shadow-xl shadow-black/40 backdrop-blur-sm';
+export type InspectorPlacement = 'panel' | 'float';
+const CARD: Record<InspectorPlacement, string> = {
+  panel: 'border-b border-bench-700 p-3 text-slate-100',
+  float: 'pointer-events-auto w-64 rounded-lg border border-bench-600 bg-bench-900/95 p-3 text-slate-100 shadow-xl shadow-black/40 backdrop-blur-sm',
+};
 const actionClass = 'h-7 rounded border border-bench-600 bg-bench-800 px-2.5 text-xs text-slate-100 hover:border-bench-500 hover:bg-bench-700';
 
-export function PartInspector({ session }: { session: BoardSession }) {
+export function PartInspector({ session, placement }: { session: BoardSession; placement: InspectorPlacement }) {
   const ids = useSelectedPartIds();
   const parts = ids.map((id) => session.board.parts.find((p) => p.id === id)).filter((p): p is Part => !!p);
   if (parts.length === 0) return null;
+  const cardClass = CARD[placement];
   return (
-    <div className="pointer-events-none absolute right-3 top-3 z-20" data-testid="part-inspector">
+    <div className={placement === 'float' ? 'pointer-events-none absolute right-3 top-3 z-20' : ''} data-testid="part-inspector" data-placement={placement}>
       {parts.length === 1
-        ? <OnePart key={parts[0].id} session={session} part={parts[0]} />
-        : <ManyParts session={session} ids={parts.map((p) => p.id)} />}
+        ? <OnePart key={parts[0].id} session={session} part={parts[0]} cardClass={cardClass} />
+        : <ManyParts session={session} ids={parts.map((p) => p.id)} cardClass={cardClass} />}
     </div>
   );
 }
 
-function ManyParts({ session, ids }: { session: BoardSession; ids: string[] }) {
+function ManyParts({ session, ids, cardClass }: { session: BoardSession; ids: string[]; cardClass: string }) {
   return (
     <section className={cardClass} aria-label="Part inspector">
       <h2 className="text-sm font-semibold" data-testid="inspector-count">{ids.length} parts selected</h2>
@@ -54,7 +60,7 @@ function shown(spec: InspectorField, value: unknown): string {
   return String(value ?? '');
 }
 
-function OnePart({ session, part }: { session: BoardSession; part: Part }) {
+function OnePart({ session, part, cardClass }: { session: BoardSession; part: Part; cardClass: string }) {
   const { doc, origin, readOnly } = session;
   const [errors, setErrors] = useState<Record<string, string | undefined>>({});
   const fields = inspectorFields(part.kind);

@@ -77,7 +77,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
           <div ref={canvasBox} className="relative min-h-0 flex-1">
             <BenchCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
               highlight={highlight} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setBench} />
-            <PartInspector session={session} />
+            {!(panels && panelsOpen) && <PartInspector session={session} placement="float" />}
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">
                 <span className="rounded bg-bench-800/90 px-3 py-1 text-xs text-slate-300" data-testid="sync-note">
@@ -89,7 +89,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
           {bottom ? <BottomDock>{bottom}</BottomDock> : null}
         </div>
         {panels && panelsOpen ? (
-          <aside className="w-80 shrink-0 overflow-y-auto border-l border-bench-700 bg-bench-900" data-testid="side-panels">{panels}</aside>
+          <aside className="w-80 shrink-0 overflow-y-auto border-l border-bench-700 bg-bench-900" data-testid="side-panels"><PartInspector session={session} placement="panel" />{panels}</aside>
         ) : null}
       </div>
     </div>
