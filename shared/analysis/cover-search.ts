@@ -1,117 +1,104 @@
+import { CoverMatrix } from './cover-matrix';
+
 /** What the depth-first cover search found. */
 export interface SearchResult {
   covers: number[][];
-  /** false when the work budget ran out: `covers` holds the best found, not proven minimal */
+  /** false when phase 1 ran out of work: `covers` holds the best found, not proven minimal */
   complete: boolean;
+  /** true when phase 2 stopped (cover limit or its own work budget) before listing every minimal cover */
   truncated: boolean;
 }
 
-function isSubset(a: number[], b: number[]): boolean {
-  // both sorted ascending
-  let j = 0;
-  for (const x of a) {
-    while (j < b.length && b[j] < x) j++;
-    if (j === b.length || b[j] !== x) return false;
-    j++;
-  }
-  return true;
+/** Work budgets of the two phases, and how many minimal covers to list. */
+export interface SearchOptions {
+  /** word operations of phase 1 (prove one minimal cover) before giving up with the best found */
+  work: number;
+  /** word operations of phase 2 (list the other covers of that cost); running out only truncates the list */
+  listWork?: number;
+  maxCovers: number;
 }
 
 /**
  * Depth-first branch and bound over Petrick's function (the product over rows of the sums of their
- * primes), for cores too big to multiply out. At every node the reductions that keep every minimal cover
- * (primes a row cannot do without, a row containing another row's primes dropped, a prime whose rows a
- * prime with strictly fewer literals also covers dropped) shrink the problem; then it branches on the
- * row with the fewest primes — branch i takes prime i and strikes primes 1..i-1, so no cover is reached
- * twice. The bound is the cost so far plus one prime per row in a set of rows that share no prime. Finds
- * every cover of minimal cost (fewest terms, then fewest literals), up to `maxCovers`, or gives up after
- * `work` steps with the best found.
+ * primes), for cores too big to multiply out, in two phases with separate budgets:
+ *
+ * 1. **Prove** one minimal cover: a node is pruned as soon as its cost plus a lower bound reaches the
+ *    best cover known (ties are not explored), and column dominance may drop a prime whose rows another
+ *    prime of equal or lower cost also covers (at least one minimal cover survives).
+ * 2. **List** the covers of exactly that cost: only reductions that keep every minimal cover (strict
+ *    column dominance), pruning above the proven cost. If this phase runs out, the result is still
+ *    proven minimal, only the list is `truncated`.
+ *
+ * Cost is one number: terms × 2^16 + literals (fewest terms, then fewest literals). Branching is on the
+ * row with the fewest primes; branch i takes prime i and strikes primes 1..i-1, so no cover is reached
+ * twice. The bound is the larger of a set of rows sharing no prime (each needs its own prime) and the
+ * share bound (each row pays at least the cheapest cost-per-row of its primes).
  */
-export function searchCovers(clauses: number[][], lits: number[], upper: { count: number; lits: number }, opts: { work: number; maxCovers: number }): SearchResult {
-  let best = { count: upper.count, lits: upper.lits };
-  let found: number[][] = [];
+export function searchCovers(clauses: number[][], lits: number[], upper: number[], opts: SearchOptions): SearchResult {
+  const m = new CoverMatrix(clauses, lits);
+  const rootRows = m.allRows();
+  const rootPrimes = m.allPrimes();
+  let best = m.costOf(upper);
+  let bestCover = upper.map((g) => m.local(g));
+  let start = 0;
+  let budget = opts.work;
+  let out = false;
+  let listing = false;
+  const found: number[][] = [];
   let truncated = false;
-  let work = 0;
-  let complete = true;
-  const above = (c: number, l: number) => c > best.count || (c === best.count && l > best.lits);
+  const taken: number[] = [];
 
-  /** The reduced rows (taken gains the forced primes), or null when a row has no prime left. */
-  const reduce = (start: number[][], taken: number[]): number[][] | null => {
-    let rows = start;
-    for (let changed = true; changed; ) {
-      changed = false;
-      if (rows.some((c) => c.length === 0)) return null;
-      const forced = new Set<number>();
-      for (const c of rows) if (c.length === 1) forced.add(c[0]);
-      if (forced.size) {
-        taken.push(...forced);
-        rows = rows.filter((c) => !c.some((p) => forced.has(p)));
-        changed = true;
+  const dfs = (rows: Uint32Array, primes: Uint32Array, cost0: number): void => {
+    if (m.steps - start > budget) { out = true; return; }
+    const depth = taken.length;
+    const cost = m.reduce(rows, primes, cost0, taken, !listing);
+    const done = () => { taken.length = depth; };
+    // a proof must finish within the budget: work spent on this node counts before its verdict
+    if (m.steps - start > budget) { out = true; return done(); }
+    if (cost < 0) return done();
+    if (listing ? cost > best : cost >= best) return done();
+    const pick = m.branchRow(rows, primes);
+    if (pick < 0) {
+      // every row covered
+      if (listing) {
+        if (found.length < opts.maxCovers) found.push(m.globalSorted(taken));
+        else truncated = true;
+      } else {
+        best = cost;
+        bestCover = [...taken];
       }
-      const keep: number[][] = [];
-      for (const c of [...rows].sort((a, b) => a.length - b.length)) {
-        work += keep.length;
-        if (keep.some((k) => isSubset(k, c))) { changed = true; continue; }
-        keep.push(c);
-      }
-      rows = keep;
-      const rowsOf = new Map<number, number[]>();
-      rows.forEach((c, i) => c.forEach((p) => { const r = rowsOf.get(p); if (r) r.push(i); else rowsOf.set(p, [i]); }));
-      const drop = new Set<number>();
-      for (const [p, mine] of rowsOf) {
-        for (const q of rows[mine[0]]) {
-          work++;
-          if (q === p || drop.has(q) || lits[q] >= lits[p]) continue;
-          if (isSubset(mine, rowsOf.get(q) ?? [])) { drop.add(p); break; }
-        }
-      }
-      if (drop.size) { rows = rows.map((c) => c.filter((p) => !drop.has(p))); changed = true; }
+      return done();
     }
-    return rows;
-  };
-
-  const lowerBound = (rows: number[][]) => {
-    const used = new Set<number>();
-    let count = 0;
-    let cheapest = 0;
-    for (const c of [...rows].sort((a, b) => a.length - b.length)) {
-      work += c.length;
-      if (c.some((p) => used.has(p))) continue;
-      c.forEach((p) => used.add(p));
-      count++;
-      cheapest += Math.min(...c.map((p) => lits[p]));
-    }
-    return { count, lits: cheapest };
-  };
-
-  const dfs = (start: number[][], takenBefore: number[]): void => {
-    if (work > opts.work) { complete = false; return; }
-    const taken = [...takenBefore];
-    const rows = reduce(start, taken);
-    if (!rows) return;
-    const count = taken.length;
-    const litSum = taken.reduce((s, p) => s + lits[p], 0);
-    if (above(count, litSum)) return;
-    if (!rows.length) {
-      if (count < best.count || litSum < best.lits) { best = { count, lits: litSum }; found = []; truncated = false; }
-      if (found.length < opts.maxCovers) found.push([...taken].sort((a, b) => a - b));
-      else truncated = true;
-      return;
-    }
-    const lb = lowerBound(rows);
-    if (above(count + lb.count, litSum + lb.lits)) return;
-    let pick = rows[0];
-    for (const c of rows) if (c.length < pick.length) pick = c;
-    const reach = (p: number) => rows.reduce((n, c) => n + (c.includes(p) ? 1 : 0), 0);
-    const options = [...pick].sort((a, b) => reach(b) - reach(a) || lits[a] - lits[b]);
-    const struck = new Set<number>();
+    const lb = m.lowerBound(rows, primes);
+    if (listing ? cost + lb > best : cost + lb >= best) return done();
+    const options = m.branchOrder(pick, rows, primes);
+    const here = taken.length; // after this node's forced primes
+    const struck = primes.slice();
     for (const p of options) {
-      const rest = rows.filter((c) => !c.includes(p)).map((c) => (struck.size ? c.filter((q) => !struck.has(q)) : c));
-      dfs(rest, [...taken, p]);
-      if (!complete) return;
-      struck.add(p);
+      struck[p >>> 5] &= ~(1 << (p & 31));
+      const nextRows = rows.slice();
+      m.cover(nextRows, p);
+      taken.push(p);
+      dfs(nextRows, struck.slice(), cost + m.weight[p]);
+      taken.length = here;
+      if (out) return;
     }
+    done();
   };
-  dfs(clauses.map((c) => [...c].sort((a, b) => a - b)), []);
-  return { covers: found, complete, truncated };
+
+  dfs(rootRows.slice(), rootPrimes.slice(), 0);
+  if (out) return { covers: [m.globalSorted(bestCover)], complete: false, truncated: false };
+  // phase 2: the alternatives of exactly the proven cost, with a budget of their own
+  listing = true;
+  start = m.steps;
+  budget = opts.listWork ?? opts.work;
+  taken.length = 0;
+  dfs(rootRows.slice(), rootPrimes.slice(), 0);
+  if (out) truncated = true;
+  const first = m.globalSorted(bestCover);
+  const key = first.join(',');
+  const rest = found.filter((c) => c.join(',') !== key);
+  const covers = [first, ...rest].slice(0, opts.maxCovers);
+  if (rest.length + 1 > opts.maxCovers) truncated = true;
+  return { covers, complete: true, truncated };
 }

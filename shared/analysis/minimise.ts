@@ -19,13 +19,15 @@ export interface MinimalCovers {
   note?: string;
 }
 
-/** Limits of the exact method (defaults: 12 inputs, 600 products, 2,000,000 search steps, 32 covers). */
+/** Limits of the exact method (defaults: 12 inputs, 600 products, 100,000,000 + 2,000,000 search word operations, 32 covers). */
 export interface MinimiseOptions {
   exactLimit?: number;
   /** products Petrick's expansion may keep before the depth-first search takes over */
   budget?: number;
-  /** steps of the depth-first search before it settles for the best cover found (not proven minimal) */
+  /** word operations of the depth-first search proving one cover minimal before it settles for the best found (not proven minimal) */
   work?: number;
+  /** word operations of the depth-first search listing the other minimal covers (running out only truncates the list) */
+  listWork?: number;
   maxCovers?: number;
 }
 
@@ -49,7 +51,7 @@ export function minimiseOnes(n: number, fn: FunctionRows, opts: MinimiseOptions 
     const pick = greedyCover(clauses, primes.map(literals));
     return { covers: [order(pick.map((i) => primes[i]))], exact: false, truncated: false, note: 'too many prime implicants: greedy cover, not proven minimal' };
   }
-  const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work, maxCovers: opts.maxCovers });
+  const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work, listWork: opts.listWork, maxCovers: opts.maxCovers });
   const covers = sel.covers.map((c) => order(c.map((i) => primes[i])));
   return { covers: dedupeOrder(covers, n), exact: sel.exact, truncated: sel.truncated, note: sel.note };
 }

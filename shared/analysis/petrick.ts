@@ -14,8 +14,10 @@ export interface CoverSelection {
 export interface CoverOptions {
   /** products kept while multiplying Petrick's function out before switching to the depth-first search */
   budget?: number;
-  /** steps of the depth-first search before it gives up with the best cover found (not proven minimal) */
+  /** word operations spent proving one cover minimal before giving up with the best found (not proven minimal) */
   work?: number;
+  /** word operations for listing the other minimal covers once one is proven; running out only truncates the list */
+  listWork?: number;
   /** at most this many alternative minimal covers are listed */
   maxCovers?: number;
 }
@@ -53,9 +55,8 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
     const covers = expanded.slice(0, maxCovers).map((extra) => sorted([...base, ...extra]));
     return { covers, exact: true, truncated: expanded.length > maxCovers };
   }
-  const found = searchCovers(prob.clauses, lits, upper, { work: opts.work ?? 2e6, maxCovers });
-  const extras = found.covers.length ? found.covers : [greedy];
-  const covers = extras.map((extra) => sorted([...base, ...extra]));
+  const found = searchCovers(prob.clauses, lits, greedy, { work: opts.work ?? 100_000_000, listWork: opts.listWork ?? 2_000_000, maxCovers });
+  const covers = found.covers.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {
     return { covers: covers.slice(0, 1), exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
   }
