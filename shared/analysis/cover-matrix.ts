@@ -185,44 +185,61 @@ export class CoverMatrix {
   }
 
   /**
-   * A lower bound on the cost of covering the open rows: the larger of (a) rows that share no allowed
-   * prime, each paying its cheapest prime, and (b) every row paying the least cost-per-open-row among its
-   * primes (a cover's cost, spread over the rows each prime covers, is at least that sum).
+   * A lower bound on the cost of covering the open rows, terms and literals bounded separately (a cover
+   * has at least ⌈T⌉ terms and ⌈L⌉ literals). Each of T and L is the larger of two feasible solutions of
+   * the covering LP's dual, which bound every cover from below: (a) dual ascent — rows in order of fewest
+   * primes, each raising its value to the least slack left among its primes (rows sharing no prime each
+   * pay a whole prime, so this includes the independent-rows bound); (b) the share bound — each row pays
+   * the least cost-per-open-row among its primes.
    */
   lowerBound(rows: Uint32Array, primes: Uint32Array): number {
     const { pw } = this;
     const open = listBits(rows, this.rowCount);
-    const share = new Map<number, number>();
-    const used = new Uint32Array(pw);
     const deg = new Map(open.map((r) => [r, this.rowDegree(r, primes)]));
     open.sort((a, b) => (deg.get(a) ?? 0) - (deg.get(b) ?? 0));
-    let independent = 0;
-    let spread = 0;
+    const slackT = new Map<number, number>();
+    const slackL = new Map<number, number>();
+    const reachOf = new Map<number, number>();
+    let ascentT = 0;
+    let ascentL = 0;
+    let shareT = 0;
+    let shareL = 0;
+    const mine: number[] = [];
     for (const r of open) {
       const o = r * pw;
-      let clash = false;
-      let cheapest = Infinity;
-      let perRow = Infinity;
+      mine.length = 0;
+      let yT = Infinity;
+      let yL = Infinity;
+      let sT = Infinity;
+      let sL = Infinity;
       for (let w = 0; w < pw; w++) {
         let x = this.rowPrimes[o + w] & primes[w];
-        if (x & used[w]) clash = true;
         while (x) {
           const low = x & -x;
           x ^= low;
           const p = (w << 5) + (31 - Math.clz32(low));
-          let s = share.get(p);
-          if (s === undefined) { s = this.weight[p] / this.reach(p, rows); share.set(p, s); }
-          if (s < perRow) perRow = s;
-          if (this.weight[p] < cheapest) cheapest = this.weight[p];
+          mine.push(p);
+          let k = reachOf.get(p);
+          if (k === undefined) { k = this.reach(p, rows); reachOf.set(p, k); }
+          const l = this.weight[p] - TERM;
+          yT = Math.min(yT, slackT.get(p) ?? 1);
+          yL = Math.min(yL, slackL.get(p) ?? l);
+          sT = Math.min(sT, 1 / k);
+          sL = Math.min(sL, l / k);
         }
       }
-      spread += perRow;
-      if (!clash) {
-        independent += cheapest;
-        for (let w = 0; w < pw; w++) used[w] |= this.rowPrimes[o + w] & primes[w];
+      this.steps += mine.length;
+      for (const p of mine) {
+        slackT.set(p, (slackT.get(p) ?? 1) - yT);
+        slackL.set(p, (slackL.get(p) ?? this.weight[p] - TERM) - yL);
       }
+      ascentT += yT;
+      ascentL += yL;
+      shareT += sT;
+      shareL += sL;
     }
-    return Math.max(independent, Math.ceil(spread - 1e-6));
+    const up = (x: number) => Math.ceil(x - 1e-9);
+    return up(Math.max(ascentT, shareT)) * TERM + up(Math.max(ascentL, shareL));
   }
 }
 
