@@ -1,0 +1,61 @@
+import { readFileSync } from 'node:fs';
+import { expect, signUp, test } from './fixtures';
+
+// The analysis panel end to end, in a real browser against the real server and database: the example
+// "Mux logic unit" (A, B data; S1 S0 select AND, OR, XOR, NOT A into a 4-to-1 multiplexer, lamp Y).
+// With S1 and S0 as select inputs the function map names the function of A, B for each select code;
+// deleting the XOR gate on the canvas changes the map live.
+// The expected names are the example's own design (its note on the board: 00 AND, 01 OR, 10 XOR, 11 NOT A)
+// and the 4-to-1 multiplexer's rule Y = D[S1 S0] (common practice, no source).
+const OWNER = { name: 'Ines Okafor', email: 'ines.analysis@larkspur.example', password: 'gatefold-demo-long' };
+
+test('the function map names each select code\'s function of A, B and follows an edit live', async ({ page, gatefold }) => {
+  await page.setViewportSize({ width: 1500, height: 950 });
+  await signUp(page, OWNER);
+  const file = readFileSync(new URL('../../examples/mux-logic-unit.gatefold.json', import.meta.url));
+  const imported = await page.request.post('/api/boards/import', {
+    headers: { Origin: gatefold.baseURL },
+    multipart: { file: { name: 'mux-logic-unit.gatefold.json', mimeType: 'application/json', buffer: file } },
+  });
+  expect(imported.status()).toBe(201);
+  const { board } = (await imported.json()) as { board: { id: number } };
+  await page.goto(`/boards/${board.id}`);
+  await expect(page.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
+
+  const panel = page.getByTestId('analysis-panel');
+  await panel.scrollIntoViewIfNeeded();
+  // four switches: 16 rows (plus the header row), and Y's minimal forms
+  await expect(panel.getByTestId('analysis-status')).toContainText('16 rows', { timeout: 15_000 });
+  await expect(panel.getByTestId('truth-table')).toHaveAttribute('aria-rowcount', '17');
+  await expect(panel.getByTestId('sop-Y')).toContainText(/S0|S1/);
+  await expect(panel.getByTestId('pos-Y')).not.toBeEmpty();
+
+  // S1 first, then S0: the select code reads S1 S0
+  const select = panel.getByTestId('pick-select');
+  await select.getByLabel('S1').check();
+  await select.getByLabel('S0').check();
+  const map = panel.getByTestId('function-map');
+  await expect(map).toBeVisible();
+  await expect(map).toContainText('data A, B');
+  const cell = (code: string) => map.getByTestId(`fmap-${code}-Y`);
+  // the function id alone (so OR does not match XOR or NOR)
+  const fname = (code: string) => cell(code).locator('span.font-mono');
+  await expect(fname('00')).toHaveText('AND');
+  await expect(fname('01')).toHaveText('OR');
+  await expect(fname('10')).toHaveText('XOR');
+  await expect(fname('11')).toHaveText('NOT_A');
+  await map.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'test-results/analysis-01-function-map.png' });
+  await panel.screenshot({ path: 'test-results/analysis-02-panel.png' });
+
+  // Delete the XOR gate on the canvas: select code 10 no longer computes XOR, the others stay.
+  await page.getByTestId('part-g_xor').click();
+  await page.keyboard.press('Delete');
+  await expect(page.getByTestId('part-g_xor')).toHaveCount(0);
+  await expect(cell('10')).not.toContainText('XOR', { timeout: 10_000 });
+  await expect(fname('00')).toHaveText('AND');
+  await expect(fname('01')).toHaveText('OR');
+  await expect(fname('11')).toHaveText('NOT_A');
+  await map.scrollIntoViewIfNeeded();
+  await panel.screenshot({ path: 'test-results/analysis-03-after-delete.png' });
+});
