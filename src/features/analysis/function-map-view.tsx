@@ -25,7 +25,8 @@ export function FunctionMapView({ result, select }: { result: AnalysisResult; se
                 const f = e.functions[o];
                 return (
                   <td key={o} className="px-2 py-0.5" data-testid={`fmap-${e.select}-${o}`}>
-                    {f.name ? <span title={`${FUNCTION_TITLES[f.name]} — ${f.sop}`}><span className="font-mono">{f.name}</span> <span className="text-slate-400">{FUNCTION_TITLES[f.name]}</span></span> : <code className="font-mono">{f.sop}</code>}
+                    {/* the title already starts with the function's name (AND, NOT A…): shown once, the id kept as data */}
+                    {f.name ? <span title={f.sop} data-function={f.name}>{FUNCTION_TITLES[f.name]}</span> : <code className="font-mono" title="no two-input name: its minimal SOP">{f.sop}</code>}
                   </td>
                 );
               })}
