@@ -1,3 +1,5 @@
+import { lagrangianTerms } from './cover-bound';
+
 /** Number of set bits of a 32-bit word. */
 export function pop(x: number): number {
   let v = x >>> 0;
@@ -192,7 +194,7 @@ export class CoverMatrix {
    * pay a whole prime, so this includes the independent-rows bound); (b) the share bound — each row pays
    * the least cost-per-open-row among its primes.
    */
-  lowerBound(rows: Uint32Array, primes: Uint32Array): number {
+  lowerBound(rows: Uint32Array, primes: Uint32Array, need = Infinity): number {
     const { pw } = this;
     const open = listBits(rows, this.rowCount);
     const deg = new Map(open.map((r) => [r, this.rowDegree(r, primes)]));
@@ -204,10 +206,12 @@ export class CoverMatrix {
     let ascentL = 0;
     let shareT = 0;
     let shareL = 0;
-    const mine: number[] = [];
+    const lists: number[][] = [];
+    const ys: number[] = [];
     for (const r of open) {
       const o = r * pw;
-      mine.length = 0;
+      const mine: number[] = [];
+      lists.push(mine);
       let yT = Infinity;
       let yL = Infinity;
       let sT = Infinity;
@@ -233,13 +237,23 @@ export class CoverMatrix {
         slackT.set(p, (slackT.get(p) ?? 1) - yT);
         slackL.set(p, (slackL.get(p) ?? this.weight[p] - TERM) - yL);
       }
+      ys.push(yT);
       ascentT += yT;
       ascentL += yL;
       shareT += sT;
       shareL += sL;
     }
     const up = (x: number) => Math.ceil(x - 1e-9);
-    return up(Math.max(ascentT, shareT)) * TERM + up(Math.max(ascentL, shareL));
+    const litBound = up(Math.max(ascentL, shareL));
+    let terms = up(Math.max(ascentT, shareT));
+    if (terms * TERM + litBound < need && need < Infinity) {
+      // the cheap bounds do not prune this node: raise the term bound towards the LP optimum
+      const wanted = Math.ceil((need - litBound) / TERM);
+      const lag = lagrangianTerms(lists, ys, wanted - 1 + 1e-6);
+      this.steps += lag.steps;
+      terms = Math.max(terms, up(lag.bound));
+    }
+    return terms * TERM + litBound;
   }
 }
 

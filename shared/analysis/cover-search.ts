@@ -69,7 +69,8 @@ export function searchCovers(clauses: number[][], lits: number[], upper: number[
       }
       return done();
     }
-    const lb = m.lowerBound(rows, primes);
+    // what the bound must reach to prune: ties are pruned while proving, kept while listing
+    const lb = m.lowerBound(rows, primes, listing ? best - cost + 1 : best - cost);
     if (listing ? cost + lb > best : cost + lb >= best) return done();
     const options = m.branchOrder(pick, rows, primes);
     const here = taken.length; // after this node's forced primes

@@ -19,7 +19,7 @@ export interface MinimalCovers {
   note?: string;
 }
 
-/** Limits of the exact method (defaults: 12 inputs, 600 products, 100,000,000 + 2,000,000 search word operations, 32 covers). */
+/** Limits of the exact method (defaults: 12 inputs, 600 products, 400,000,000 + 2,000,000 search word operations, 32 covers). */
 export interface MinimiseOptions {
   exactLimit?: number;
   /** products Petrick's expansion may keep before the depth-first search takes over */

@@ -55,7 +55,7 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
     const covers = expanded.slice(0, maxCovers).map((extra) => sorted([...base, ...extra]));
     return { covers, exact: true, truncated: expanded.length > maxCovers };
   }
-  const found = searchCovers(prob.clauses, lits, greedy, { work: opts.work ?? 100_000_000, listWork: opts.listWork ?? 2_000_000, maxCovers });
+  const found = searchCovers(prob.clauses, lits, greedy, { work: opts.work ?? 400_000_000, listWork: opts.listWork ?? 2_000_000, maxCovers });
   const covers = found.covers.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {
     return { covers: covers.slice(0, 1), exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
