@@ -2,7 +2,8 @@
  * Opening a 1,000-part board in headless Chromium: the built app served by the real server (started
  * as the browser tests start it, on a free port with a temporary database), a board imported from a
  * generated file, and the time from navigation until the first parts, then every part, are drawn on
- * the bench. Also the mean frame time while the bench pans over all 1,000 parts.
+ * the bench. Also the mean frame time while the bench pans over all 1,000 parts (first drag after
+ * opening, then a second drag). Each figure is the median of RUNS opens.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
@@ -16,6 +17,7 @@ import type { BenchRow } from './run';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const ROWS = 250; // four parts a row: switch → 2-input NAND → NOT → lamp
+const RUNS = 3; // opens of the board; each figure is the median
 const LAUNCH_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
   '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
@@ -36,6 +38,12 @@ export function thousandPartBoard(): BoardFile {
     wires.push({ id: `d${r}`, from: `n${r}.out`, to: `l${r}.in` });
   }
   return { format: 'gatefold-board', version: 1, title: 'Thousand-part bench', family: 'ideal', parts, wires };
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
 }
 
 async function startServer(): Promise<{ baseURL: string; stop(): Promise<void> }> {
@@ -108,24 +116,39 @@ export default async function canvasBench(): Promise<BenchRow[]> {
     await page.goto(`/boards/${id}`);
     await page.waitForFunction((n) => document.querySelectorAll('.react-flow__node').length >= n, all, { timeout: 120_000 });
 
-    const t0 = Date.now();
-    await page.goto(`/boards/${id}`);
-    await page.waitForSelector('[data-testid="board-workspace"]', { timeout: 120_000 });
-    await page.waitForSelector('[data-testid="sync-note"]', { state: 'detached', timeout: 120_000 });
-    const synced = Date.now() - t0;
-    await page.waitForSelector('.react-flow__node', { timeout: 120_000 });
-    const first = Date.now() - t0;
-    await page.waitForFunction((n) => document.querySelectorAll('.react-flow__node').length >= n, all, { timeout: 120_000 });
-    const full = Date.now() - t0;
-
-    // Pan across the bench for 60 frames and time them.
-    const frame = (await page.evaluate(PAN_SCRIPT)) as number;
+    // Several opens, the median of each figure: on a shared 2-core machine one run can be 40 % off.
+    const runs: { synced: number; first: number; full: number; pan: number; again: number }[] = [];
+    for (let i = 0; i < RUNS; i++) {
+      const t0 = Date.now();
+      await page.goto(`/boards/${id}`);
+      await page.waitForSelector('[data-testid="board-workspace"]', { timeout: 120_000 });
+      await page.waitForSelector('[data-testid="sync-note"]', { state: 'detached', timeout: 120_000 });
+      const synced = Date.now() - t0;
+      await page.waitForSelector('.react-flow__node', { timeout: 120_000 });
+      const first = Date.now() - t0;
+      await page.waitForFunction((n) => document.querySelectorAll('.react-flow__node').length >= n, all, { timeout: 120_000 });
+      const full = Date.now() - t0;
+      // At fit-to-view a 1,000-part board must be in the plain-box mode, with every wire still drawn.
+      const drawn = await page.evaluate(() => ({ far: document.querySelectorAll('.gf-far').length, wires: document.querySelectorAll('.react-flow__edge path').length }));
+      if (drawn.far < all || drawn.wires < board.wires.length) throw new Error(`at fit view: ${drawn.far} plain boxes, ${drawn.wires} wire paths`);
+      // Pan across the bench for 60 frames and time them: once right after opening (what a user feels
+      // first), then once more (the steady cost of a frame, without one-time work of the first drag).
+      const pan = (await page.evaluate(PAN_SCRIPT)) as number;
+      const again = (await page.evaluate(PAN_SCRIPT)) as number;
+      runs.push({ synced, first, full, pan, again });
+    }
+    const med = (k: keyof (typeof runs)[number]) => median(runs.map((r) => r[k]));
+    const synced = med('synced');
+    const first = med('first');
+    const full = med('full');
+    const frame = med('pan');
     const loadAvg = (await import('node:os')).loadavg()[0].toFixed(1);
     return [
       { name: 'open 1,000-part board: document synced', value: synced, unit: 'ms', note: 'navigation → app, sign-in check, socket, sync done' },
       { name: 'open 1,000-part board: first parts drawn', value: first, unit: 'ms', note: 'navigation → first node on the bench (assets cached)' },
       { name: 'open 1,000-part board: all 1,000 parts drawn', value: full, unit: 'ms', note: 'navigation → sync → fit to view → every node rendered' },
-      { name: 'pan over 1,000 parts: mean frame', value: frame, unit: 'ms', note: `headless Chromium, no GPU; 16.7 ms = 60 fps; machine load ${loadAvg}` },
+      { name: 'pan over 1,000 parts: mean frame', value: frame, unit: 'ms', note: `first drag after opening; headless Chromium, no GPU; 16.7 ms = 60 fps; machine load ${loadAvg}` },
+      { name: 'pan over 1,000 parts again: mean frame', value: med('again'), unit: 'ms', note: 'a second drag of the same bench (steady cost per frame)' },
     ];
   } finally {
     await browser.close();

@@ -3,8 +3,8 @@
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */
-import { memo, useMemo, useState } from 'react';
-import { Handle, Position, useStore, type NodeProps, type ReactFlowState } from '@xyflow/react';
+import { memo, useContext, useMemo, useState } from 'react';
+import { Handle, Position, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board/validate';
 import type { Level } from '../../../../shared/sim/levels';
 import { levelColor } from '../lib/colors';
@@ -13,10 +13,8 @@ import { PartSymbol } from '../symbols';
 import { NoteSymbol } from '../symbols/note-symbol';
 import { PartLabel } from './label-editor';
 import type { PartNode } from './types';
+import { FarContext } from './zoom-detail';
 
-/** Below this zoom a part is drawn as a plain box: a thousand detailed symbols cost whole frames to paint. */
-const DETAIL_ZOOM = 0.45;
-const zoomedOut = (s: ReactFlowState) => s.transform[2] < DETAIL_ZOOM;
 
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
@@ -25,7 +23,7 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const shape = useMemo(() => placedShape(part), [part]);
   const pinNames = useMemo(() => allPins(part), [part]);
   const [renaming, setRenaming] = useState(false);
-  const far = useStore(zoomedOut);
+  const far = useContext(FarContext);
   const level = (pin: string): Level | undefined => {
     const c = levels[pinNames.indexOf(pin)];
     return c === '0' || c === '1' || c === 'X' || c === 'Z' ? c : undefined;
@@ -51,12 +49,24 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
           </g>
         </svg>
       )}
-      {shape.pins.map((spot) => (
-        <Handle key={spot.pin} id={spot.pin} type={spot.output ? 'source' : 'target'} position={POSITION[spot.side]}
-          isConnectable={!readOnly} data-testid={`pin-${part.id}-${spot.pin}`} title={`${part.id}.${spot.pin}`}
-          className={`${spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'}${far ? ' gf-pin-far' : ''}`}
-          style={{ left: spot.x, top: spot.y, right: 'auto', bottom: 'auto', transform: 'translate(-50%, -50%)', borderColor: levelColor(level(spot.pin)) }} />
-      ))}
+      {shape.pins.map((spot) => {
+        const style = { left: spot.x, top: spot.y, right: 'auto', bottom: 'auto', transform: 'translate(-50%, -50%)', borderColor: levelColor(level(spot.pin)) };
+        const testId = `pin-${part.id}-${spot.pin}`;
+        const title = `${part.id}.${spot.pin}`;
+        // Zoomed out the pins are hidden and cannot be wired: a plain marker with the classes and data
+        // attributes the canvas measures pin positions from (wires still end on it) costs no store
+        // subscription, where a live handle costs one per pin on every pan frame.
+        if (far) {
+          const type = spot.output ? 'source' : 'target';
+          return <div key={spot.pin} data-handleid={spot.pin} data-handlepos={POSITION[spot.side]} data-nodeid={part.id} data-testid={testId} title={title}
+            className={`react-flow__handle react-flow__handle-${POSITION[spot.side]} ${type} gf-pin ${spot.output ? 'gf-pin-out' : 'gf-pin-in'} gf-pin-far`} style={style} />;
+        }
+        return (
+          <Handle key={spot.pin} id={spot.pin} type={spot.output ? 'source' : 'target'} position={POSITION[spot.side]}
+            isConnectable={!readOnly} data-testid={testId} title={title}
+            className={spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'} style={style} />
+        );
+      })}
       {badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null}
     </div>
   );

@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionMode, ControlButton, Controls, MiniMap, ReactFlow, useReactFlow,
+  Background, BackgroundVariant, ConnectionMode, ControlButton, Controls, MiniMap, ReactFlow, useReactFlow, useStore,
   type Connection, type OnSelectionChangeParams,
 } from '@xyflow/react';
 import { toast } from 'sonner';
@@ -18,6 +18,7 @@ import type { TrayChoice } from '../lib/new-part';
 import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
+import { FarContext, zoomedOut } from '../flow/zoom-detail';
 import type { PartNode, WireEdge } from '../flow/types';
 import { RemoteCursors } from '../presence/remote-cursors';
 import { throttle, type PeersView } from '../session/awareness';
@@ -56,6 +57,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
   const { session, peers, armed, onArm, helpOpen, onHelp, onReady } = props;
   const { readOnly, doc, origin, provider } = session;
   const rf = useReactFlow();
+  const far = useStore(zoomedOut);
   const flow = useFlowState(session, props, peers);
   const pointer = useRef<{ x: number; y: number } | null>(null);
   const [ready, setReady] = useState(false);
@@ -165,6 +167,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
 
   return (
     <PartActionsContext.Provider value={actions}>
+      <FarContext.Provider value={far}>
       <div className={`gf-bench relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="bench" data-readonly={readOnly ? 'true' : 'false'}
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
@@ -212,6 +215,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
         </ReactFlow>
         {helpOpen && <HelpSheet readOnly={readOnly} onClose={() => onHelp(false)} />}
       </div>
+      </FarContext.Provider>
     </PartActionsContext.Provider>
   );
 }
