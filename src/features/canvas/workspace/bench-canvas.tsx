@@ -200,7 +200,9 @@ export function BenchCanvas(props: BenchCanvasProps) {
           defaultEdgeOptions={{ type: 'wire' }}
           proOptions={{ hideAttribution: true }}
         >
-          <Background variant={BackgroundVariant.Dots} gap={GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
+          {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots
+              rasterised again on every pan frame (no GPU). Every fifth dot keeps the grid readable. */}
+          <Background variant={BackgroundVariant.Dots} gap={far ? GRID * 5 : GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
