@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 
 const root = new URL('../../', import.meta.url).pathname;
-const fixture = join(root, 'tests/analysis/fixtures/half-adder.gatefold.json');
+const fixture = join(root, 'tests/fixtures/half-adder.gatefold.json');
 const dir = mkdtempSync(join(tmpdir(), 'gatefold-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 

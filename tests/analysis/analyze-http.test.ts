@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
-const halfAdder = JSON.parse(readFileSync(new URL('./fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
+const halfAdder = JSON.parse(readFileSync(new URL('../fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
 
 describe('POST /api/analyze', () => {
   let app: TestApp;

@@ -8,6 +8,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { inverterRing, rippleCounter, norSrLatch, ringOscillator } from '../sim/circuits';
 import { readVcd } from '../sim/vcd-read';
 import { runCli } from './run-cli';
+import { contractHalfAdder } from '../helpers/boards';
 
 const dir = mkdtempSync(join(tmpdir(), 'gatefold-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -18,22 +19,7 @@ function file(name: string, content: unknown): string {
   return path;
 }
 
-const halfAdder = {
-  format: 'gatefold-board', version: 1, title: 'Half adder', family: 'ideal',
-  parts: [
-    { id: 'a', kind: 'switch', label: 'A', x: 40, y: 40, on: false },
-    { id: 'b', kind: 'switch', label: 'B', x: 40, y: 120, on: false },
-    { id: 'g1', kind: 'xor', inputs: 2, x: 200, y: 60 },
-    { id: 'g2', kind: 'and', inputs: 2, x: 200, y: 140 },
-    { id: 's', kind: 'lamp', label: 'S', x: 360, y: 60 },
-    { id: 'c', kind: 'lamp', label: 'C', x: 360, y: 140 },
-  ],
-  wires: [
-    { id: 'w1', from: 'a.out', to: 'g1.in0' }, { id: 'w2', from: 'b.out', to: 'g1.in1' },
-    { id: 'w3', from: 'a.out', to: 'g2.in0' }, { id: 'w4', from: 'b.out', to: 'g2.in1' },
-    { id: 'w5', from: 'g1.out', to: 's.in' }, { id: 'w6', from: 'g2.out', to: 'c.in' },
-  ],
-};
+const halfAdder = contractHalfAdder();
 
 describe('simulate', () => {
   it('prints {settled, oscillating, conflicts, outputs, trace} for --set (half adder truth table, textbook)', async () => {

@@ -5,24 +5,10 @@ import { boardToDoc, docToBoard } from '../../../../shared/board/ydoc';
 import type { BoardFile } from '../../../../shared/board/schema';
 import type { Level } from '../../../../shared/sim/levels';
 import { byId, deriveEdges, deriveNodes, mergeLocal, pinLevels, stabilizeBoard } from './derive-flow';
+import { contractHalfAdder } from '../../../../tests/helpers/boards';
 
 // The half adder of CONTRACTS §1 (our own example board).
-const HALF_ADDER: BoardFile = {
-  format: 'gatefold-board', version: 1, title: 'Half adder', family: 'ideal',
-  parts: [
-    { id: 'a', kind: 'switch', label: 'A', x: 40, y: 40, on: false },
-    { id: 'b', kind: 'switch', label: 'B', x: 40, y: 120, on: false },
-    { id: 'g1', kind: 'xor', inputs: 2, x: 200, y: 60 },
-    { id: 'g2', kind: 'and', inputs: 2, x: 200, y: 140 },
-    { id: 's', kind: 'lamp', label: 'S', x: 360, y: 60 },
-    { id: 'c', kind: 'lamp', label: 'C', x: 360, y: 140 },
-  ],
-  wires: [
-    { id: 'w1', from: 'a.out', to: 'g1.in0' }, { id: 'w2', from: 'b.out', to: 'g1.in1' },
-    { id: 'w3', from: 'a.out', to: 'g2.in0' }, { id: 'w4', from: 'b.out', to: 'g2.in1' },
-    { id: 'w5', from: 'g1.out', to: 's.in' }, { id: 'w6', from: 'g2.out', to: 'c.in' },
-  ],
-};
+const HALF_ADDER: BoardFile = contractHalfAdder();
 
 function liveDoc(): Y.Doc {
   const doc = new Y.Doc();
