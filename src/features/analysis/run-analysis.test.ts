@@ -4,7 +4,7 @@ import { parseBoardFile } from '../../../shared/board';
 import { runAnalysis } from './run-analysis';
 import { logicKey } from './use-analysis';
 
-const raw = JSON.parse(readFileSync(new URL('../../../tests/analysis/fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
+const raw = JSON.parse(readFileSync(new URL('../../../tests/fixtures/half-adder.gatefold.json', import.meta.url), 'utf8'));
 const parsed = parseBoardFile(raw);
 if (!parsed.ok) throw new Error('fixture');
 const board = parsed.board;
