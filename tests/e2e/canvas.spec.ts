@@ -21,8 +21,8 @@ async function openBoard(page: Page, id: number): Promise<void> {
   await expect(page.getByTestId('sync-note')).toHaveCount(0, { timeout: 15_000 });
 }
 
-/** Clicks the empty bench at (fx, fy) as fractions of its box. */
-async function clickBench(page: Page, fx: number, fy: number): Promise<void> {
+/** Clicks the empty canvas at (fx, fy) as fractions of its box. */
+async function clickCanvas(page: Page, fx: number, fy: number): Promise<void> {
   const box = (await page.locator('.react-flow__pane').boundingBox())!;
   await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
 }
@@ -43,7 +43,7 @@ async function wire(page: Page, from: Locator, to: Locator): Promise<void> {
   await page.mouse.up();
 }
 
-/** The translate() of a node on the bench (its position as drawn). */
+/** The translate() of a node on the canvas (its position as drawn). */
 async function nodePos(page: Page, id: string): Promise<string> {
   const style = (await page.locator(`.react-flow__node[data-id="${id}"]`).getAttribute('style')) ?? '';
   return /translate\([^)]*\)/.exec(style)?.[0] ?? '';
@@ -58,7 +58,7 @@ test('owner and editor edit one board live; undo is per person; a viewer cannot 
   const owner = await person(browser, gatefold.baseURL, OWNER);
   // State-changing API calls carry our Origin, as a browser's would (the server's forgery guard asks for it).
   const headers = { Origin: gatefold.baseURL };
-  const created = await owner.page.request.post('/api/boards', { data: { title: 'Half adder, bench test' }, headers });
+  const created = await owner.page.request.post('/api/boards', { data: { title: 'Half adder, canvas test' }, headers });
   expect(created.status()).toBe(201);
   const boardId = ((await created.json()) as { board: { id: number } }).board.id;
   const editor = await person(browser, gatefold.baseURL, EDITOR);
@@ -80,13 +80,13 @@ test('owner and editor edit one board live; undo is per person; a viewer cannot 
 
   // The owner places a toggle switch by click-then-click; the editor sees it.
   await o.getByTestId('tray-switch').click();
-  await clickBench(o, 0.25, 0.4);
+  await clickCanvas(o, 0.25, 0.4);
   await expect.poll(() => partIds(o, 'sw')).toHaveLength(1);
   const [sw] = await partIds(o, 'sw');
   await expect(e.getByTestId(`part-${sw}`)).toBeVisible();
   await expect(e.getByTestId(`part-${sw}`)).toContainText('A');
 
-  // The editor drags a lamp from the tray onto the bench; the owner sees it.
+  // The editor drags a lamp from the tray onto the canvas; the owner sees it.
   const pane = e.locator('.react-flow__pane');
   const pbox = (await pane.boundingBox())!;
   await e.getByTestId('tray-lamp').dragTo(pane, { targetPosition: { x: pbox.width * 0.6, y: pbox.height * 0.4 } });
@@ -140,7 +140,7 @@ test('owner and editor edit one board live; undo is per person; a viewer cannot 
   // …and the owner's selection is outlined in the owner's colour on the editor's screen.
   await expect(e.getByTestId(`part-${lamp}`)).toHaveAttribute('style', /box-shadow/);
 
-  // Copy and paste (Ctrl+C / Ctrl+V) through the bench clipboard: a second lamp with a fresh id and label.
+  // Copy and paste (Ctrl+C / Ctrl+V) through the canvas clipboard: a second lamp with a fresh id and label.
   await e.getByTestId(`part-${lamp}`).click();
   await e.keyboard.press('Control+c');
   await e.mouse.move(pbox.x + pbox.width * 0.6, pbox.y + pbox.height * 0.7);
@@ -315,7 +315,7 @@ test('an editor who drops off the network keeps editing; the edits reach the oth
   await editor.ctx.setOffline(true);
   await expect(e.getByTestId('connection-status')).not.toHaveAttribute('data-status', 'live', { timeout: 20_000 });
   await e.getByTestId('tray-nand').click();
-  await clickBench(e, 0.4, 0.4);
+  await clickCanvas(e, 0.4, 0.4);
   await expect.poll(() => partIds(e, 'g')).toHaveLength(1);
   const [gate] = await partIds(e, 'g');
   await o.waitForTimeout(1000);

@@ -1,5 +1,5 @@
 /**
- * One part on the bench: its IEEE Std 91 symbol, a handle per pin (named as in the board file),
+ * One part on the canvas: its IEEE Std 91 symbol, a handle per pin (named as in the board file),
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */

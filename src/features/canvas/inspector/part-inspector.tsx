@@ -1,6 +1,6 @@
 /**
  * The part inspector: a section at the top of the right-hand column (or, when that column is not shown,
- * a small card floating at the top right of the bench, where it can cover parts) showing the one selected part's kind,
+ * a small card floating at the top right of the canvas, where it can cover parts) showing the one selected part's kind,
  * id, label, rotation and its kind's own fields (CONTRACTS §1). Every change is one named edit of
  * shared/board/edits on the session's own origin, so this user's undo takes it back; a refused value is
  * shown beside its field. Viewers see the values without controls. With several parts selected it

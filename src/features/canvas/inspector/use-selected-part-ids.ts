@@ -1,4 +1,4 @@
-/** The ids of the parts selected on this user's bench (React Flow's local selection, never the document). */
+/** The ids of the parts selected on this user's canvas (React Flow's local selection, never the document). */
 import { useMemo } from 'react';
 import { useStore, type ReactFlowState } from '@xyflow/react';
 

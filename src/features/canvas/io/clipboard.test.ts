@@ -13,7 +13,7 @@ const board = {
   wires: [{ id: 'w1', from: 's.out', to: 'q.in' }],
 };
 
-describe('bench clipboard', () => {
+describe('canvas clipboard', () => {
   it('carries a fragment as JSON text between two documents (another board or tab)', () => {
     const a = new Y.Doc();
     boardToDoc(board, a);

@@ -1,7 +1,7 @@
 /**
- * The bench clipboard holds a board-file FRAGMENT as JSON text: on the system clipboard through the
+ * The canvas clipboard holds a board-file FRAGMENT as JSON text: on the system clipboard through the
  * browser's copy/paste events (so pasting works between boards, tabs and windows; see
- * use-bench-commands) and always in this tab's memory too.
+ * use-canvas-commands) and always in this tab's memory too.
  */
 import { FragmentSchema, type Fragment } from '../../../../shared/board/schema';
 

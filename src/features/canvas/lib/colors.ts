@@ -15,11 +15,12 @@ export const INK = {
   stroke: '#c7ced8',
   /** body fill of a symbol */
   fill: '#1a2028',
-  /** text on the bench */
+  /** text on the canvas */
   text: '#d5dbe3',
   dim: '#8b95a3',
   grid: '#2a323d',
-  bench: '#0f1318',
+  /** the canvas background under the grid */
+  canvas: '#0f1318',
 } as const;
 
 /** Colour of a signal level; undefined level means "not simulated". */

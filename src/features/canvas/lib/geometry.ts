@@ -1,5 +1,5 @@
 /**
- * Size of each part on the bench and where its pins sit, in unrotated part coordinates
+ * Size of each part on the canvas and where its pins sit, in unrotated part coordinates
  * (inputs on the left, outputs on the right, select lines at the bottom), then rotated.
  * Pin offsets are multiples of the 20 px grid wherever the shape allows, so that parts placed on
  * the grid give straight wires.
@@ -119,7 +119,7 @@ export function rotationTransform(w: number, h: number, rotation: Rotation): str
   }
 }
 
-/** Shape of a placed part with its rotation applied: the box and the pins as they sit on the bench. */
+/** Shape of a placed part with its rotation applied: the box and the pins as they sit on the canvas. */
 export function placedShape(part: Part): PartShape & { rotation: Rotation; baseW: number; baseH: number } {
   const base = part.kind === 'note' ? noteShape(part.text) : shapeOf(part.kind, 'inputs' in part ? part.inputs : 2);
   const rotation = (part.rotation ?? 0) as Rotation;
@@ -145,7 +145,7 @@ export function noteShape(text: string): PartShape {
   return { w, h, pins: [] };
 }
 
-/** Nearest grid point (the bench snaps to a 20 px grid). */
+/** Nearest grid point (the canvas snaps to a 20 px grid). */
 export function snap(v: number): number {
   return Math.round(v / GRID) * GRID;
 }

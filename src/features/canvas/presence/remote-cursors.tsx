@@ -1,4 +1,4 @@
-/** Collaborators' pointers on the bench, in flow coordinates, each with its owner's name and colour. */
+/** Collaborators' pointers on the canvas, in flow coordinates, each with its owner's name and colour. */
 import { memo } from 'react';
 import { ViewportPortal } from '@xyflow/react';
 import type { Peer } from '../session/awareness';

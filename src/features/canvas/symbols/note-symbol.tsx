@@ -1,4 +1,4 @@
-/** A text note on the bench: double-click to edit (editors only). */
+/** A text note on the canvas: double-click to edit (editors only). */
 import { useState } from 'react';
 import type { Part } from '../../../../shared/board/schema';
 import { usePartActions } from '../flow/part-actions';

@@ -1,11 +1,11 @@
-/** The bench's small toolbar: undo / redo of your own edits, rotate, duplicate, delete, file and picture export, help. */
+/** The canvas toolbar: undo / redo of your own edits, rotate, duplicate, delete, file and picture export, help. */
 import { useState, type ReactNode } from 'react';
 import { toast } from 'sonner';
 import { download, boardFileName, downloadBoardFile } from '../io/board-file-io';
 import { renderBoardImage } from '../io/export-image';
 import { ImportBoardButton } from '../io/import-board-button';
 import type { BoardSession } from '../session/use-board-session';
-import type { BenchApi } from '../workspace/bench-canvas';
+import type { CanvasApi } from '../workspace/board-canvas';
 
 function Tool({ onClick, disabled, title, children, testId }: { onClick(): void; disabled?: boolean; title: string; children: ReactNode; testId: string }) {
   return (
@@ -18,23 +18,23 @@ function Tool({ onClick, disabled, title, children, testId }: { onClick(): void;
 
 interface Props {
   session: BoardSession;
-  bench: BenchApi | null;
+  canvas: CanvasApi | null;
   /** the element holding the React Flow viewport (for pictures) */
   canvasEl: () => HTMLElement | null;
   fitAll(): Promise<() => void>;
   onHelp(): void;
 }
 
-export function CanvasToolbar({ session, bench, canvasEl, fitAll, onHelp }: Props) {
+export function CanvasToolbar({ session, canvas, canvasEl, fitAll, onHelp }: Props) {
   const [busy, setBusy] = useState(false);
   const editing = !session.readOnly;
   const picture = async (format: 'png' | 'svg') => {
     const el = canvasEl();
-    if (!el || !bench) return;
+    if (!el || !canvas) return;
     setBusy(true);
     const restore = await fitAll();
     try {
-      const url = await renderBoardImage(el, bench.nodes(), format);
+      const url = await renderBoardImage(el, canvas.nodes(), format);
       download(url, boardFileName(session.board.title || 'board', format));
     } catch (err) {
       toast.error(`Could not make the ${format.toUpperCase()}: ${(err as Error).message}`);
@@ -44,15 +44,15 @@ export function CanvasToolbar({ session, bench, canvasEl, fitAll, onHelp }: Prop
     }
   };
   return (
-    <div className="flex items-center gap-0.5" role="toolbar" aria-label="Bench tools" data-testid="canvas-toolbar">
+    <div className="flex items-center gap-0.5" role="toolbar" aria-label="Canvas tools" data-testid="canvas-toolbar">
       {editing && (
         <>
           <Tool testId="tool-undo" title="Undo your last edit (Ctrl+Z)" disabled={!session.canUndo} onClick={session.undo}>↶ Undo</Tool>
           <Tool testId="tool-redo" title="Redo (Ctrl+Shift+Z)" disabled={!session.canRedo} onClick={session.redo}>↷ Redo</Tool>
           <span className="mx-1 h-4 w-px bg-bench-600" />
-          <Tool testId="tool-rotate" title="Rotate the selection (R)" onClick={() => bench?.run('rotate')}>⟳ Rotate</Tool>
-          <Tool testId="tool-duplicate" title="Duplicate the selection (Ctrl+D)" onClick={() => bench?.run('duplicate')}>⧉ Duplicate</Tool>
-          <Tool testId="tool-delete" title="Delete the selection (Delete)" onClick={() => bench?.run('delete')}>✕ Delete</Tool>
+          <Tool testId="tool-rotate" title="Rotate the selection (R)" onClick={() => canvas?.run('rotate')}>⟳ Rotate</Tool>
+          <Tool testId="tool-duplicate" title="Duplicate the selection (Ctrl+D)" onClick={() => canvas?.run('duplicate')}>⧉ Duplicate</Tool>
+          <Tool testId="tool-delete" title="Delete the selection (Delete)" onClick={() => canvas?.run('delete')}>✕ Delete</Tool>
           <span className="mx-1 h-4 w-px bg-bench-600" />
         </>
       )}

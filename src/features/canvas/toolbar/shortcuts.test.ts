@@ -5,7 +5,7 @@ const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shif
   commandOf({ key: k, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
 
 describe('commandOf', () => {
-  it('reads the bench shortcuts, with Cmd standing in for Ctrl', () => {
+  it('reads the canvas shortcuts, with Cmd standing in for Ctrl', () => {
     expect(key('Delete')).toBe('delete');
     expect(key('Backspace')).toBe('delete');
     expect(key('c', { ctrlKey: true })).toBe('copy');

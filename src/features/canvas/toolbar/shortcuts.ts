@@ -1,4 +1,4 @@
-/** The bench's keyboard shortcuts: one table drives both the key handling and the help sheet. */
+/** The canvas's keyboard shortcuts: one table drives both the key handling and the help sheet. */
 export type CommandName = 'delete' | 'copy' | 'paste' | 'duplicate' | 'undo' | 'redo' | 'rotate' | 'help' | 'cancel' | 'selectAll';
 
 export interface Shortcut { command: CommandName; keys: string; does: string; editOnly: boolean }
@@ -18,7 +18,7 @@ export const SHORTCUTS: Shortcut[] = [
 
 export interface KeyLike { key: string; ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }
 
-/** The command a key press means on the bench, or null. Cmd counts as Ctrl (macOS). */
+/** The command a key press means on the canvas, or null. Cmd counts as Ctrl (macOS). */
 export function commandOf(e: KeyLike): CommandName | null {
   const mod = e.ctrlKey || e.metaKey;
   const k = e.key.length === 1 ? e.key.toLowerCase() : e.key;

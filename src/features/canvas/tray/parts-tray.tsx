@@ -1,6 +1,6 @@
 /**
- * The parts tray (left column): search by name, drag an entry onto the bench, or click it and then
- * click the bench. Gates carry an input-count choice (2–8).
+ * The parts tray (left column): search by name, drag an entry onto the canvas, or click it and then
+ * click the canvas. Gates carry an input-count choice (2–8).
  */
 import { memo, useMemo, useState, type DragEvent } from 'react';
 import { newPart, type TrayChoice } from '../lib/new-part';
@@ -58,7 +58,7 @@ export function PartsTray({ armed, onArm }: Props) {
               {list.map((it) => (
                 <li key={it.key}>
                   <div draggable onDragStart={(e) => onDragStart(e, it)} role="button" tabIndex={0} data-testid={`tray-${it.key}`}
-                    aria-pressed={isArmed(it)} title="Drag onto the bench, or click here and then on the bench"
+                    aria-pressed={isArmed(it)} title="Drag onto the canvas, or click here and then on the canvas"
                     onClick={() => onArm(isArmed(it) ? null : choiceOf(it))}
                     onKeyDown={(e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); onArm(choiceOf(it)); } }}
                     className={`flex cursor-grab items-center gap-2 rounded px-1.5 py-1 text-xs hover:bg-bench-800 ${isArmed(it) ? 'bg-bench-700 ring-1 ring-amber-glow' : ''}`}>
@@ -83,7 +83,7 @@ export function PartsTray({ armed, onArm }: Props) {
           </section>
         ))}
       </div>
-      {armed && <div className="border-t border-bench-700 p-2 text-[11px] text-amber-300" data-testid="tray-armed">Click the bench to place · Esc to cancel</div>}
+      {armed && <div className="border-t border-bench-700 p-2 text-[11px] text-amber-300" data-testid="tray-armed">Click the canvas to place · Esc to cancel</div>}
     </aside>
   );
 }

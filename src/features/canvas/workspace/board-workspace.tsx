@@ -1,5 +1,5 @@
 /**
- * The board workspace: presence and tools on top, the parts tray on the left (editors only), the bench
+ * The board workspace: presence and tools on top, the parts tray on the left (editors only), the canvas
  * in the middle, optional panels in a collapsible right column and an optional resizable bottom dock.
  */
 import { useCallback, useRef, useState, type ReactNode } from 'react';
@@ -15,7 +15,7 @@ import type { BoardSession } from '../session/use-board-session';
 import { CanvasToolbar } from '../toolbar/canvas-toolbar';
 import { PartInspector } from '../inspector/part-inspector';
 import { PartsTray } from '../tray/parts-tray';
-import { BenchCanvas, type BenchApi } from './bench-canvas';
+import { BoardCanvas, type CanvasApi } from './board-canvas';
 import { BottomDock } from './bottom-dock';
 
 export interface BoardWorkspaceProps {
@@ -46,7 +46,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
   const [armed, setArmed] = useState<TrayChoice | null>(null);
   const [help, setHelp] = useState(false);
   const [panelsOpen, setPanelsOpen] = useState(true);
-  const [bench, setBench] = useState<BenchApi | null>(null);
+  const [canvas, setCanvas] = useState<CanvasApi | null>(null);
   const canvasBox = useRef<HTMLDivElement>(null);
   const rf = useReactFlow();
 
@@ -64,7 +64,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
         <PresenceBar me={session.user} peers={peers.peers} status={session.status} />
         {session.readOnly && <span className="rounded bg-bench-700 px-2 py-0.5 text-[11px] text-slate-300" data-testid="read-only-note">viewing · read-only</span>}
         <div className="ml-auto">
-          <CanvasToolbar session={session} bench={bench} canvasEl={() => canvasBox.current} fitAll={fitAll} onHelp={() => setHelp((h) => !h)} />
+          <CanvasToolbar session={session} canvas={canvas} canvasEl={() => canvasBox.current} fitAll={fitAll} onHelp={() => setHelp((h) => !h)} />
         </div>
         {panels ? (
           <button type="button" className="h-7 rounded px-2 text-xs text-slate-300 hover:bg-bench-700" data-testid="toggle-panels"
@@ -75,8 +75,8 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
         {!session.readOnly && <PartsTray armed={armed} onArm={setArmed} />}
         <div className="flex min-h-0 min-w-0 flex-1 flex-col">
           <div ref={canvasBox} className="relative min-h-0 flex-1">
-            <BenchCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
-              highlight={highlight} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setBench} />
+            <BoardCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
+              highlight={highlight} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setCanvas} />
             {!(panels && panelsOpen) && <PartInspector session={session} placement="float" />}
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">

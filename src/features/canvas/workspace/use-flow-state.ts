@@ -1,5 +1,5 @@
 /**
- * React Flow's nodes and edges for the bench: derived from the session's board (plus levels, badges,
+ * React Flow's nodes and edges for the canvas: derived from the session's board (plus levels, badges,
  * highlights, try-out values and collaborators' selections and drags), joined with the local view
  * state React Flow keeps (selection, measured size, a drag in progress), which never enters the document.
  */

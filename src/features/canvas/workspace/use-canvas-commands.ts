@@ -1,5 +1,5 @@
 /**
- * The bench's commands (delete, copy, paste, duplicate, rotate, undo, redo, place a part), each one
+ * The canvas commands (delete, copy, paste, duplicate, rotate, undo, redo, place a part), each one
  * named edit of shared/board/edits on the session's own origin, and the keyboard that triggers them.
  */
 import { useCallback, useEffect, useRef } from 'react';
@@ -18,7 +18,7 @@ interface Deps {
   nodes: PartNode[];
   edges: WireEdge[];
   selectOnly(ids: Iterable<string>): void;
-  /** last pointer position on the bench, flow coordinates */
+  /** last pointer position on the canvas, flow coordinates */
   pointer: React.RefObject<{ x: number; y: number } | null>;
   onHelp(): void;
   onCancel(): void;
@@ -30,7 +30,7 @@ function isEditable(target: EventTarget | null): boolean {
   return el.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(el.tagName);
 }
 
-export function useBenchCommands(deps: Deps) {
+export function useCanvasCommands(deps: Deps) {
   const ref = useRef(deps);
   ref.current = deps;
 

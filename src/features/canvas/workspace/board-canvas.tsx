@@ -1,5 +1,5 @@
 /**
- * The bench itself: React Flow showing the board's parts and wires, wired to the named edits of
+ * The canvas itself: React Flow showing the board's parts and wires, wired to the named edits of
  * shared/board/edits. Drag positions travel through awareness while dragging and are written to the
  * document once, on drag stop.
  */
@@ -25,7 +25,7 @@ import { throttle, type PeersView } from '../session/awareness';
 import type { BoardSession } from '../session/use-board-session';
 import { TRAY_MIME } from '../tray/tray-items';
 import { HelpSheet } from '../toolbar/help-sheet';
-import { useBenchCommands } from './use-bench-commands';
+import { useCanvasCommands } from './use-canvas-commands';
 import { useFlowState, type OverlayProps } from './use-flow-state';
 
 const nodeTypes = { part: PartNodeComponent };
@@ -35,7 +35,7 @@ const MINIMAP_AUTO_LIMIT = 400;
 
 const minimapColor = () => '#3a4654';
 
-export interface BenchCanvasProps extends OverlayProps {
+export interface BoardCanvasProps extends OverlayProps {
   session: BoardSession;
   peers: PeersView;
   armed: TrayChoice | null;
@@ -44,16 +44,16 @@ export interface BenchCanvasProps extends OverlayProps {
   helpOpen: boolean;
   onHelp(open: boolean): void;
   /** gives the toolbar the commands and the node list (for image export) */
-  onReady?(api: BenchApi): void;
+  onReady?(api: CanvasApi): void;
 }
 
-export interface BenchApi {
-  run: ReturnType<typeof useBenchCommands>['run'];
+export interface CanvasApi {
+  run: ReturnType<typeof useCanvasCommands>['run'];
   nodes(): PartNode[];
   selectedCount(): number;
 }
 
-export function BenchCanvas(props: BenchCanvasProps) {
+export function BoardCanvas(props: BoardCanvasProps) {
   const { session, peers, armed, onArm, helpOpen, onHelp, onReady } = props;
   const { readOnly, doc, origin, provider } = session;
   const rf = useReactFlow();
@@ -65,7 +65,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
   const [mapChoice, setMapChoice] = useState<boolean | null>(null);
   const showMap = mapChoice ?? session.board.parts.length <= MINIMAP_AUTO_LIMIT;
 
-  const commands = useBenchCommands({
+  const commands = useCanvasCommands({
     session, nodes: flow.nodes, edges: flow.edges, selectOnly: flow.selectOnly, pointer,
     onHelp: () => onHelp(!helpOpen), onCancel: () => { onArm(null); onHelp(false); },
   });
@@ -168,7 +168,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
   return (
     <PartActionsContext.Provider value={actions}>
       <FarContext.Provider value={far}>
-      <div className={`gf-bench relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="bench" data-readonly={readOnly ? 'true' : 'false'}
+      <div className={`gf-canvas relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="board-canvas" data-readonly={readOnly ? 'true' : 'false'}
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
           nodes={flow.nodes}
@@ -202,7 +202,7 @@ export function BenchCanvas(props: BenchCanvasProps) {
         >
           {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots
               rasterised again on every pan frame (no GPU). Every fifth dot keeps the grid readable. */}
-          <Background variant={BackgroundVariant.Dots} gap={far ? GRID * 5 : GRID} size={1.2} color={INK.grid} bgColor={INK.bench} />
+          <Background variant={BackgroundVariant.Dots} gap={far ? GRID * 5 : GRID} size={1.2} color={INK.grid} bgColor={INK.canvas} />
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
