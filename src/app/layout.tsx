@@ -6,7 +6,7 @@ import { Button } from '../components/ui/button';
 import { LoadingState } from '../components/ui/spinner';
 import { ErrorState } from '../components/ui/error-state';
 import { Wordmark } from '../components/ui/wordmark';
-import { meQueryOptions, useSignOut } from '../features/auth/api';
+import { meQueryOptions, useSignOut } from '../features/auth';
 import { cn } from '../lib/cn';
 import { notifyError } from '../lib/notify';
 import { signInPath } from '../lib/safe-next';

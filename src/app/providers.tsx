@@ -1,7 +1,7 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useState, type ReactNode } from 'react';
 import { Toaster } from 'sonner';
-import { authKeys } from '../features/auth/api';
+import { authKeys } from '../features/auth';
 import { createQueryClient } from '../lib/query-client';
 
 /** Server state (TanStack Query) and the toaster, around the whole app. */

@@ -2,10 +2,8 @@ import { useQuery } from '@tanstack/react-query';
 import { EmptyState } from '../../components/ui/empty-state';
 import { ErrorState } from '../../components/ui/error-state';
 import { LoadingState } from '../../components/ui/spinner';
-import { meQueryOptions } from '../../features/auth/api';
-import { outboxQueryOptions } from '../../features/outbox/api';
-import { AdminsOnly } from '../../features/outbox/components/admins-only';
-import { OutboxTable } from '../../features/outbox/components/outbox-table';
+import { meQueryOptions } from '../../features/auth';
+import { outboxQueryOptions, AdminsOnly, OutboxTable } from '../../features/outbox';
 import { PageColumn } from '../layout';
 import { PageTitle } from '../../components/ui/page-title';
 

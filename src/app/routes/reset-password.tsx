@@ -1,6 +1,5 @@
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { AuthCard } from '../../features/auth/components/auth-card';
-import { NewPasswordForm } from '../../features/auth/components/new-password-form';
+import { AuthCard, NewPasswordForm } from '../../features/auth';
 import { notifySuccess } from '../../lib/notify';
 import { PageColumn } from '../layout';
 import { PageTitle } from '../../components/ui/page-title';

@@ -1,6 +1,5 @@
 import { Link } from 'react-router-dom';
-import { AuthCard } from '../../features/auth/components/auth-card';
-import { ResetRequestForm } from '../../features/auth/components/reset-request-form';
+import { AuthCard, ResetRequestForm } from '../../features/auth';
 import { PageColumn } from '../layout';
 import { PageTitle } from '../../components/ui/page-title';
 

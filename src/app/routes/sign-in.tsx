@@ -1,8 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
-import { meQueryOptions } from '../../features/auth/api';
-import { AuthCard } from '../../features/auth/components/auth-card';
-import { SignInForm } from '../../features/auth/components/sign-in-form';
+import { meQueryOptions, AuthCard, SignInForm } from '../../features/auth';
 import { safeNext } from '../../lib/safe-next';
 import { PageColumn } from '../layout';
 import { PageTitle } from '../../components/ui/page-title';

@@ -1,8 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
-import { meQueryOptions } from '../../features/auth/api';
-import { AuthCard } from '../../features/auth/components/auth-card';
-import { SignUpForm } from '../../features/auth/components/sign-up-form';
+import { meQueryOptions, AuthCard, SignUpForm } from '../../features/auth';
 import { notifySuccess } from '../../lib/notify';
 import { safeNext } from '../../lib/safe-next';
 import { PageColumn } from '../layout';
