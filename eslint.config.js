@@ -3,9 +3,24 @@ import tseslint from 'typescript-eslint';
 import importX from 'eslint-plugin-import-x';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
+import { readdirSync } from 'node:fs';
+import { URL } from 'node:url';
+
+// Each client feature is entered only through its index.ts: src/app, src/components, src/lib and the
+// other features may import src/features/<name> (its index), never a file inside it. A new feature
+// folder is covered as soon as it exists.
+const featureZones = readdirSync(new URL('./src/features', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map(({ name }) => ({
+    target: ['./src/*', './src/!(features)/**', `./src/features/!(${name})/**`],
+    from: `./src/features/${name}`,
+    except: ['./index.ts'],
+    message: `import the ${name} feature through its index.ts (src/features/${name})`,
+  }));
 
 // The architecture of STYLE.md, checked: shared/ is pure, src/ never imports server/,
-// server/ never imports src/, only server/db touches Knex, migrations import no app code.
+// server/ never imports src/, only server/db touches Knex, migrations import no app code,
+// a client feature is imported only through its index.ts.
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'test-results/**', 'playwright-report/**', 'data/**', '.tmp/**'] },
   js.configs.recommended,
@@ -27,6 +42,7 @@ export default tseslint.config(
           { target: './src', from: './server', message: 'the client never imports the server' },
           { target: './server', from: './src', message: 'the server never imports the client' },
           { target: './migrations', from: ['./src', './server', './shared'], message: 'migrations import no app code' },
+          ...featureZones,
         ],
       }],
       'no-restricted-imports': 'off',

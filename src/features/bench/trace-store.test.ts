@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { emptyTrace } from '../timing/trace';
+import { emptyTrace } from '../timing';
 import { levelCode } from './protocol';
 import { applyTrace } from './trace-store';
 

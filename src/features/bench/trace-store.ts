@@ -1,4 +1,4 @@
-import { emptyTrace, pushChange, type Trace } from '../timing/trace';
+import { emptyTrace, pushChange, type Trace } from '../timing';
 import { codeLevel, type FromWorker } from './protocol';
 
 type StateMsg = Extract<FromWorker, { type: 'state' }>;
