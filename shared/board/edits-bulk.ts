@@ -4,7 +4,7 @@
  */
 import * as Y from 'yjs';
 import type { BoardFile, Fragment, Part, Wire } from './schema';
-import { splitPinRef } from './validate';
+import { splitPinRef } from './pins';
 import { newPartId, newWireId } from './ids';
 import { isInputKind, isOutputKind } from './kinds';
 import {

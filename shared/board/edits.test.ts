@@ -102,7 +102,7 @@ describe('move, rotate, relabel, setPartField, setMeta', () => {
   });
   it('refuses a duplicate or non-identifier label on an input or output, but not on a gate', () => {
     const doc = fresh();
-    expect(() => relabelPart(doc, 'b', 'A', ME)).toThrow(/already used/);
+    expect(() => relabelPart(doc, 'b', 'A', ME)).toThrow('b: label "A" is already on a');
     expect(() => relabelPart(doc, 's', 'my lamp', ME)).toThrow(EditError);
     relabelPart(doc, 'a', 'A', ME); // its own label again is fine
     relabelPart(doc, 'g1', 'sum gate', ME);

@@ -6,9 +6,9 @@
 import * as Y from 'yjs';
 import { newPartId, newWireId } from './ids';
 import { dedupeLabel } from './edits-bulk';
-import { isInputKind, isOutputKind, pinsOf } from './kinds';
-import { LABEL_RE, PartSchema, type BoardFile, type FamilyId, type Fragment, type Part } from './schema';
-import { splitPinRef } from './validate';
+import { isNamedKind, labelProblem, namedLabels } from './labels';
+import { allPins, pinSide, splitPinRef } from './pins';
+import { PartSchema, type BoardFile, type FamilyId, type Fragment, type Part } from './schema';
 import {
   PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap,
   wiresMap, type YRecord,
@@ -31,27 +31,10 @@ function checkedPart(raw: unknown): Part {
   return parsed.data;
 }
 
-/** Inputs and outputs are named by their labels (truth tables, Verilog ports), so those must be identifiers. */
-function isNamedKind(kind: string): boolean {
-  return isInputKind(kind) || isOutputKind(kind);
-}
-
-/** Labels of the board's inputs and outputs, except the part `exceptId`. */
-function namedLabels(doc: Y.Doc, exceptId?: string): Set<string> {
-  const used = new Set<string>();
-  for (const [id, p] of partsMap(doc).entries()) {
-    const label = p.get('label');
-    if (id !== exceptId && typeof label === 'string' && isNamedKind(String(p.get('kind')))) used.add(label);
-  }
-  return used;
-}
-
-/** Why `label` cannot name an input or output part `id`, or null when it can. */
-export function labelProblem(doc: Y.Doc, id: string, kind: string, label: string): string | null {
-  if (!isNamedKind(kind)) return null;
-  if (!LABEL_RE.test(label)) return `label "${label}" must be a letter or _ followed by letters, digits or _`;
-  if (namedLabels(doc, id).has(label)) return `label "${label}" is already used on this board`;
-  return null;
+/** Labels of the document's inputs and outputs (label → part id), except the part `exceptId`. */
+function docLabels(doc: Y.Doc, exceptId?: string): Map<string, string> {
+  const parts = [...partsMap(doc).entries()].map(([id, p]) => ({ id, kind: String(p.get('kind')), label: p.get('label') }));
+  return namedLabels(parts, exceptId);
 }
 
 /**
@@ -61,8 +44,10 @@ export function labelProblem(doc: Y.Doc, id: string, kind: string, label: string
 export function addPart(doc: Y.Doc, part: Part, origin: unknown): string {
   const parts = partsMap(doc);
   const id = part.id && !parts.has(part.id) ? part.id : newPartId(doc, part.kind);
-  const label = part.label && isNamedKind(part.kind) ? dedupeLabel(part.label, namedLabels(doc)) : part.label;
-  if (label && isNamedKind(part.kind) && !LABEL_RE.test(label)) throw new EditError('invalid_label', `${id}: label "${label}" must be a letter or _ followed by letters, digits or _`);
+  const taken = docLabels(doc);
+  const label = part.label && isNamedKind(part.kind) ? dedupeLabel(part.label, new Set(taken.keys())) : part.label;
+  const problem = label && isNamedKind(part.kind) ? labelProblem(label, taken) : null;
+  if (problem) throw new EditError('invalid_label', `${id}: ${problem}`);
   const checked = checkedPart(label === undefined ? { ...part, id } : { ...part, id, label });
   doc.transact(() => parts.set(id, partToYMap(checked, nextOrder(parts))), origin);
   return id;
@@ -101,7 +86,8 @@ export function rotateParts(doc: Y.Doc, ids: string[], origin: unknown): void {
 export function relabelPart(doc: Y.Doc, id: string, label: string, origin: unknown): void {
   const p = partsMap(doc).get(id);
   if (!p) throw new EditError('missing_part', `no part "${id}"`);
-  const problem = label === '' ? null : labelProblem(doc, id, String(p.get('kind')), label);
+  const kind = String(p.get('kind'));
+  const problem = label === '' || !isNamedKind(kind) ? null : labelProblem(label, docLabels(doc, id));
   if (problem) throw new EditError('invalid_label', `${id}: ${problem}`);
   setPartField(doc, id, 'label', label === '' ? undefined : label, origin);
 }
@@ -128,8 +114,7 @@ export function setPartField(doc: Y.Doc, id: string, field: string, value: unkno
 
 function removeWiresToMissingPins(doc: Y.Doc, partId: string): void {
   const part = readPart(partsMap(doc).get(partId)!);
-  const pins = pinsOf(part.kind, 'inputs' in part ? part.inputs : 2);
-  const all = [...pins.inputs, ...pins.outputs];
+  const all = allPins(part);
   const wires = wiresMap(doc);
   for (const [wid, w] of [...wires.entries()]) {
     for (const end of ['from', 'to'] as const) {
@@ -149,11 +134,7 @@ export function pinRole(doc: Y.Doc, ref: string): 'in' | 'out' | null {
   const split = splitPinRef(ref);
   const p = split && partsMap(doc).get(split.part);
   if (!split || !p) return null;
-  const part = readPart(p);
-  const pins = pinsOf(part.kind, 'inputs' in part ? part.inputs : 2);
-  if (pins.inputs.includes(split.pin)) return 'in';
-  if (pins.outputs.includes(split.pin)) return 'out';
-  return null;
+  return pinSide(readPart(p), split.pin);
 }
 
 /** Every pin on the same net as `ref` (joined through wires), `ref` included. */

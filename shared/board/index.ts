@@ -1,3 +1,11 @@
+/**
+ * Gatefold boards — the one way into `shared/board`: kinds and pins, pin references, the label rule,
+ * the board-file schema and its checks, the Yjs document and the named edits on it.
+ */
 export * from './kinds';
+export * from './pins';
+export * from './labels';
 export * from './schema';
 export * from './validate';
+export * from './ydoc';
+export * from './edits';

@@ -1,15 +1,13 @@
 import { z } from 'zod';
 import { MAX_GATE_INPUTS, MIN_GATE_INPUTS } from './kinds';
-
-/** Labels of inputs and outputs must be identifiers (they become Verilog ports and expression names). */
-export const LABEL_RE = /^[A-Za-z_][A-Za-z0-9_]*$/;
+import { LABEL_MAX_LENGTH } from './labels';
 
 const common = {
   id: z.string().min(1, 'part id is empty').max(64),
   x: z.number().finite().default(0),
   y: z.number().finite().default(0),
   rotation: z.union([z.literal(0), z.literal(90), z.literal(180), z.literal(270)]).optional(),
-  label: z.string().max(64).optional(),
+  label: z.string().max(LABEL_MAX_LENGTH).optional(),
 };
 const storageInit = { init: z.union([z.literal(0), z.literal(1)]).optional() };
 const gateInputs = { inputs: z.number().int().min(MIN_GATE_INPUTS).max(MAX_GATE_INPUTS).default(2) };

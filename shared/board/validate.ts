@@ -1,5 +1,7 @@
-import { BoardFileSchema, LABEL_RE, type BoardFile, type Part } from './schema';
-import { isInputKind, isOutputKind, pinsOf, PART_KINDS, type PartKind } from './kinds';
+import { BoardFileSchema, type BoardFile, type Part } from './schema';
+import { PART_KINDS, type PartKind } from './kinds';
+import { isNamedKind, LABEL_RE, labelProblem } from './labels';
+import { allPins, splitPinRef } from './pins';
 
 /** One problem in a board file, naming the part or wire it is about. */
 export interface BoardProblem {
@@ -11,19 +13,6 @@ export interface BoardProblem {
 }
 
 export type ParseResult = { ok: true; board: BoardFile } | { ok: false; problems: BoardProblem[] };
-
-/** Splits `part.pin` into its two halves (the part id may itself contain dots; the pin is after the last). */
-export function splitPinRef(ref: string): { part: string; pin: string } | null {
-  const dot = ref.lastIndexOf('.');
-  if (dot <= 0 || dot === ref.length - 1) return null;
-  return { part: ref.slice(0, dot), pin: ref.slice(dot + 1) };
-}
-
-/** All pins (inputs then outputs) of a part. */
-export function allPins(part: Part): string[] {
-  const p = pinsOf(part.kind, 'inputs' in part ? part.inputs : 2);
-  return [...p.inputs, ...p.outputs];
-}
 
 function idAt(raw: unknown, list: 'parts' | 'wires', index: unknown): string | undefined {
   if (typeof index !== 'number' || !raw || typeof raw !== 'object') return undefined;
@@ -68,15 +57,11 @@ export function checkBoard(board: BoardFile): BoardProblem[] {
   });
   const labels = new Map<string, string>();
   board.parts.forEach((part, i) => {
-    if (!isInputKind(part.kind) && !isOutputKind(part.kind)) return;
+    if (!isNamedKind(part.kind)) return;
     const label = part.label;
     if (label === undefined || label === '') return;
-    if (!LABEL_RE.test(label)) {
-      problems.push({ id: part.id, path: `parts[${i}].label`, message: `${part.id}: label "${label}" must be a letter or _ followed by letters, digits or _` });
-      return;
-    }
-    const other = labels.get(label);
-    if (other) problems.push({ id: part.id, path: `parts[${i}].label`, message: `${part.id}: duplicate label "${label}" (also on ${other})` });
+    const problem = labelProblem(label, labels);
+    if (problem) problems.push({ id: part.id, path: `parts[${i}].label`, message: `${part.id}: ${problem}` });
     else labels.set(label, part.id);
   });
   const wireIds = new Set<string>();

@@ -6,9 +6,8 @@
  * so that a file's order of parts and wires survives import → export; `order` is never exported.
  */
 import * as Y from 'yjs';
-import { pinsOf, type PartKind } from './kinds';
 import type { BoardFile, FamilyId, Part, Wire } from './schema';
-import { splitPinRef } from './validate';
+import { pinSide, splitPinRef } from './pins';
 
 /** The part fields of CONTRACTS §1, in the order an exported file lists them. */
 export const PART_FIELDS = [
@@ -116,8 +115,7 @@ export function pinExists(parts: Map<string, Part>, ref: string): boolean {
   if (!split) return false;
   const part = parts.get(split.part);
   if (!part) return false;
-  const pins = pinsOf(part.kind as PartKind, 'inputs' in part && typeof part.inputs === 'number' ? part.inputs : 2);
-  return pins.inputs.includes(split.pin) || pins.outputs.includes(split.pin);
+  return pinSide(part, split.pin) !== null;
 }
 
 /**

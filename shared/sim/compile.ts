@@ -2,7 +2,7 @@
  * Board → netlist: nets as unions of joined pins (union-find), their drivers and readers, and the driver
  * analysis (undriven nets, conflicting drivers).
  */
-import { isInputKind, isOutputKind, pinsOf, signalName, type BoardFile, type FamilyId, type Part } from '../board';
+import { isInputKind, isOutputKind, pinsOfPart, signalName, splitPinRef, type BoardFile, type FamilyId, type Part } from '../board';
 import { familyDelays } from './families';
 import type { CompiledPart, NetInfo, NetProblem, Netlist, PinRef } from './types';
 
@@ -26,7 +26,7 @@ function find(parent: Int32Array, i: number): number {
 
 /** Pins of a part as the simulator sees them. */
 export function partPins(part: Part): { inputs: string[]; outputs: string[] } {
-  return pinsOf(part.kind, 'inputs' in part ? part.inputs : 2);
+  return pinsOfPart(part);
 }
 
 /**
@@ -64,8 +64,8 @@ export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netli
     return o >= 0 ? base[p] + pins[p].inputs.length + o : undefined;
   };
   const slotOfRef = (ref: string): number | undefined => {
-    const dot = ref.lastIndexOf('.');
-    return dot <= 0 ? undefined : slotOfPin(ref.slice(0, dot), ref.slice(dot + 1));
+    const split = splitPinRef(ref);
+    return split ? slotOfPin(split.part, split.pin) : undefined;
   };
   const parent = new Int32Array(nSlots);
   for (let i = 0; i < parent.length; i++) parent[i] = i;

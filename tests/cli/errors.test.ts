@@ -34,7 +34,7 @@ const cases: [string, string[], RegExp][] = [
   ['bad JSON', ['simulate', write('bad.json', '{"format": ')], /not valid JSON/],
   ['unknown kind', ['simulate', write('kind.json', unknownKind)], /\bg\b.*unknown kind "triode"/],
   ['unknown pin', ['simulate', write('pin.json', unknownPin)], /w1.*no pin "grid"/],
-  ['duplicate label', ['simulate', write('dup.json', dupLabel)], /\by\b.*duplicate label "A"/],
+  ['duplicate label', ['simulate', write('dup.json', dupLabel)], /\by\b.*label "A" is already on a\b/],
   ['wire to a missing part', ['simulate', write('missing.json', missing)], /w2.*missing part "nowhere"/],
   ['unknown --set label', ['simulate', good, '--set', 'B=1'], /unknown input label "B"/],
   ['bad --set value', ['simulate', good, '--set', 'A=2'], /A=2/],

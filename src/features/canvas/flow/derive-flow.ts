@@ -3,8 +3,7 @@
  * very same node/edge objects from one derivation to the next, so memoised components do not
  * re-render and nothing is allocated for them.
  */
-import type { BoardFile, Part, Wire } from '../../../../shared/board/schema';
-import { allPins, splitPinRef } from '../../../../shared/board/validate';
+import { allPins, splitPinRef, type BoardFile, type Part, type Wire } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim/levels';
 import { placedShape } from '../lib/geometry';
 import type { PartBadge, PartNode, WireEdge } from './types';

@@ -5,7 +5,7 @@
  */
 import { memo, useContext, useMemo, useState } from 'react';
 import { Handle, Position, type NodeProps } from '@xyflow/react';
-import { allPins } from '../../../../shared/board/validate';
+import { allPins } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim/levels';
 import { levelColor } from '../lib/colors';
 import { placedShape, rotationTransform, type Side } from '../lib/geometry';
