@@ -5,7 +5,7 @@ import { familyFloating } from './floating';
 import type { TableSpec } from './table-spec';
 
 /** Level codes in a table: 0, 1, 2 = X, 3 = Z (as in the simulator). */
-export const CODE_CHARS = ['0', '1', 'X', 'Z'] as const;
+export { LEVELS as CODE_CHARS } from '../sim';
 
 /** A truth table: per output one level code per row; row r spells the inputs in binary, first most significant. */
 export interface TruthTable {

@@ -12,14 +12,20 @@
  * See docs/decisions/002-simulation-model.md for the model (four values, delays, initial state and the
  * power-on resolution of gate loops).
  */
-export type { Level } from './levels';
-export { LEVELS } from './levels';
+export { LEVELS, levelCode, codeLevel, encodeLevels, decodeLevels, type Level } from './levels';
+export { clockHalfPeriod, DEFAULT_CLOCK_PERIOD_GATE_DELAYS } from './clock-period';
 export type {
   PinRef, NetInfo, CompiledPart, NetProblem, Netlist, SettleReport, SimulatorOptions, SimStats, ChangeListener,
 } from './types';
 export { compileBoard, partPins, type CompileOptions } from './compile';
-export { Simulator, DEFAULT_CLOCK_PERIOD_GATE_DELAYS } from './simulator';
+export { Simulator } from './simulator';
 export { FAMILIES, familyOf, familyDelays, type FamilyData } from './families';
 export { mulberry32 } from './bounce';
 export { toVcd, vcdId, timescaleFor, type VcdSignal, type VcdSample, type VcdOptions } from './vcd';
 export { toVerilog, type VerilogOptions } from './verilog';
+export {
+  LiveSimulation, LiveEngine, halfPeriod, packLevels, ClockDriver, MAX_RATE, MIN_RATE, TraceRecorder, structureKey,
+  documentValue, inputSignature, partBadges,
+  type LiveOptions, type Timers, type TraceBatch, type Badge, type BadgeTone, type LiveCommand, type LiveUpdate,
+  type LivePort, type LiveReport,
+} from './live';

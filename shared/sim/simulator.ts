@@ -4,8 +4,9 @@
  * delays (a change that reverts before its delay is over is swallowed, as a real gate does).
  */
 import { isInputKind, isOutputKind } from '../board';
-import type { Level } from './levels';
-import { L0, L1, LX, LZ, NONE, levelCode, levelName } from './codes';
+import { codeLevel, levelCode, type Level } from './levels';
+import { L0, L1, LX, LZ, NONE } from './codes';
+import { clockHalfPeriod } from './clock-period';
 import { EventWheel } from './event-wheel';
 import { buildLayout } from './layout';
 import { familyDelays, familyOf } from './families';
@@ -16,9 +17,6 @@ import { Bouncer } from './bounce';
 import { findFeedbackLoops, selfSustainedX, type FeedbackLoops } from './loops';
 import type { SimLayout } from './layout';
 import type { ChangeListener, CompiledPart, Netlist, SettleReport, SimStats, SimulatorOptions } from './types';
-
-/** A clock toggles every half period; its period defaults to this many of the slowest gate delay. */
-export const DEFAULT_CLOCK_PERIOD_GATE_DELAYS = 32;
 
 /** Simulates a compiled board. */
 export class Simulator {
@@ -120,8 +118,7 @@ export class Simulator {
     this.wheel = new EventWheel(maxDelay);
     this.parts.forEach((p, i) => {
       if (p.kind !== 'clock' || p.part.kind !== 'clock') return;
-      const period = p.part.period ?? DEFAULT_CLOCK_PERIOD_GATE_DELAYS * maxDelay;
-      const half = Math.max(1, Math.round(period / 2));
+      const half = clockHalfPeriod(p.part.period, maxDelay);
       this.clocks.push({ part: i, half, next: half });
     });
     this.undrivenInputList = netlist.undriven.flatMap((net) => netlist.nets[net].readers
@@ -218,7 +215,7 @@ export class Simulator {
   private setNetRaw(net: number, v: number): void {
     this.netVal[net] = v;
     this.netChange[net] = this.now;
-    if (this.listeners.size) for (const cb of this.listeners) cb(this.now, net, levelName(v));
+    if (this.listeners.size) for (const cb of this.listeners) cb(this.now, net, codeLevel(v));
   }
 
   private setNet(net: number, v: number): void {
@@ -406,14 +403,14 @@ export class Simulator {
 
   /** Level of a net (Z when undriven, X when its drivers conflict). */
   level(netId: number): Level {
-    return levelName(this.netVal[netId]);
+    return codeLevel(this.netVal[netId]);
   }
 
   /** Level at a pin: what an input pin reads (floating value on an undriven net), or an output pin's net. */
   pinLevel(partId: string, pin: string): Level {
     const part = this.netlist.partById(partId);
     const net = this.netlist.netOf(partId, pin);
-    return part && part.inputPins.includes(pin) && !isOutputKind(part.kind) ? levelName(this.read(net)) : this.level(net);
+    return part && part.inputPins.includes(pin) && !isOutputKind(part.kind) ? codeLevel(this.read(net)) : this.level(net);
   }
 
   /** Every pin's level, keyed `partId.pin`. */
@@ -433,7 +430,7 @@ export class Simulator {
   /** Input part levels by label (or id). */
   inputValues(): Record<string, Level> {
     const r: Record<string, Level> = {};
-    for (const p of this.netlist.inputs) r[p.name] = levelName(this.sourceLevel[p.index]);
+    for (const p of this.netlist.inputs) r[p.name] = codeLevel(this.sourceLevel[p.index]);
     return r;
   }
 

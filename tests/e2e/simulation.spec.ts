@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Page } from '@playwright/test';
-import { debouncedDffBoard } from '../../src/features/bench/fixtures/debounced-dff';
+import { debouncedDffBoard } from '../../shared/sim/live/fixtures/debounced-dff';
 import { expect, signUp, test } from './fixtures';
 
 // The live simulation end to end, in real browsers against the real server, database and websocket:

@@ -6,8 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { compileBoard, Simulator, type Level } from '../../shared/sim';
-import { levelCode, levelName } from '../../shared/sim/codes';
+import { codeLevel, compileBoard, levelCode, Simulator, type Level } from '../../shared/sim';
 import { evalGate, evalNot, evalBuffer } from '../../shared/sim/parts/gates';
 import { evalMux2 } from '../../shared/sim/parts/mux';
 import { randomCircuit } from '../helpers/random-circuit';
@@ -21,7 +20,7 @@ const TABLES: Record<'and' | 'or' | 'xor', string[]> = {
 };
 
 function gate2(kind: 'and' | 'or' | 'xor' | 'nand' | 'nor' | 'xnor', a: Level, b: Level): Level {
-  return levelName(evalGate(kind, Uint8Array.of(levelCode(a), levelCode(b)), 2));
+  return codeLevel(evalGate(kind, Uint8Array.of(levelCode(a), levelCode(b)), 2));
 }
 
 describe('four-valued gate tables', () => {
@@ -37,22 +36,22 @@ describe('four-valued gate tables', () => {
   }
 
   it('not and buf turn X and Z into X', () => {
-    expect(V.map((v) => levelName(evalNot(levelCode(v))))).toEqual(['1', '0', 'X', 'X']);
-    expect(V.map((v) => levelName(evalBuffer(levelCode(v))))).toEqual(['0', '1', 'X', 'X']);
+    expect(V.map((v) => codeLevel(evalNot(levelCode(v))))).toEqual(['1', '0', 'X', 'X']);
+    expect(V.map((v) => codeLevel(evalBuffer(levelCode(v))))).toEqual(['0', '1', 'X', 'X']);
   });
 
   it('a controlling value wins in any position of an 8-input gate', () => {
     for (let pos = 0; pos < 8; pos++) {
       const inp = new Uint8Array(8).fill(levelCode('X'));
       inp[pos] = levelCode('0');
-      expect(levelName(evalGate('and', inp, 8))).toBe('0');
+      expect(codeLevel(evalGate('and', inp, 8))).toBe('0');
       inp[pos] = levelCode('1');
-      expect(levelName(evalGate('or', inp, 8))).toBe('1');
+      expect(codeLevel(evalGate('or', inp, 8))).toBe('1');
     }
   });
 
   it('mux2 with an X or Z select gives the data only when both data agree', () => {
-    const m = (s: Level, d0: Level, d1: Level) => levelName(evalMux2(Uint8Array.of(levelCode(s), levelCode(d0), levelCode(d1))));
+    const m = (s: Level, d0: Level, d1: Level) => codeLevel(evalMux2(Uint8Array.of(levelCode(s), levelCode(d0), levelCode(d1))));
     expect(m('X', '1', '1')).toBe('1');
     expect(m('Z', '0', '0')).toBe('0');
     expect(m('X', '0', '1')).toBe('X');

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { familyOf } from '../../../shared/sim/families';
+import { familyOf } from '../../../shared/sim';
 import { ClockControls } from './clock-controls';
 import { FamilyField } from './family-field';
 import { InputRow, OutputRow } from './port-rows';

@@ -1,4 +1,4 @@
-import { MAX_RATE, MIN_RATE } from './clock-driver';
+import { MAX_RATE, MIN_RATE } from '../../../shared/sim';
 import type { LiveSim } from './use-live-sim';
 
 const btn = 'h-7 rounded border border-bench-600 bg-bench-800 px-2.5 text-xs hover:border-bench-500 hover:bg-bench-700';

@@ -1,4 +1,4 @@
-import type { Level } from '../../../shared/sim/levels';
+import type { Level } from '../../../shared/sim';
 import { cn } from '../../lib/cn';
 
 const LOOK: Record<Level, string> = {

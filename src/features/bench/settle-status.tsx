@@ -1,9 +1,9 @@
 import type { FamilyId } from '../../../shared/board';
-import { familyOf } from '../../../shared/sim/families';
-import type { BenchReport } from './protocol';
+import { familyOf } from '../../../shared/sim';
+import type { LiveReport } from '../../../shared/sim';
 
 /** Whether the board settled, and if not, which nets oscillate, fight or float. */
-export function SettleStatus({ report, family }: { report: BenchReport; family: FamilyId }) {
+export function SettleStatus({ report, family }: { report: LiveReport; family: FamilyId }) {
   const f = familyOf(family);
   const trouble = report.oscillating.length + report.conflicts.length + report.undrivenInputs.length > 0;
   return (

@@ -1,15 +1,19 @@
 /**
- * The simulation worker: runs the board's simulator off the page's thread so the canvas never stutters.
- * Messages are handled in order. A `load` directly followed by another load with the same input values
- * is skipped (each load carries the whole board, so only the newest matters) — but never one whose
- * switch or button values differ, or a quick press and release would be lost.
+ * The simulation worker: a thin adapter that runs the shared live engine (shared/sim/live) off the page's
+ * thread so the canvas never stutters, with the real timers. Messages are handled in order. A `load`
+ * directly followed by another load with the same input values is skipped (each load carries the whole
+ * board, so only the newest matters) — but never one whose switch or button values differ, or a quick
+ * press and release would be lost.
  */
-import type { ToWorker } from './protocol';
-import { inputSignature } from './board-diff';
-import { BenchEngine } from './sim-engine';
+import { inputSignature, LiveEngine, type LiveCommand, type Timers } from '../../../shared/sim';
 
-const engine = new BenchEngine((msg, transfer) => self.postMessage(msg, { transfer: transfer ?? [] }));
-const queue: ToWorker[] = [];
+const timers: Timers = {
+  now: () => performance.now(),
+  setTimeout: (fn, ms) => setTimeout(fn, ms),
+  clearTimeout: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
+};
+const engine = new LiveEngine((msg, transfer) => self.postMessage(msg, { transfer: transfer ?? [] }), timers);
+const queue: LiveCommand[] = [];
 let scheduled = false;
 
 function drain(): void {
@@ -22,7 +26,7 @@ function drain(): void {
   });
 }
 
-self.onmessage = (event: MessageEvent<ToWorker>) => {
+self.onmessage = (event: MessageEvent<LiveCommand>) => {
   queue.push(event.data);
   if (!scheduled) {
     scheduled = true;

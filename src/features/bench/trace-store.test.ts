@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { emptyTrace } from '../timing';
-import { levelCode } from './protocol';
+import { levelCode } from '../../../shared/sim';
 import { applyTrace } from './trace-store';
 
 describe('applyTrace', () => {

@@ -1,7 +1,7 @@
 import { emptyTrace, pushChange, type Trace } from '../timing';
-import { codeLevel, type FromWorker } from './protocol';
+import { codeLevel, type LiveUpdate } from '../../../shared/sim';
 
-type StateMsg = Extract<FromWorker, { type: 'state' }>;
+type StateMsg = Extract<LiveUpdate, { type: 'state' }>;
 
 /**
  * New rows for the strip: a signal that was already recorded keeps its history, a new one starts empty.

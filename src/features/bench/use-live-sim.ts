@@ -2,10 +2,8 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type * as Y from 'yjs';
 import type { BoardFile } from '../../../shared/board';
 import { setPartField } from '../../../shared/board/edits';
-import type { Level } from '../../../shared/sim/levels';
 import { emptyTrace, type Trace, type SignalChoice } from '../timing';
-import type { Badge } from './badges';
-import { decodeLevels, type BenchReport, type FromWorker, type PortInfo, type ToWorker } from './protocol';
+import { decodeLevels, type Badge, type Level, type LiveCommand, type LivePort, type LiveReport, type LiveUpdate } from '../../../shared/sim';
 import { pulsingWireIds } from './pulse-style';
 import { applyTrace } from './trace-store';
 
@@ -17,15 +15,15 @@ export interface LiveSimSession {
   readOnly: boolean;
 }
 
-type Compiled = Extract<FromWorker, { type: 'compiled' }>;
+type Compiled = Extract<LiveUpdate, { type: 'compiled' }>;
 /** A state message with the pin keys of the compilation it belongs to. */
-type State = Extract<FromWorker, { type: 'state' }> & { keys: string[] };
+type State = Extract<LiveUpdate, { type: 'state' }> & { keys: string[] };
 
-export interface PortValue extends PortInfo {
+export interface PortValue extends LivePort {
   value: Level;
 }
 
-const NO_REPORT: BenchReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
+const NO_REPORT: LiveReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
 
 /**
  * The live simulation of a board, in a Web Worker. With `tryOut` (viewers) input changes stay private
@@ -43,14 +41,14 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   // the worker's copy must never lag a click, so the ref changes at once and the state follows
   const tryOutRef = useRef(tryOutValues);
 
-  const send = useCallback((msg: ToWorker) => worker.current?.postMessage(msg), []);
+  const send = useCallback((msg: LiveCommand) => worker.current?.postMessage(msg), []);
 
   useEffect(() => {
     const w = new Worker(new URL('./sim-worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
     // a state decodes with the keys of the compilation before it, even if React renders in between
     let keys: string[] = [];
-    w.onmessage = (e: MessageEvent<FromWorker>) => {
+    w.onmessage = (e: MessageEvent<LiveUpdate>) => {
       const msg = e.data;
       switch (msg.type) {
         case 'compiled':
@@ -132,7 +130,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   const partBadges = useMemo(() => new Map<string, Badge>((state?.badges ?? []).map(([id, tone, text]) => [id, { tone, text }])), [state]);
   const pulsing = useMemo<ReadonlySet<string>>(() => new Set(state?.pulsing ?? []), [state]);
   const pulsingWires = useMemo(() => pulsingWireIds(session.board.wires, pulsing), [session.board.wires, pulsing]);
-  const withValue = (ports: PortInfo[] | undefined): PortValue[] => (ports ?? []).map((p) => ({ ...p, value: state?.values[p.partId] ?? 'X' }));
+  const withValue = (ports: LivePort[] | undefined): PortValue[] => (ports ?? []).map((p) => ({ ...p, value: state?.values[p.partId] ?? 'X' }));
 
   return {
     ready: Boolean(compiled && state),

@@ -1,8 +1,12 @@
-import type { BoardFile, FamilyId } from '../../../shared/board';
-import type { Level } from '../../../shared/sim/levels';
+/**
+ * What a live simulation is told and what it reports, as unions on `type` — plain data, so the page can
+ * send them to a worker (the bench) and tests can drive the engine directly.
+ */
+import type { BoardFile, FamilyId } from '../../board';
+import type { Level } from '../levels';
 
-/** Messages from the page to the simulation worker, a union on `type`. */
-export type ToWorker =
+/** Commands to a live simulation. */
+export type LiveCommand =
   /** the board changed (at most once a frame); `tryOut` are the viewer's private input values */
   | { type: 'load'; board: BoardFile; tryOut: [partId: string, value: boolean][] }
   /** one input part's value (switch `on`, button `pressed`) as a private try-out, never synced */
@@ -20,7 +24,7 @@ export type ToWorker =
   | { type: 'clear-trace' };
 
 /** An input or output of the board as the bench lists it. */
-export interface PortInfo {
+export interface LivePort {
   partId: string;
   label: string;
   kind: string;
@@ -29,7 +33,7 @@ export interface PortInfo {
 }
 
 /** The settle report the bench shows. */
-export interface BenchReport {
+export interface LiveReport {
   settled: boolean;
   oscillating: string[];
   conflicts: string[];
@@ -40,14 +44,14 @@ export interface BenchReport {
   powerOn: string[];
 }
 
-/** Messages from the worker to the page. */
-export type FromWorker =
+/** Messages from a live simulation. */
+export type LiveUpdate =
   /** after every (re)compilation: the order of pin keys used by later `levels` arrays, ports, nets */
   | {
       type: 'compiled';
       keys: string[];
-      inputs: PortInfo[];
-      outputs: PortInfo[];
+      inputs: LivePort[];
+      outputs: LivePort[];
       nets: string[];
       family: FamilyId;
       timeUnitNs: number;
@@ -57,7 +61,7 @@ export type FromWorker =
       type: 'state';
       /** level codes in the order of the last `compiled.keys` (see `encodeLevels`) */
       levels: Uint8Array;
-      report: BenchReport;
+      report: LiveReport;
       /** input and output values by part id */
       values: Record<string, Level>;
       time: number;
@@ -77,46 +81,3 @@ export type FromWorker =
       traceReset?: { signals: string[]; at: number; fresh?: boolean };
     }
   | { type: 'error'; message: string };
-
-const CODES: readonly Level[] = ['0', '1', 'X', 'Z'];
-
-/** Level → its one-byte code (0, 1, X, Z → 0…3). */
-export function levelCode(level: Level): number {
-  switch (level) {
-    case '0':
-      return 0;
-    case '1':
-      return 1;
-    case 'X':
-      return 2;
-    case 'Z':
-      return 3;
-    default: {
-      const never: never = level;
-      throw new Error(`unknown level ${String(never)}`);
-    }
-  }
-}
-
-/** Code → level; anything out of range reads as unknown. */
-export function codeLevel(code: number): Level {
-  return CODES[code] ?? 'X';
-}
-
-/**
- * Packs pin levels into one byte per pin in the order of `keys`, so a state message is a small
- * transferable array rather than a map of strings. Pins missing from `levels` read as Z (undriven).
- */
-export function encodeLevels(keys: readonly string[], levels: ReadonlyMap<string, Level>): Uint8Array {
-  const out = new Uint8Array(keys.length);
-  for (let i = 0; i < keys.length; i++) out[i] = levelCode(levels.get(keys[i]) ?? 'Z');
-  return out;
-}
-
-/** Unpacks `encodeLevels` output back into a `"partId.pin" → Level` map. */
-export function decodeLevels(keys: readonly string[], codes: Uint8Array): Map<string, Level> {
-  const out = new Map<string, Level>();
-  const n = Math.min(keys.length, codes.length);
-  for (let i = 0; i < n; i++) out.set(keys[i], codeLevel(codes[i]));
-  return out;
-}

@@ -1,15 +1,13 @@
-/** Wall-clock access, passed in so tests can run the clock without waiting. */
+/**
+ * Wall-clock access, passed in (the worker gives the real timers, tests a fake one, the command line
+ * one it never needs to fire), so the engine holds no clock of its own.
+ */
 export interface Timers {
+  /** milliseconds, monotonic */
   now(): number;
   setTimeout(fn: () => void, ms: number): unknown;
   clearTimeout(handle: unknown): void;
 }
-
-const realTimers: Timers = {
-  now: () => performance.now(),
-  setTimeout: (fn, ms) => setTimeout(fn, ms),
-  clearTimeout: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
-};
 
 export const MIN_RATE = 0.1;
 export const MAX_RATE = 500;
@@ -25,13 +23,13 @@ export class ClockDriver {
   rate = 1;
   /** level the clock inputs are driven to */
   phase = false;
-  /** rising edges since the last restart */
+  /** rising edges since the last restart (0: the clock inputs have not been driven yet) */
   cycles = 0;
   private handle: unknown;
   private startedAt = 0;
   private done = 0;
 
-  constructor(private readonly onHalfCycles: (n: number) => void, private readonly timers: Timers = realTimers) {}
+  constructor(private readonly onHalfCycles: (n: number) => void, private readonly timers: Timers) {}
 
   run(): void {
     if (this.running) return;

@@ -1,4 +1,4 @@
-import type { BoardFile, Part } from '../../../shared/board';
+import type { BoardFile, Part } from '../../board';
 
 /** Fields that never change what the circuit does (position, look) or that are input values set live. */
 const NON_STRUCTURAL = new Set(['x', 'y', 'rotation', 'text', 'on', 'pressed']);

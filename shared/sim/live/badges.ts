@@ -1,5 +1,5 @@
-import type { FamilyData } from '../../../shared/sim/families';
-import type { Netlist, SettleReport } from '../../../shared/sim/types';
+import type { FamilyData } from '../families';
+import type { Netlist, SettleReport } from '../types';
 
 export type BadgeTone = 'conflict' | 'oscillating' | 'undriven' | 'info';
 export interface Badge {

@@ -1,18 +1,22 @@
 import { describe, expect, it } from 'vitest';
-import { BoardFileSchema, type BoardFile } from '../../../shared/board';
-import type { Level } from '../../../shared/sim/levels';
-import { debouncedDffBoard } from './fixtures/debounced-dff';
-import { compileBoard, Simulator } from '../../../shared/sim';
-import { decodeLevels, encodeLevels, type FromWorker } from './protocol';
-import { BenchEngine, packLevels } from './sim-engine';
+import { BoardFileSchema, type BoardFile } from '../../board';
+import { compileBoard } from '../compile';
+import { decodeLevels, encodeLevels, type Level } from '../levels';
+import { Simulator } from '../simulator';
 import type { Timers } from './clock-driver';
+import { debouncedDffBoard } from './fixtures/debounced-dff';
+import { LiveEngine, packLevels } from './live-engine';
+import type { LiveUpdate } from './messages';
 
-type Compiled = Extract<FromWorker, { type: 'compiled' }>;
-type State = Extract<FromWorker, { type: 'state' }>;
+type Compiled = Extract<LiveUpdate, { type: 'compiled' }>;
+type State = Extract<LiveUpdate, { type: 'state' }>;
 
-function harness(timers?: Timers) {
-  const sent: FromWorker[] = [];
-  const engine = new BenchEngine((m) => sent.push(m), timers);
+/** Timers that never fire: for tests that do not run the clock. */
+const stillTimers: Timers = { now: () => 0, setTimeout: () => undefined, clearTimeout: () => undefined };
+
+function harness(timers: Timers = stillTimers) {
+  const sent: LiveUpdate[] = [];
+  const engine = new LiveEngine((m) => sent.push(m), timers);
   const compiled = () => sent.filter((m): m is Compiled => m.type === 'compiled');
   const last = () => [...sent].reverse().find((m): m is State => m.type === 'state')!;
   const levels = () => decodeLevels(compiled().at(-1)!.keys, last().levels);
@@ -36,7 +40,7 @@ function halfAdder(on: { a?: boolean; b?: boolean } = {}): BoardFile {
   });
 }
 
-describe('BenchEngine', () => {
+describe('LiveEngine', () => {
   it('simulates a half adder and follows the truth table (any digital-logic textbook: S = A xor B, C = A and B)', () => {
     const h = harness();
     for (const [a, b] of [[false, false], [false, true], [true, false], [true, true]]) {

@@ -1,6 +1,5 @@
-import type { Level } from '../../../shared/sim/levels';
-import type { Netlist } from '../../../shared/sim/types';
-import { levelCode } from './protocol';
+import { levelCode, type Level } from '../levels';
+import type { Netlist } from '../types';
 
 /** Recorded numbers kept between two state messages (3 per change); beyond this a burst is cut short. */
 const TRACE_BUDGET = 3 * 60_000;

@@ -1,0 +1,166 @@
+import { isOutputKind } from '../../board';
+import { familyOf } from '../families';
+import { levelCode, type Level } from '../levels';
+import type { Simulator } from '../simulator';
+import type { Netlist } from '../types';
+import { partBadges } from './badges';
+import type { Timers } from './clock-driver';
+import { LiveSimulation, type LiveOptions } from './live-simulation';
+import type { LivePort, LiveCommand, LiveUpdate } from './messages';
+import { TraceRecorder } from './trace-recorder';
+
+/**
+ * Level codes of every pin in the order of the `compiled.keys` (each part's input pins, then its output
+ * pins) — what `encodeLevels(keys, sim.levels())` gives, read straight from the nets: that map of
+ * strings cost ~50 ms a state for 5000 gates. As Simulator.pinLevel: an input pin on an undriven net
+ * reads the family's floating value, except on lamps and probes, which show the net (Z).
+ */
+export function packLevels(netlist: Netlist, sim: Simulator): Uint8Array {
+  const out = new Uint8Array(netlist.parts.reduce((n, p) => n + p.inputs.length + p.outputs.length, 0));
+  const floating = levelCode(sim.floating);
+  const z = levelCode('Z');
+  let k = 0;
+  for (const p of netlist.parts) {
+    const reads = !isOutputKind(p.kind);
+    for (const net of p.inputs) {
+      const c = levelCode(sim.level(net));
+      out[k++] = reads && c === z ? floating : c;
+    }
+    for (const net of p.outputs) out[k++] = levelCode(sim.level(net));
+  }
+  return out;
+}
+
+/** Wall time one clock tick may spend simulating. */
+const RUN_BUDGET_MS = 40;
+
+/**
+ * A live simulation spoken to in messages (`LiveCommand` in, `LiveUpdate` out) — what the bench's worker
+ * runs, free of worker plumbing so tests can drive it directly. On top of LiveSimulation it records chosen
+ * nets for the timing strip and sends the state (levels, report, badges) after every command.
+ */
+export class LiveEngine {
+  private readonly recorder = new TraceRecorder();
+  private unsubscribe: (() => void) | undefined;
+  readonly live: LiveSimulation;
+
+  constructor(private readonly post: (msg: LiveUpdate, transfer?: Transferable[]) => void, timers: Timers, opts: Omit<LiveOptions, 'onCompile' | 'onRisingEdge'> = {}) {
+    this.live = new LiveSimulation(timers, {
+      ...opts,
+      onCompile: (netlist) => this.compiled(netlist),
+      onRisingEdge: (time) => this.recorder.edge(time),
+    }, (n) => {
+      this.live.halfCycles(n, RUN_BUDGET_MS);
+      this.flush();
+    });
+  }
+
+  handle(msg: LiveCommand): void {
+    try {
+      this.dispatch(msg);
+    } catch (err) {
+      this.post({ type: 'error', message: (err as Error).message });
+    }
+  }
+
+  private dispatch(msg: LiveCommand): void {
+    const live = this.live;
+    switch (msg.type) {
+      case 'load':
+        if (live.load(msg.board, msg.tryOut)) this.attach();
+        break;
+      case 'set-input':
+        live.setTryOut([[msg.partId, msg.value]]);
+        break;
+      case 'clear-try-out':
+        live.clearTryOut();
+        break;
+      case 'clock':
+        if (msg.action === 'run') live.clock.run();
+        else if (msg.action === 'pause') live.clock.pause();
+        else live.step();
+        break;
+      case 'rate':
+        live.clock.setRate(msg.hz);
+        break;
+      case 'reset-state':
+        live.resetState();
+        break;
+      case 'clear-trace':
+        if (live.sim && live.netlist) this.recorder.clear(live.netlist, live.sim.time, (net) => live.sim!.level(net));
+        break;
+      case 'subscribe':
+        this.recorder.subscribe(msg.signals);
+        if (live.sim && live.netlist) this.recorder.attach(live.netlist, live.sim.time, (net) => live.sim!.level(net));
+        break;
+      default: {
+        const never: never = msg;
+        throw new Error(`unknown message ${JSON.stringify(never)}`);
+      }
+    }
+    this.flush();
+  }
+
+  /** A new Simulator (before its first settle): tells the page the pin order, ports and nets. */
+  private compiled(netlist: Netlist): void {
+    this.unsubscribe?.();
+    this.unsubscribe = undefined;
+    this.recorder.base = this.live.elapsed;
+    const port = (p: Netlist['parts'][number], pin: string): LivePort => ({ partId: p.id, label: p.name, kind: p.kind, net: netlist.nets[netlist.netOf(p.id, pin)].name });
+    const family = familyOf(netlist.family);
+    this.post({
+      type: 'compiled',
+      // the order of packLevels
+      keys: netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`)),
+      inputs: netlist.inputs.map((p) => port(p, 'out')),
+      outputs: netlist.outputs.map((p) => port(p, 'in')),
+      nets: netlist.nets.map((n) => n.name),
+      family: family.id,
+      timeUnitNs: family.timeUnitNs,
+      problems: netlist.problems.map((p) => p.message),
+    });
+  }
+
+  /** After the first settle of a new Simulator: records the chosen nets from now on. */
+  private attach(): void {
+    const { sim, netlist } = this.live;
+    if (!sim || !netlist) return;
+    this.unsubscribe = sim.onChange((time, net, level) => this.recorder.record(time, net, level));
+    this.recorder.attach(netlist, sim.time, (net) => sim.level(net));
+  }
+
+  /** Posts the current state (levels, report, badges, values, new trace) to the page. */
+  flush(): void {
+    const { sim, netlist, report, clock } = this.live;
+    if (!sim || !netlist) return;
+    const levels = packLevels(netlist, sim);
+    const values: Record<string, Level> = {};
+    for (const p of netlist.inputs) values[p.id] = sim.pinLevel(p.id, 'out');
+    for (const p of netlist.outputs) values[p.id] = sim.pinLevel(p.id, 'in');
+    const oscillating = new Set(report.oscillating);
+    const pulsing = netlist.nets.filter((n) => oscillating.has(n.name)).flatMap((n) => [...n.drivers, ...n.readers].map((r) => `${r.part}.${r.pin}`));
+    const badges = [...partBadges(netlist, report, familyOf(netlist.family))].map(([id, b]) => [id, b.tone, b.text] as [string, typeof b.tone, string]);
+    const { settled, oscillating: osc, conflicts, undrivenInputs, races } = report;
+    this.post(
+      {
+        type: 'state',
+        levels,
+        report: { settled, oscillating: osc, conflicts, undrivenInputs, races, powerOn: this.live.powerOn },
+        values,
+        time: this.recorder.base + sim.time,
+        events: sim.stats.events,
+        lastEvents: report.events,
+        clock: { running: clock.running, rate: clock.rate, cycles: clock.cycles },
+        badges,
+        pulsing,
+        ...this.recorder.take(),
+      },
+      [levels.buffer],
+    );
+  }
+
+  dispose(): void {
+    this.live.clock.pause();
+    this.unsubscribe?.();
+  }
+}

@@ -1,0 +1,203 @@
+import type { BoardFile, Part } from '../../board';
+import { clockHalfPeriod } from '../clock-period';
+import { compileBoard } from '../compile';
+import { Simulator } from '../simulator';
+import type { Netlist, SettleReport, SimulatorOptions } from '../types';
+import { documentValue, structureKey } from './board-diff';
+import { ClockDriver, type Timers } from './clock-driver';
+
+/**
+ * Half a clock period for a compiled board: that of the first clock part among `driven` (default: every
+ * clock part), else the default period of the board's slowest gate. Also the pause before an input change.
+ */
+export function halfPeriod(netlist: Netlist, driven?: ReadonlySet<string>): number {
+  const slowest = Math.max(1, ...netlist.parts.map((p) => Math.max(p.rise, p.fall)));
+  const clock = netlist.inputs.find((p) => p.part.kind === 'clock' && (!driven || driven.has(p.id)));
+  return clockHalfPeriod(clock?.part.kind === 'clock' ? clock.part.period : undefined, slowest);
+}
+
+const EMPTY_REPORT: SettleReport = { settled: true, time: 0, events: 0, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
+
+/** Options of a live simulation. */
+export interface LiveOptions {
+  /** how gate loops power on (decision 002); default resolve */
+  powerOn?: SimulatorOptions['powerOn'];
+  /** ids of the input parts the clock drives; default every clock part of the board */
+  clockInputs?: readonly string[];
+  /** once a settle has not settled, later settles spend at most this many events (long clocked runs stay quick) */
+  oscillatingBudget?: number;
+  /** a new Simulator for the board, before its first settle */
+  onCompile?: (netlist: Netlist, sim: Simulator) => void;
+  /** after every settle */
+  onSettle?: (report: SettleReport) => void;
+  /** a rising edge of the clock inputs at simulator time `time` */
+  onRisingEdge?: (time: number) => void;
+}
+
+/**
+ * The live simulation of a board, the one set of clocking rules of the bench and the command line's
+ * `simulate --clock`. It keeps one Simulator per circuit, recompiling only when the circuit itself changes
+ * (a moved part or a flipped switch keeps every stored bit), holds private try-out values over the board's
+ * own input values, and drives the clock inputs:
+ * - an input change (a clock edge, a try-out) comes half a clock period after the last clock edge, or
+ *   once the board has settled, whichever is later; the first edge after power-on comes at once;
+ * - a cycle is a rising edge, a settle, a falling edge, a settle, then half a period held low;
+ * - a driven input keeps its own value until the clock's first edge.
+ * Time is injected (`Timers`): it only paces the running clock, never the simulated time.
+ */
+export class LiveSimulation {
+  private key = '';
+  private current = new Map<string, Part>();
+  private tryOut = new Map<string, boolean>();
+  private applied = new Map<string, boolean>();
+  private driven = new Set<string>();
+  private unsettled = false;
+  private lastEdgeAt = -Infinity;
+  netlist: Netlist | null = null;
+  sim: Simulator | null = null;
+  /** the report of the last settle */
+  report: SettleReport = EMPTY_REPORT;
+  /** nets whose power-on level the simulator chose since the last compile or reset (a real loop settles either way) */
+  powerOn: string[] = [];
+  half = 10;
+  /** simulated time of the Simulators before the current one, each followed by a half period */
+  elapsed = 0;
+  readonly clock: ClockDriver;
+
+  constructor(timers: Timers, private readonly opts: LiveOptions = {}, onHalfCycles?: (n: number) => void) {
+    this.clock = new ClockDriver((n) => onHalfCycles?.(n), timers);
+  }
+
+  /** Takes the board (and new try-out values); returns true when it compiled a new Simulator. */
+  load(board: BoardFile, tryOut?: Iterable<[string, boolean]>): boolean {
+    if (tryOut) this.tryOut = new Map(tryOut);
+    this.current = new Map(board.parts.map((p) => [p.id, p]));
+    const key = structureKey(board);
+    if (key === this.key && this.sim) {
+      this.apply(true);
+      return false;
+    }
+    this.key = key;
+    this.compile(board);
+    return true;
+  }
+
+  private compile(board: BoardFile): void {
+    if (this.sim) this.elapsed += this.sim.time + this.half;
+    const netlist = compileBoard(board, { family: board.family });
+    const sim = new Simulator(netlist, { family: board.family, powerOn: this.opts.powerOn });
+    this.netlist = netlist;
+    this.sim = sim;
+    this.powerOn = [];
+    this.applied.clear();
+    this.unsettled = false;
+    this.clock.restart();
+    this.lastEdgeAt = -Infinity;
+    const ids = this.opts.clockInputs;
+    this.driven = new Set(ids ?? netlist.inputs.filter((p) => p.kind === 'clock').map((p) => p.id));
+    this.half = halfPeriod(netlist, this.driven);
+    this.opts.onCompile?.(netlist, sim);
+    this.apply(false);
+    if (!this.applied.size) this.settle();
+  }
+
+  /** Sets try-out values (several at once change together) on top of the board's own values. */
+  setTryOut(values: Iterable<[string, boolean]>, gap = true): void {
+    for (const [id, v] of values) this.tryOut.set(id, v);
+    this.apply(gap);
+  }
+
+  /** Forgets every try-out value. */
+  clearTryOut(): void {
+    this.tryOut.clear();
+    this.apply(true);
+  }
+
+  /** Stored state back to power-on; input levels stay. */
+  resetState(): void {
+    if (!this.sim) return;
+    this.sim.resetState();
+    this.unsettled = false;
+    this.settle();
+    this.powerOn = this.report.powerOn;
+  }
+
+  /** One clock cycle (see the class): two edges, each settled, then half a period held. */
+  cycle(): void {
+    this.halfCycles(2);
+    this.hold();
+  }
+
+  /** One step of the bench's clock: back low first if it is high, then one cycle. */
+  step(): void {
+    if (this.clock.phase) this.halfCycles(1);
+    this.cycle();
+  }
+
+  /**
+   * Runs `n` clock half-cycles. With `budgetMs` it stops early once that much wall time is spent (a board
+   * that oscillates costs a whole event budget per edge), so a running clock slows down instead of blocking.
+   */
+  halfCycles(n: number, budgetMs = Infinity): void {
+    const sim = this.sim;
+    if (!sim) return;
+    const start = this.clock.now();
+    for (let i = 0; i < n && this.clock.now() - start < budgetMs; i++) {
+      this.hold();
+      this.lastEdgeAt = sim.time;
+      this.clock.toggle();
+      if (this.clock.phase) this.opts.onRisingEdge?.(sim.time);
+      this.apply(false);
+    }
+  }
+
+  /** Lets simulated time pass, inputs held, until half a period after the last clock edge. */
+  private hold(): void {
+    const sim = this.sim!;
+    const target = this.lastEdgeAt + this.half;
+    if (target > sim.time) this.idle(target - sim.time);
+  }
+
+  /**
+   * Lets simulated time pass with the inputs held. The live simulation drives clock parts itself, so the
+   * Simulator's own clocks stay still.
+   */
+  private idle(dt: number): void {
+    this.sim!.runFor(dt, { clocks: false });
+  }
+
+  /** The value an input part gets now: driven by the clock, a try-out, or its own. */
+  private inputValue(part: Part): boolean {
+    if (this.driven.has(part.id) && this.clock.cycles > 0) return this.clock.phase;
+    if (part.kind === 'clock') return false;
+    if (part.kind === 'const') return part.value === 1;
+    return this.tryOut.get(part.id) ?? documentValue(part) ?? false;
+  }
+
+  /** Sets every input whose value differs from what the simulator has, then settles (after a pause with `gap`). */
+  private apply(gap: boolean): void {
+    const sim = this.sim;
+    if (!sim || !this.netlist) return;
+    const changes: [string, boolean][] = [];
+    for (const input of this.netlist.inputs) {
+      const part = this.current.get(input.id) ?? input.part;
+      const value = this.inputValue(part);
+      if (this.applied.get(part.id) !== value) changes.push([part.id, value]);
+    }
+    if (!changes.length) return;
+    if (gap) this.idle(this.half);
+    for (const [id, value] of changes) {
+      sim.setInput(id, value);
+      this.applied.set(id, value);
+    }
+    this.settle();
+  }
+
+  private settle(): void {
+    const budget = this.unsettled ? this.opts.oscillatingBudget : undefined;
+    this.report = this.sim!.settle({ eventBudget: budget });
+    if (!this.report.settled) this.unsettled = true;
+    if (this.report.powerOn.length) this.powerOn = this.report.powerOn;
+    this.opts.onSettle?.(this.report);
+  }
+}
