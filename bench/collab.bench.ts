@@ -9,8 +9,7 @@ import type { BenchRow } from './run';
 import { startTestServer } from '../tests/helpers/test-app';
 import { addMember, connectClient, createBoard, signUp } from '../tests/collab/helpers';
 import { addPart, movePart } from '../shared/board/edits';
-import { loadBoardDoc, compactStoredBoard } from '../server/services/board-docs';
-import { collabOf } from '../server/collab';
+import { loadBoardDoc } from '../server/boards-live';
 
 const EDITS = 200;
 const ME = { local: 'bench' };
@@ -57,16 +56,16 @@ export default async function collabBench(): Promise<BenchRow[]> {
     }
     ca.destroy();
     cb.destroy();
-    await collabOf(server.ctx)!.flushAll();
+    await server.ctx.boardRegistry.flushAll();
     await new Promise((r) => setTimeout(r, 100)); // let the room unload after its last socket
 
     const sorted = [...times].sort((x, y) => x - y);
     const t1 = performance.now();
-    const loaded = await loadBoardDoc(server.ctx, boardId);
+    const loaded = await loadBoardDoc(server.ctx.boardRegistry.store, boardId);
     const loadMs = performance.now() - t1;
     loaded.doc.destroy();
     const t2 = performance.now();
-    await compactStoredBoard(server.ctx, boardId);
+    await server.ctx.boardRegistry.compactStored(boardId);
     const compactMs = performance.now() - t2;
     return [
       { name: `edit→remote latency, median (${EDITS} moves)`, value: quantile(sorted, 0.5), unit: 'ms', note: 'two Node clients, real server and SQLite' },

@@ -18,12 +18,12 @@ import { invitationsRouter } from './http/routes/invitations';
 import { membersRouter } from './http/routes/members';
 import { outboxRouter } from './http/routes/outbox';
 import { createServices, type Services } from './services';
-import { APP_DB_KEY } from './services/authz';
 import { createEvents, type AppEvents } from './services/events';
 import { createMailer, type Mailer } from './services/mail';
 import { seedDemo, type BoardContentSeeder } from './seed/demo';
 import { boardFileRouter } from './http/routes/board-file';
-import { exampleBoardContent } from './services/board-docs';
+import { BoardRegistry, exampleBoardContent } from './boards-live';
+import { createKnexBoardStore } from './db/board-store';
 import { analyzeRouter } from './http/routes/analyze';
 
 /** Everything a feature needs from the running app. */
@@ -36,7 +36,9 @@ export interface AppContext {
   services: Services;
   events: AppEvents;
   mail: Mailer;
-  /** Set by the collaboration feature: fills a new demo board's document. */
+  /** The open board rooms and the way to every board's content (server/boards-live), one per app. */
+  boardRegistry: BoardRegistry;
+  /** Fills a new demo board's document (the example files). */
   boardContent?: BoardContentSeeder;
   /** Async shutdown work of features, run (last registered first) before the mail catcher and Knex close. */
   onClose: Array<() => Promise<void>>;
@@ -61,12 +63,12 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   const store = createSessionStore(db);
   await store.ready;
   const events = createEvents();
-  const services = createServices(db, config, events, mail);
+  const boardRegistry = new BoardRegistry({ store: createKnexBoardStore(db), options: config.collab, logErrors: config.logErrors });
+  const services = createServices(db, config, events, mail, boardRegistry);
   const sessionMiddleware = createSessionMiddleware(config, store);
   const limits = createRateLimits(config);
 
   const app = express();
-  app.locals[APP_DB_KEY] = db;
   app.disable('x-powered-by');
   // Behind an https proxy the cookie is Secure; Express must trust X-Forwarded-Proto to send it.
   if (config.trustProxy !== undefined) app.set('trust proxy', config.trustProxy);
@@ -84,7 +86,8 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   app.use('/api', invitationsRouter(services));
   app.use('/api', outboxRouter(services));
 
-  const onClose: Array<() => Promise<void>> = [];
+  // Rooms store everything before the database closes (the sockets, attached later, close first).
+  const onClose: Array<() => Promise<void>> = [() => boardRegistry.close()];
   const closeFeatures = async () => {
     for (let fn = onClose.pop(); fn; fn = onClose.pop()) {
       try {
@@ -96,7 +99,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   };
   let closing: Promise<void> | undefined;
   const ctx: AppContext = {
-    app, db, config, sessionMiddleware, services, events, mail, onClose, closeFeatures,
+    app, db, config, sessionMiddleware, services, events, mail, boardRegistry, onClose, closeFeatures,
     close: () =>
       (closing ??= (async () => {
         await closeFeatures();
@@ -106,11 +109,10 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
       })()),
   };
 
-  // routers of other features are mounted here (before the /api 404 below), e.g.
-  //   app.use('/api', snapshotsRouter(ctx));   and set ctx.boardContent / ctx.onClose.push(...) here.
-  app.use('/api', boardFileRouter(ctx));
+  // routers of other features are mounted here (before the /api 404 below); shutdown work goes in ctx.onClose
+  app.use('/api', boardFileRouter(services, boardRegistry));
   app.use('/api', analyzeRouter());
-  ctx.boardContent = exampleBoardContent(ctx);
+  ctx.boardContent = exampleBoardContent(boardRegistry);
 
   app.use('/api', apiNotFound);
   const client = clientRouter(config.distDir);

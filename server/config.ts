@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
+import type { CollabOptions } from './boards-live/types';
 
 /** Everything the server can be told; `loadConfig` fills it from the environment. */
 export interface AppConfig {
@@ -28,6 +29,8 @@ export interface AppConfig {
   trustProxy?: string | number;
   /** Log unexpected errors to stderr (tests may silence expected noise). */
   logErrors: boolean;
+  /** Limits of the live board rooms (tests lower them); defaults in server/boards-live/types.ts. */
+  collab?: Partial<CollabOptions>;
 }
 
 const truthy = z

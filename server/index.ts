@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { pathToFileURL } from 'node:url';
 import { createApp, type AppContext } from './app';
 import { loadConfig, type AppConfig } from './config';
-import { attachCollab } from './collab';
+import { attachBoardSockets } from './boards-live';
 
 export interface RunningServer {
   server: http.Server;
@@ -16,8 +16,8 @@ export interface RunningServer {
 export async function startServer(config: AppConfig): Promise<RunningServer> {
   const ctx = await createApp(config);
   const server = http.createServer(ctx.app);
-  // Collaboration attaches its websocket upgrade handler here: attachCollab(server, ctx);
-  attachCollab(server, ctx);
+  // The live boards' websocket upgrade handler (its close runs first among ctx.onClose).
+  attachBoardSockets(server, ctx);
 
   try {
     await new Promise<void>((resolve, reject) => {

@@ -1,17 +1,12 @@
 import type { Db } from './knex';
+import type { NewBoardUpdate } from '../boards-live/store';
+
+/** The `board_updates` table. Only server/db/board-store.ts imports this module (ESLint checks it). */
 
 /** One stored Yjs update of a board. */
 export interface BoardUpdateRow {
   seq: number;
   data: Uint8Array;
-}
-
-/** An update waiting to be written. */
-export interface NewBoardUpdate {
-  seq: number;
-  data: Uint8Array;
-  userId: number | null;
-  createdAt: string;
 }
 
 /** A board's updates in the order they were applied. */

@@ -55,22 +55,6 @@ export async function insertBoard(
   });
 }
 
-export async function updateBoard(
-  db: Db,
-  boardId: number,
-  patch: { title?: string; family?: string; now: string },
-): Promise<void> {
-  const changes: Record<string, string> = { updated_at: patch.now };
-  if (patch.title !== undefined) changes.title = patch.title;
-  if (patch.family !== undefined) changes.family = patch.family;
-  await db('boards').where({ id: boardId }).update(changes);
-}
-
-/** Marks the board changed (e.g. by a collaborator's edit) so lists sort it first. */
-export async function touchBoard(db: Db, boardId: number, now: string): Promise<void> {
-  await db('boards').where({ id: boardId }).update({ updated_at: now });
-}
-
 /** Deletes the board; members, invitations and other per-board rows go with it (ON DELETE CASCADE). */
 export async function deleteBoard(db: Db, boardId: number): Promise<void> {
   await db('boards').where({ id: boardId }).del();

@@ -1,25 +1,9 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError, type ZodType } from 'zod';
+import { HttpError, badRequest, notFound } from '../lib/errors';
 
-/** An error with an HTTP status and a snake_case code; the error middleware turns it into the contract's shape. */
-export class HttpError extends Error {
-  constructor(
-    readonly status: number,
-    readonly code: string,
-    message: string,
-    readonly fields?: Record<string, string>,
-  ) {
-    super(message);
-    this.name = 'HttpError';
-  }
-}
-
-export const badRequest = (code: string, message: string, fields?: Record<string, string>) =>
-  new HttpError(400, code, message, fields);
-export const notSignedIn = () => new HttpError(401, 'not_signed_in', 'Sign in first');
-export const forbidden = (code: string, message: string) => new HttpError(403, code, message);
-export const notFound = (code: string, message: string) => new HttpError(404, code, message);
-export const conflict = (code: string, message: string) => new HttpError(409, code, message);
+// Routes import the error helpers from here or from server/lib/errors (services only from there).
+export { HttpError, badRequest, conflict, forbidden, notFound, notSignedIn } from '../lib/errors';
 
 /** Zod issues → `{field: message}`, first message per field; nested paths joined with dots. */
 export function zodFields(err: ZodError): Record<string, string> {

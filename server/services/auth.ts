@@ -7,7 +7,7 @@ import { nowIso } from '../db/knex';
 import { countUsers, findUserByEmail, insertUser, findUserById, updatePasswordHash } from '../db/users';
 import { consumeReset, findUsableReset, insertPasswordReset } from '../db/password-resets';
 import { deleteSessionsOfUser } from '../db/session-store';
-import { HttpError, badRequest, conflict } from '../http/errors';
+import { HttpError, badRequest, conflict } from '../lib/errors';
 import type { Mailer } from './mail';
 import { passwordResetMail } from './mail-templates';
 import { hashToken, newToken } from './tokens';

@@ -4,7 +4,7 @@ import type { CreateBoardBody, UpdateBoardBody } from '../../shared/api/schemas'
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as boardsDb from '../db/boards';
-import { notFound } from '../http/errors';
+import { notFound } from '../lib/errors';
 import type { AppEvents } from './events';
 
 export function toApiBoard(row: boardsDb.BoardViewRow): ApiBoard {
@@ -26,15 +26,21 @@ export interface BoardsService {
   get(boardId: number, userId: number): Promise<ApiBoard>;
   /** Creates a board owned by `ownerId`. */
   create(ownerId: number, body: CreateBoardBody): Promise<ApiBoard>;
-  /** Renames or changes the family (the caller checked editor+). */
+  /**
+   * Renames or changes the family (the caller checked editor+): written into the board's document
+   * (every open screen shows it at once); the row, their projection, follows before this resolves.
+   */
   update(boardId: number, userId: number, body: UpdateBoardBody): Promise<ApiBoard>;
   /** Deletes the board (the caller checked owner) and tells listeners. */
   remove(boardId: number): Promise<void>;
-  /** Marks the board as changed now (for features that edit its content). */
-  touch(boardId: number): Promise<void>;
 }
 
-export function createBoardsService(db: Db, events: AppEvents): BoardsService {
+/** Where a board's title and family are written: its document (server/boards-live's registry). */
+export interface BoardMetaWriter {
+  writeMeta(boardId: number, meta: { title?: string; family?: FamilyId }, userId: number | null): Promise<void>;
+}
+
+export function createBoardsService(db: Db, events: AppEvents, meta: BoardMetaWriter): BoardsService {
   const get = async (boardId: number, userId: number) => {
     const row = await boardsDb.getBoardForUser(db, boardId, userId);
     if (!row) throw notFound('board_not_found', 'No such board');
@@ -50,17 +56,12 @@ export function createBoardsService(db: Db, events: AppEvents): BoardsService {
       return get(id, ownerId);
     },
     async update(boardId, userId, body) {
-      await boardsDb.updateBoard(db, boardId, { ...body, now: nowIso() });
-      const board = await get(boardId, userId);
-      events.emit('board-updated', { boardId, title: board.title, family: board.family });
-      return board;
+      await meta.writeMeta(boardId, body, userId);
+      return get(boardId, userId);
     },
     async remove(boardId) {
       await boardsDb.deleteBoard(db, boardId);
       events.emit('board-deleted', { boardId });
-    },
-    async touch(boardId) {
-      await boardsDb.touchBoard(db, boardId, nowIso());
     },
   };
 }

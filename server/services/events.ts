@@ -7,8 +7,6 @@ export interface AppEventMap {
   'membership-changed': [{ boardId: number; userId: number; role: BoardRole | null }];
   /** A board was deleted (its rows are gone). */
   'board-deleted': [{ boardId: number }];
-  /** A board's title or family changed through the API. */
-  'board-updated': [{ boardId: number; title: string; family: string }];
 }
 
 export type AppEvents = EventEmitter<AppEventMap>;

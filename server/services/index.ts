@@ -1,7 +1,8 @@
 import type { AppConfig } from '../config';
 import type { Db } from '../db/knex';
 import { createAuthService, type AuthService } from './auth';
-import { createBoardsService, type BoardsService } from './boards';
+import { createAuthzService, type AuthzService } from './authz';
+import { createBoardsService, type BoardMetaWriter, type BoardsService } from './boards';
 import type { AppEvents } from './events';
 import { createInvitationsService, type InvitationsService } from './invitations';
 import type { Mailer } from './mail';
@@ -12,6 +13,7 @@ import { createUsersService, type UsersService } from './users';
 /** The business services of the foundation; features add their own beside these. */
 export interface Services {
   auth: AuthService;
+  authz: AuthzService;
   users: UsersService;
   boards: BoardsService;
   members: MembersService;
@@ -19,11 +21,12 @@ export interface Services {
   outbox: OutboxService;
 }
 
-export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer): Services {
-  const boards = createBoardsService(db, events);
+export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer, boardMeta: BoardMetaWriter): Services {
+  const boards = createBoardsService(db, events, boardMeta);
   const invitations = createInvitationsService(db, events, mailer, boards);
   return {
     auth: createAuthService(db, config, mailer),
+    authz: createAuthzService(db),
     users: createUsersService(db),
     boards,
     members: createMembersService(db, events, mailer, invitations),

@@ -4,7 +4,7 @@ import { nowIso } from '../db/knex';
 import * as invDb from '../db/invitations';
 import { findRole, insertMember } from '../db/members';
 import type { UserRow } from '../db/users';
-import { notFound } from '../http/errors';
+import { notFound } from '../lib/errors';
 import type { AppEvents } from './events';
 import type { Mailer } from './mail';
 import { invitationMail } from './mail-templates';

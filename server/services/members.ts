@@ -5,7 +5,7 @@ import { nowIso } from '../db/knex';
 import * as membersDb from '../db/members';
 import { getBoardTitle } from '../db/boards';
 import { findUserByEmail, findUserById } from '../db/users';
-import { badRequest, conflict, forbidden, notFound } from '../http/errors';
+import { badRequest, conflict, forbidden, notFound } from '../lib/errors';
 import type { AppEvents } from './events';
 import type { InvitationsService } from './invitations';
 import type { Mailer } from './mail';

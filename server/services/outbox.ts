@@ -1,7 +1,7 @@
 import type { ApiMail, ApiMailSummary } from '../../shared/api/types';
 import type { Db } from '../db/knex';
 import { findMail, listMail } from '../db/mail-messages';
-import { notFound } from '../http/errors';
+import { notFound } from '../lib/errors';
 
 export interface OutboxService {
   /** Newest first, at most `limit`. */

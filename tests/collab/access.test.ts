@@ -2,8 +2,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
 import { addPart, movePart } from '../../shared/board/edits';
 import { docToBoard } from '../../shared/board/ydoc';
-import { readBoardFile } from '../../server/services/board-docs';
-import { collabOf } from '../../server/collab';
 import {
   addMember, api, connectClient, createBoard, exportText, rawUpgrade, signUp, sleep, waitFor, type Client, type User,
 } from './helpers';
@@ -70,8 +68,8 @@ describe('viewers are read-only on the server', () => {
     await sleep(100);
     expect(e.doc.getMap('parts').has('evil')).toBe(false);
     expect(docToBoard(e.doc).parts.find((p) => p.id === 'sw1')).toMatchObject({ x: 0, y: 0 });
-    await collabOf(server.ctx)!.flushAll();
-    const stored = await readBoardFile(server.ctx, boardId);
+    await server.ctx.boardRegistry.flushAll();
+    const stored = await server.ctx.boardRegistry.readBoardFile(boardId);
     expect(stored.parts.map((p) => p.id)).toEqual(['sw1', 'marker']);
     expect(await exportText(server, owner, boardId)).not.toContain('evil');
     // a fresh client (editor) sees the server's truth
@@ -98,7 +96,7 @@ describe('membership changes reach open sockets', () => {
     await waitFor(() => e.doc.getMap('parts').has('marker'), 'the owner’s marker');
     await sleep(100);
     expect(o.doc.getMap('parts').has('after')).toBe(false);
-    expect((await readBoardFile(server.ctx, boardId)).parts.map((p) => p.id)).toEqual(['before', 'marker']);
+    expect((await server.ctx.boardRegistry.readBoardFile(boardId)).parts.map((p) => p.id)).toEqual(['before', 'marker']);
 
     const closed = new Promise<number>((resolve) => {
       e.provider.on('connection-close', (event: { code: number } | null) => resolve(event?.code ?? -1));

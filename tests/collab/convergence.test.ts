@@ -4,7 +4,6 @@ import { startTestServer, type TestServer } from '../helpers/test-app';
 import { addPart, connect, deleteSelection, movePart, relabelPart, rotateParts } from '../../shared/board/edits';
 import { docToBoard, partsMap } from '../../shared/board/ydoc';
 import { parseBoardFile } from '../../shared/board/validate';
-import { collabOf } from '../../server/collab';
 import { addMember, connectClient, createBoard, exportText, signUp, waitFor, type User } from './helpers';
 
 const ME = { local: 'prop' };
@@ -51,7 +50,7 @@ describe('three live clients through the server', () => {
         // the server's repairs have landed too: the agreed board is a valid file
         await waitFor(() => parseBoardFile(JSON.parse(text(0))).ok, 'a valid board', 8000);
         await waitFor(() => text(0) === text(1) && text(1) === text(2), 'agreement after repairs', 8000);
-        await collabOf(server.ctx)!.flushAll();
+        await server.ctx.boardRegistry.flushAll();
         expect(JSON.parse(await exportText(server, users[0], boardId))).toEqual(JSON.parse(text(0)));
       } finally {
         clients.forEach((c) => c.destroy());

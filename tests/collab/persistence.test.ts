@@ -5,8 +5,6 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
 import { addPart, connect, movePart } from '../../shared/board/edits';
 import { countBoardUpdates, loadBoardUpdates } from '../../server/db/board-updates';
-import { compactStoredBoard } from '../../server/services/board-docs';
-import { collabOf } from '../../server/collab';
 import { connectClient, createBoard, exportText, signUp, waitFor, type User } from './helpers';
 
 const ME = { local: 'test' };
@@ -39,7 +37,7 @@ describe('board persistence', () => {
     await waitFor(async () => (await exportText(server, owner, boardId)).includes('"g29"'), 'the last edit');
     // edit once more and shut down at once, with the client still connected: shutdown must store it
     movePart(c.doc, [{ id: 'g0', x: 400, y: 400 }], ME);
-    await waitFor(() => collabOf(server.ctx)!.rooms.get(boardId)!.doc.getMap<import('yjs').Map<unknown>>('parts').get('g0')!.get('x') === 400, 'the move to reach the room');
+    await waitFor(() => server.ctx.boardRegistry.rooms.get(boardId)!.doc.getMap<import('yjs').Map<unknown>>('parts').get('g0')!.get('x') === 400, 'the move to reach the room');
     const before = await exportText(server, owner, boardId);
     await server.close();
     c.destroy();
@@ -57,12 +55,12 @@ describe('board persistence', () => {
     const boardId = await createBoard(server, owner);
     await drawCircuit(server, owner, boardId, 12); // 12 × 6 = 72 updates
     const live = await exportText(server, owner, boardId);
-    await waitFor(() => !collabOf(server.ctx)!.rooms.has(boardId), 'the room to unload');
+    await waitFor(() => !server.ctx.boardRegistry.rooms.has(boardId), 'the room to unload');
     const rows = await countBoardUpdates(server.ctx.db, boardId);
     expect(rows).toBeLessThanOrEqual(21); // compacted at least once on the way (72 rows otherwise)
     expect(await exportText(server, owner, boardId)).toBe(live);
     const bytesBefore = (await loadBoardUpdates(server.ctx.db, boardId)).reduce((n, r) => n + r.data.length, 0);
-    expect(await compactStoredBoard(server.ctx, boardId)).toBe(1);
+    expect(await server.ctx.boardRegistry.compactStored(boardId)).toBe(1);
     expect(await countBoardUpdates(server.ctx.db, boardId)).toBe(1);
     expect((await loadBoardUpdates(server.ctx.db, boardId))[0].data.length).toBeLessThanOrEqual(bytesBefore);
     expect(await exportText(server, owner, boardId)).toBe(live);

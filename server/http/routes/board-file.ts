@@ -3,8 +3,8 @@ import multer from 'multer';
 import { parseBoardFile } from '../../../shared/board/validate';
 import { canonicalBoard } from '../../../shared/board/ydoc';
 import type { Services } from '../../services';
-import { requireBoardRole } from '../../services/authz';
-import { readBoardFile, writeBoardFile, type BoardDocsContext } from '../../services/board-docs';
+import type { BoardRegistry } from '../../boards-live';
+import { boardRoleGuard } from '../middleware/board-role';
 import { HttpError, badRequest } from '../errors';
 import { requireUser } from '../middleware/require-user';
 
@@ -32,12 +32,13 @@ const singleFile: RequestHandler = (req, res, next) => {
 };
 
 /** `GET /api/boards/:id/export` and `POST /api/boards/import`. */
-export function boardFileRouter(ctx: BoardDocsContext & { services: Services }): Router {
+export function boardFileRouter(services: Services, boards: Pick<BoardRegistry, 'readBoardFile' | 'writeBoardFile'>): Router {
   const r = Router();
+  const requireBoardRole = boardRoleGuard(services.authz);
 
   r.get('/boards/:id/export', requireBoardRole('viewer'), async (_req, res) => {
-    const board = await ctx.services.boards.get(res.locals.boardId, res.locals.userId);
-    const file = await readBoardFile(ctx, res.locals.boardId);
+    const board = await services.boards.get(res.locals.boardId, res.locals.userId);
+    const file = await boards.readBoardFile(res.locals.boardId);
     res.setHeader('Content-Disposition', `attachment; filename="${slugify(board.title)}.gatefold.json"`);
     res.type('application/json').send(JSON.stringify(file, null, 2) + '\n');
   });
@@ -61,9 +62,9 @@ export function boardFileRouter(ctx: BoardDocsContext & { services: Services }):
     }
     const file = canonicalBoard(parsed.board);
     const title = file.title.trim().slice(0, 200) || 'Imported board';
-    const created = await ctx.services.boards.create(res.locals.userId, { title, family: file.family });
-    await writeBoardFile(ctx, created.id, file, res.locals.userId);
-    res.status(201).json({ board: await ctx.services.boards.get(created.id, res.locals.userId) });
+    const created = await services.boards.create(res.locals.userId, { title, family: file.family });
+    await boards.writeBoardFile(created.id, file, res.locals.userId);
+    res.status(201).json({ board: await services.boards.get(created.id, res.locals.userId) });
   });
 
   return r;

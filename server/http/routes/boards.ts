@@ -1,12 +1,13 @@
 import { Router } from 'express';
 import { CreateBoardSchema, UpdateBoardSchema } from '../../../shared/api/schemas';
 import type { Services } from '../../services';
-import { requireBoardRole } from '../../services/authz';
+import { boardRoleGuard } from '../middleware/board-role';
 import { parseInput } from '../errors';
 import { requireUser } from '../middleware/require-user';
 
 export function boardsRouter(services: Services): Router {
   const r = Router();
+  const requireBoardRole = boardRoleGuard(services.authz);
 
   r.get('/boards', requireUser, async (_req, res) => {
     res.json({ boards: await services.boards.list(res.locals.userId) });

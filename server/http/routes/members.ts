@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { AddMemberSchema, IdParamSchema, UpdateMemberSchema } from '../../../shared/api/schemas';
 import type { AppConfig } from '../../config';
 import type { Services } from '../../services';
-import { requireBoardRole } from '../../services/authz';
+import { boardRoleGuard } from '../middleware/board-role';
 import { parseInput } from '../errors';
 import { requestOrigin } from '../middleware/origin';
 
@@ -12,6 +12,7 @@ const InvitationParams = z.object({ invitationId: IdParamSchema });
 
 export function membersRouter(services: Services, config: AppConfig): Router {
   const r = Router();
+  const requireBoardRole = boardRoleGuard(services.authz);
 
   r.get('/boards/:id/members', requireBoardRole('viewer'), async (_req, res) => {
     res.json(await services.members.list(res.locals.boardId, res.locals.boardRole));

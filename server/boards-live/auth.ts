@@ -1,7 +1,6 @@
 import { ServerResponse, type IncomingMessage } from 'node:http';
 import type { Request } from 'express';
-import { getBoardRole } from '../services/authz';
-import { CollabError, type CollabContext, type Peer } from './types';
+import { CollabError, type SocketContext, type Peer } from './types';
 
 const PATH_RE = /^\/collab\/([1-9][0-9]{0,15})\/?$/;
 
@@ -13,7 +12,7 @@ export function boardIdOfPath(url: string | undefined): number | null {
 }
 
 /** Runs the app's session middleware on the upgrade request, exactly as for an HTTP request. */
-function loadSession(ctx: CollabContext, req: IncomingMessage): Promise<void> {
+function loadSession(ctx: SocketContext, req: IncomingMessage): Promise<void> {
   return new Promise((resolve, reject) => {
     const res = new ServerResponse(req);
     ctx.sessionMiddleware(req as Request, res as never, (err?: unknown) => (err ? reject(err) : resolve()));
@@ -24,7 +23,7 @@ function loadSession(ctx: CollabContext, req: IncomingMessage): Promise<void> {
  * A browser on another site cannot open a socket with our cookie: the Origin, when sent, must be this
  * host or the configured public URL. (Node clients send no Origin.)
  */
-function originAllowed(ctx: CollabContext, req: IncomingMessage): boolean {
+function originAllowed(ctx: SocketContext, req: IncomingMessage): boolean {
   const origin = req.headers.origin;
   if (!origin) return true;
   if (ctx.config.publicUrl && origin === ctx.config.publicUrl) return true;
@@ -36,20 +35,15 @@ function originAllowed(ctx: CollabContext, req: IncomingMessage): boolean {
 }
 
 /**
- * Decides who may join the board's room: a signed-in member (with their role), or a share-link guest
- * (viewer). Throws CollabError `not_signed_in` (→ 401) or `forbidden` / `bad_origin` (→ 403).
+ * Decides who may join the board's room: a signed-in member, with their role. Throws CollabError
+ * `not_signed_in` (→ 401) or `forbidden` / `bad_origin` (→ 403).
  */
-export async function authorizeUpgrade(ctx: CollabContext, req: IncomingMessage, boardId: number): Promise<Peer> {
+export async function authorizeUpgrade(ctx: SocketContext, req: IncomingMessage, boardId: number): Promise<Peer> {
   if (!originAllowed(ctx, req)) throw new CollabError('bad_origin', `origin ${req.headers.origin} is not allowed`);
-  const share = new URL(req.url ?? '/', 'http://local').searchParams.get('share');
-  if (share && ctx.shareLinks) {
-    const link = await ctx.shareLinks.resolve(share);
-    if (link && link.boardId === boardId) return { userId: null, role: 'viewer' };
-  }
   await loadSession(ctx, req);
   const userId = (req as Request).session?.userId;
   if (!userId) throw new CollabError('not_signed_in', 'sign in first');
-  const role = await getBoardRole(ctx.db, boardId, userId);
+  const role = await ctx.services.authz.roleOf(boardId, userId);
   if (!role) throw new CollabError('forbidden', `user ${userId} is not a member of board ${boardId}`);
   return { userId, role };
 }

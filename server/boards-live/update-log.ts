@@ -1,11 +1,11 @@
-import type * as Y from 'yjs';
-import { nowIso } from '../db/knex';
-import type { NewBoardUpdate } from '../db/board-updates';
-import { appendBoardChanges, boardStillExists, compactBoardRows, type BoardDocsContext } from '../services/board-docs';
+import * as Y from 'yjs';
+import type { BoardStore, NewBoardUpdate } from './store';
 
 /**
- * A room's write queue to `board_updates`: updates are queued in the tick they are applied, written
- * in order one batch (one transaction) at a time, and compacted past the threshold.
+ * A room's write queue to the store: updates are queued in the tick they are applied (and broadcast
+ * in that same tick, see room.ts), written in order one batch (one transaction) at a time, and
+ * compacted past the threshold. `flush()` resolves when everything queued so far is stored; rooms
+ * flush before they unload and at shutdown.
  */
 export class UpdateLog {
   private pending: NewBoardUpdate[] = [];
@@ -13,7 +13,7 @@ export class UpdateLog {
   private discarded = false;
 
   constructor(
-    private readonly ctx: BoardDocsContext,
+    private readonly store: BoardStore,
     private readonly boardId: number,
     private readonly doc: Y.Doc,
     private seq: number,
@@ -23,13 +23,13 @@ export class UpdateLog {
 
   /** Queues one applied update and starts writing it. */
   append(data: Uint8Array, userId: number | null): void {
-    this.pending.push({ seq: ++this.seq, data, userId, createdAt: nowIso() });
+    this.pending.push({ seq: ++this.seq, data, userId, createdAt: new Date().toISOString() });
     void this.flush();
   }
 
-  /** Runs `work` after the writes queued so far, in the same order (e.g. updating the board row). */
+  /** Runs `work` after the writes queued so far, in the same order (e.g. projecting the meta into the board row). */
   after(work: () => Promise<void>, what: string): void {
-    this.writing = this.writing.then(work).catch((err) => console.error(`collab: board ${this.boardId}: ${what} failed:`, err));
+    this.writing = this.writing.then(work).catch((err) => console.error(`boards-live: board ${this.boardId}: ${what} failed:`, err));
   }
 
   /** Resolves when every queued update is written. */
@@ -52,21 +52,22 @@ export class UpdateLog {
     const batch = this.pending.splice(0);
     if (!batch.length || this.discarded) return;
     try {
-      await appendBoardChanges(this.ctx, this.boardId, batch);
+      await this.store.append(this.boardId, batch);
       this.rows += batch.length;
     } catch (err) {
-      if (this.discarded || !(await boardStillExists(this.ctx, this.boardId).catch(() => true))) return this.discard();
+      if (this.discarded || !(await this.store.exists(this.boardId).catch(() => true))) return this.discard();
       // Nothing of the batch was written (one transaction): keep it for the next flush.
       this.pending.unshift(...batch);
-      console.error(`collab: board ${this.boardId}: storing ${batch.length} update(s) failed; will retry:`, err);
+      console.error(`boards-live: board ${this.boardId}: storing ${batch.length} update(s) failed; will retry:`, err);
       return;
     }
     if (this.rows <= this.compactThreshold()) return;
     try {
-      await compactBoardRows(this.ctx, this.boardId, this.doc, batch[batch.length - 1].seq);
+      // Re-encoding from a Y.Doc (not Y.mergeUpdates) drops garbage-collected deleted content.
+      await this.store.compact(this.boardId, batch[batch.length - 1].seq, Y.encodeStateAsUpdate(this.doc));
       this.rows = 1;
     } catch (err) {
-      console.error(`collab: board ${this.boardId}: compaction failed (the rows are kept):`, err);
+      console.error(`boards-live: board ${this.boardId}: compaction failed (the rows are kept):`, err);
     }
   }
 }

@@ -1,7 +1,8 @@
 import type { RequestHandler } from 'express';
 import type { BoardRole } from '../../shared/api/types';
-import type { Db } from '../db/knex';
+import type { AuthzService } from '../services/authz';
 import type { AppEvents } from '../services/events';
+import type { BoardRegistry } from './registry';
 
 /** Tunable limits of the collaboration server. */
 export interface CollabOptions {
@@ -19,25 +20,19 @@ export const DEFAULT_COLLAB_OPTIONS: CollabOptions = {
   pingIntervalMs: 30_000,
 };
 
-/** Resolves a share-link token (a later feature; optional). */
-export interface ShareLinkResolver {
-  resolve(token: string): Promise<{ boardId: number; role: 'viewer' } | null> | { boardId: number; role: 'viewer' } | null;
-}
-
-/** What the collaboration server needs of the app context (the real AppContext has all of it). */
-export interface CollabContext {
-  db: Db;
-  config: { publicUrl?: string; logErrors: boolean; collab?: Partial<CollabOptions> };
+/** What the socket side needs of the app context (the real AppContext has all of it). */
+export interface SocketContext {
+  config: { publicUrl?: string; logErrors: boolean };
   sessionMiddleware: RequestHandler;
   events: AppEvents;
   onClose: (() => Promise<void>)[];
-  shareLinks?: ShareLinkResolver;
+  services: { authz: Pick<AuthzService, 'roleOf'> };
+  boardRegistry: BoardRegistry;
 }
 
 /** Who is on the other end of a socket. */
 export interface Peer {
-  /** null for share-link guests */
-  userId: number | null;
+  userId: number;
   role: BoardRole;
 }
 

@@ -4,12 +4,13 @@ import * as awarenessProtocol from 'y-protocols/awareness';
 import * as encoding from 'lib0/encoding';
 import * as decoding from 'lib0/decoding';
 import { WebSocket } from 'ws';
-import { ServerOrigin, recordBoardMeta } from '../services/board-docs';
+import { metaOf } from './board-docs';
+import { ServerOrigin, type BoardFanout, type BoardStore } from './store';
 import { UpdateLog } from './update-log';
 import { metaMap } from '../../shared/board/ydoc';
 import { repairBoard } from '../../shared/board/edits';
 import { MSG, SYNC, awarenessClients } from './protocol';
-import { CLOSE, CollabError, type CollabContext, type CollabOptions, type Peer } from './types';
+import { CLOSE, CollabError, type CollabOptions, type Peer } from './types';
 
 /** One open socket in a room. */
 export interface Conn {
@@ -19,32 +20,50 @@ export interface Conn {
   clients: Set<number>;
 }
 
+/** What a room is given: where it stores, its limits, and (later) the other servers' updates. */
+export interface RoomDeps {
+  store: BoardStore;
+  options: () => CollabOptions;
+  logErrors: boolean;
+  /** Cross-server fan-out (store.ts); absent on a single server. */
+  fanout?: BoardFanout;
+}
+
+/** An update another server applied first (it stores it; this room only applies and broadcasts it). */
+class RemoteOrigin {}
+const REMOTE = new RemoteOrigin();
+
 /**
- * One board's live document and its sockets. Every update applied to the document is queued for the
- * database in the same tick it is applied (the write itself follows at once, in order); updates from
- * viewers are never applied. A malformed message closes only its own socket.
+ * One board's live document and its sockets. The guarantee (decision notes 001 and 003): an update
+ * is broadcast to the other sockets in the tick it is applied, and queued for the store in that same
+ * tick, in order; the queue is written at once and flushed before the room unloads and at shutdown.
+ * So a collaborator may see an update a moment before it is stored, and an update counts as kept
+ * once `flush()` has resolved. Updates from viewers are never applied. A malformed message closes
+ * only its own socket.
  */
 export class Room {
   readonly conns = new Map<WebSocket, Conn>();
   readonly awareness: awarenessProtocol.Awareness;
   private readonly log: UpdateLog;
   private destroyed = false;
+  private metaChanged = false;
+  private readonly unsubscribe: () => void;
 
   constructor(
-    private readonly ctx: CollabContext,
+    private readonly deps: RoomDeps,
     readonly boardId: number,
     readonly doc: Y.Doc,
     seq: number,
     rows: number,
-    options: () => CollabOptions,
   ) {
-    this.log = new UpdateLog(ctx, boardId, doc, seq, rows, () => options().compactThreshold);
+    this.log = new UpdateLog(deps.store, boardId, doc, seq, rows, () => deps.options().compactThreshold);
     this.awareness = new awarenessProtocol.Awareness(doc);
     this.awareness.setLocalState(null);
     doc.on('update', this.onDocUpdate);
     this.awareness.on('update', this.onAwarenessUpdate);
     metaMap(doc).observe(this.onMetaChange);
     doc.on('afterTransaction', this.onAfterTransaction);
+    this.unsubscribe = deps.fanout?.subscribe(boardId, (update) => Y.applyUpdate(doc, update, REMOTE)) ?? (() => undefined);
   }
 
   /**
@@ -59,17 +78,26 @@ export class Room {
     if (touched) queueMicrotask(() => !this.log.isDiscarded && !this.destroyed && repairBoard(this.doc, new ServerOrigin(null, 'repair')));
   };
 
-  /** A collaborator renamed the board (or changed its family) on the canvas: the board row follows. */
-  private onMetaChange = (_event: Y.YMapEvent<unknown>, tr: Y.Transaction): void => {
-    if (tr.origin instanceof ServerOrigin || !this.conns.has(tr.origin as WebSocket)) return;
-    const meta = metaMap(this.doc);
-    const next = { title: meta.get('title'), family: meta.get('family') };
-    this.log.after(() => recordBoardMeta(this.ctx, this.boardId, next), 'updating the board row');
+  /**
+   * The title or family changed (on a canvas, through the API, anywhere): the board row, their
+   * projection for lists, follows once the update itself is stored (see onDocUpdate).
+   */
+  private onMetaChange = (): void => {
+    this.metaChanged = true;
   };
 
+  // Yjs calls observers before it emits the transaction's update, so the meta flag is set by now.
   private onDocUpdate = (update: Uint8Array, origin: unknown): void => {
-    const userId = origin instanceof ServerOrigin ? origin.userId : (this.conns.get(origin as WebSocket)?.peer.userId ?? null);
-    this.log.append(update, userId);
+    if (origin !== REMOTE) {
+      const userId = origin instanceof ServerOrigin ? origin.userId : (this.conns.get(origin as WebSocket)?.peer.userId ?? null);
+      this.log.append(update, userId);
+      this.deps.fanout?.publish(this.boardId, update);
+    }
+    if (this.metaChanged) {
+      this.metaChanged = false;
+      const meta = metaOf(this.doc);
+      this.log.after(() => this.deps.store.writeMeta(this.boardId, meta), 'projecting the title and family into the board row');
+    }
     const enc = encoding.createEncoder();
     encoding.writeVarUint(enc, MSG.sync);
     syncProtocol.writeUpdate(enc, update);
@@ -125,7 +153,7 @@ export class Room {
       if (reply) this.send(conn, reply);
     } catch (err) {
       const code = err instanceof CollabError ? err.code : 'malformed_message';
-      if (this.ctx.config.logErrors) console.warn(`collab: board ${this.boardId}: closing a socket after a bad message (${code}): ${(err as Error).message}`);
+      if (this.deps.logErrors) console.warn(`collab: board ${this.boardId}: closing a socket after a bad message (${code}): ${(err as Error).message}`);
       conn.ws.close(CLOSE.invalidData, code);
     }
   }
@@ -202,6 +230,7 @@ export class Room {
 
   destroy(): void {
     this.destroyed = true;
+    this.unsubscribe();
     this.doc.off('update', this.onDocUpdate);
     metaMap(this.doc).unobserve(this.onMetaChange);
     this.doc.off('afterTransaction', this.onAfterTransaction);
