@@ -42,6 +42,15 @@ export default tseslint.config(
           { target: './src', from: './server', message: 'the client never imports the server' },
           { target: './server', from: './src', message: 'the server never imports the client' },
           { target: './migrations', from: ['./src', './server', './shared'], message: 'migrations import no app code' },
+          // server: http → services → db; a board's live side (server/boards-live) gets its store injected
+          { target: './server/http', from: './server/db', message: 'server/http never imports server/db: call a service' },
+          { target: './server/services', from: './server/http', message: 'services never import server/http (errors are in server/lib/errors.ts)' },
+          { target: './server/boards-live', from: './server/db', message: 'server/boards-live gets its BoardStore injected; it never imports server/db' },
+          {
+            target: ['./server/!(db)/**', './server/*.ts', './server/db/!(board-store).ts'],
+            from: './server/db/board-updates.ts',
+            message: 'only the board store (server/db/board-store.ts) touches the board_updates table',
+          },
           ...featureZones,
         ],
       }],

@@ -1,5 +1,5 @@
 import * as Y from 'yjs';
-import type { BoardFile, FamilyId } from '../../shared/board/schema';
+import type { BoardFile } from '../../shared/board/schema';
 import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board/ydoc';
 import { replaceWithBoard, setMeta } from '../../shared/board/edits';
 import type { BoardLocks } from './locks';
