@@ -1,16 +1,17 @@
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
 import { LoadingState } from '../../components/ui/spinner';
 import { isApiError } from '../../lib/api-client';
 import { meQueryOptions } from '../../features/auth';
-import { boardQueryOptions, BoardTitleEditor, DeleteBoardButton, SafetyCaution } from '../../features/boards';
+import { boardKeys, boardQueryOptions, BoardTitleEditor, DeleteBoardButton, SafetyCaution } from '../../features/boards';
 import { MemberAvatars, MemberListPanel } from '../../features/members';
 import { canEdit, isOwner } from '../../lib/roles';
 import { PageColumn } from '../layout';
 import { useIdParam } from '../../lib/use-id-param';
-import { BoardWorkspace, useBoardSession } from '../../features/canvas';
+import { BoardWorkspace, useBoardSession, type BoardSession } from '../../features/canvas';
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import { AnalysisPanel, useAnalysis } from '../../features/analysis';
@@ -38,12 +39,33 @@ export function BoardPage() {
       </PageColumn>
     );
 
-  const b = board.data;
+  return <BoardView board={board.data} me={me.data ?? null} />;
+}
+
+/** Socket close codes after which the board row (role, membership, existence) is asked for again. */
+const ROW_CHANGED_CLOSE_CODES = new Set([4001, 4403, 4404]);
+
+/**
+ * The open board. Its title and family come from the live document (renamed anywhere, every screen
+ * shows it at once); the board row gives the role, asked for again only when the server closes the
+ * socket because that changed.
+ */
+function BoardView({ board: b, me }: { board: ApiBoard; me: { id: number; name: string } | null }) {
+  const session = useBoardSession(String(b.id), b.role, me ? { user: me } : {});
+  const title = session.board.title || b.title;
+  const qc = useQueryClient();
+  useEffect(() => {
+    const onClose = (event: CloseEvent | null) => {
+      if (event && ROW_CHANGED_CLOSE_CODES.has(event.code)) void qc.invalidateQueries({ queryKey: boardKeys.detail(b.id) });
+    };
+    session.provider.on('connection-close', onClose);
+    return () => session.provider.off('connection-close', onClose);
+  }, [session.provider, qc, b.id]);
   return (
     <div className="flex min-h-0 flex-1 flex-col" data-testid="board-page">
-      <PageTitle>{b.title}</PageTitle>
+      <PageTitle>{title}</PageTitle>
       <header className="flex min-h-11 shrink-0 flex-wrap items-center gap-x-4 gap-y-1 border-b border-bench-700 bg-bench-900/90 px-4 py-1.5">
-        <BoardTitleEditor board={b} editable={canEdit(b.role)} />
+        <BoardTitleEditor board={b} title={title} editable={canEdit(b.role)} />
         <span className="flex items-center gap-1.5 text-xs text-slate-400">
           you are <RoleBadge role={b.role} />
         </span>
@@ -54,22 +76,21 @@ export function BoardPage() {
               <Link to={`/boards/${b.id}/members`} className="rounded px-2 py-1 text-sm text-amber-300 hover:bg-bench-800">
                 Members
               </Link>
-              <DeleteBoardButton board={b} />
+              <DeleteBoardButton board={{ ...b, title }} />
             </>
           )}
         </div>
       </header>
       <div className="flex min-h-0 flex-1 flex-col">
         {/* board workspace: canvas, bench and analysis panels mount here */}
-        <LiveBoard board={b} me={me.data ?? null} />
+        <LiveBoard board={b} me={me} session={session} />
       </div>
     </div>
   );
 }
 
-/** The live canvas of the board (its session lives as long as this is shown). */
-function LiveBoard({ board, me }: { board: ApiBoard; me: { id: number; name: string } | null }) {
-  const session = useBoardSession(String(board.id), board.role, me ? { user: me } : {});
+/** The live canvas of the board (its session lives as long as the board view is shown). */
+function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; name: string } | null; session: BoardSession }) {
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
   // The family is part of the live document (the bench's family select edits it for everyone), so the

@@ -12,14 +12,13 @@ export const boardsQueryOptions = () =>
   queryOptions({ queryKey: boardKeys.list(), queryFn: async () => (await api.get<BoardsResponse>('/api/boards')).boards });
 
 /**
- * One board. Collaborators may rename it or change its family on the live canvas (the server copies
- * that into the board row), so an open board page asks again every few seconds to keep its header true.
+ * One board: your role, its members, its row. An open board page shows the title and family from the
+ * live document instead (they change there for everyone at once), so nothing here polls.
  */
 export const boardQueryOptions = (id: number) =>
   queryOptions({
     queryKey: boardKeys.detail(id),
     queryFn: async () => (await api.get<BoardResponse>(`/api/boards/${id}`)).board,
-    refetchInterval: 10_000,
   });
 
 export function useCreateBoard() {

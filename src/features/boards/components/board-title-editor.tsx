@@ -11,13 +11,13 @@ import { useUpdateBoard } from '../api';
 
 const RenameSchema = z.object({ title: TitleSchema });
 
-function RenameForm({ board, onClose }: { board: ApiBoard; onClose: () => void }) {
+function RenameForm({ board, title: current, onClose }: { board: ApiBoard; title: string; onClose: () => void }) {
   const update = useUpdateBoard(board.id);
-  const form = useForm({ resolver: zodResolver(RenameSchema), defaultValues: { title: board.title } });
+  const form = useForm({ resolver: zodResolver(RenameSchema), defaultValues: { title: current } });
   const error = form.formState.errors.title?.message ?? form.formState.errors.root?.server?.message;
 
   const onSubmit = form.handleSubmit(({ title }) => {
-    if (title === board.title) return onClose();
+    if (title === current) return onClose();
     update.mutate(
       { title },
       {
@@ -50,14 +50,17 @@ function RenameForm({ board, onClose }: { board: ApiBoard; onClose: () => void }
   );
 }
 
-/** The board's title; editors and owners rename it in place. */
-export function BoardTitleEditor({ board, editable }: { board: ApiBoard; editable: boolean }) {
+/**
+ * The board's title (`title`: the live document's, which every screen shares); editors and owners
+ * rename it in place. The rename goes through the API, which writes it into that document.
+ */
+export function BoardTitleEditor({ board, title, editable }: { board: ApiBoard; title: string; editable: boolean }) {
   const [editing, setEditing] = useState(false);
-  if (editing) return <RenameForm board={board} onClose={() => setEditing(false)} />;
+  if (editing) return <RenameForm board={board} title={title} onClose={() => setEditing(false)} />;
   return (
     <div className="flex min-w-0 items-center gap-1.5">
       <h1 className="truncate text-base font-semibold text-slate-100" data-testid="board-title">
-        {board.title}
+        {title}
       </h1>
       {editable && (
         <button

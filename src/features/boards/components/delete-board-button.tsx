@@ -13,7 +13,7 @@ export function DeleteBoardButton({ board }: { board: ApiBoard }) {
       size="sm"
       busy={remove.isPending}
       title={`Delete “${board.title}”?`}
-      description="The board, its snapshots and its share links are removed for every member. This cannot be undone."
+      description="The board, its content, its members and its pending invitations are removed for every member. This cannot be undone."
       confirmLabel="Delete board"
       onConfirm={() =>
         remove.mutate(undefined, {
