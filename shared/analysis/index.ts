@@ -3,11 +3,17 @@
  *
  * ```ts
  * const result = analyzeBoardFile(json, { select: ['S1', 'S0'] }); // the `analyze` JSON of CONTRACTS §2
+ * const run = await runAnalysis(compileBoard(board), { dontCares: { Y: [3] } }, { onProgress, shouldCancel });
  * const table = enumerateTable(compileBoard(board), resolveSpec(netlist));  // or enumerateChunks / …Async
  * const { forms } = minimalForms(['A', 'B'], Uint8Array.of(0, 1, 1, 0));  // forms.sop === 'A & ~B | ~A & B'
  * ```
  */
-export { analyzeBoard, analyzeBoardFile, analyzeTable, dontCareSets, type AnalyzeRequest, type AnalyzeResult, type OutputInfo } from './analyze';
+export { analyzeBoard, analyzeBoardFile, analyzeJson, analyzeTable, type AnalyzeResult, type OutputInfo } from './analyze';
+export {
+  analysisSteps, finish, runAnalysis, runAnalysisSync, tableAnalysisSteps,
+  type AnalysisHooks, type AnalysisRun, type AnalysisStep, type AnalyzeRequest,
+} from './pipeline';
+export { dontCareSets, parseRowList, type DontCares } from './dont-cares';
 export { AnalysisError, MAX_TABLE_INPUTS, resolveSpec, type TableSpec } from './table-spec';
 export { CODE_CHARS, enumerateChunks, enumerateTable, enumerateTableAsync, type EnumerateOptions, type TableProgress, type TruthTable } from './truth-table';
 export { functionMap, functionRows, type FunctionMapEntry, type MappedFunction } from './function-map';

@@ -56,6 +56,25 @@ describe('cli analyze', () => {
     expect(cli('analyze', bad).stderr).toMatch(/"g"|g:/);
   }, 90_000);
 
+  // The one don't-care rule (shared/analysis/dont-cares.ts), as the API and the panel apply it.
+  it('takes --dont-cares rows and exits 2 with one line naming a bad one', () => {
+    const ok = cli('analyze', fixture, '--dont-cares', '3');
+    expect(ok.code).toBe(0);
+    // row 11 free for both outputs: S = A | B, C = 0 (common practice, no source)
+    expect(JSON.parse(ok.stdout).outputsInfo.S.sop).toBe('A | B');
+    expect(JSON.parse(ok.stdout).outputsInfo.C.sop).toBe('0');
+    for (const [rows, message] of [
+      ['4', 'error: don\'t-care row 4 is not a row of the table (0 … 3)'],
+      ['1,x', 'error: don\'t-care row "x" is not a row number'],
+      ['-1', 'error: don\'t-care row "-1" is not a row number'],
+    ]) {
+      const r = cli('analyze', fixture, `--dont-cares=${rows}`);
+      expect(r.code, rows).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toBe(`${message}\n`);
+    }
+  }, 60_000);
+
   it('exits 2 for more than 20 inputs', () => {
     const parts = Array.from({ length: 21 }, (_, i) => ({ id: `s${i}`, kind: 'switch', label: `I${i}`, x: 0, y: 0 }));
     const file = join(dir, 'wide.gatefold.json');

@@ -46,6 +46,26 @@ describe('POST /api/analyze', () => {
     expect(unknown.body.error.fields).toEqual({ select: 'Q' });
   });
 
+  // The one don't-care rule (shared/analysis/dont-cares.ts), as the command line and the panel apply it.
+  it('answers 400 naming a bad don\'t-care in fields, from the body or the query string', async () => {
+    const agent = await app.signUp('Gus Room', 'gus@room14.test');
+    const cases: [string, unknown, string, Record<string, string>][] = [
+      ['', { S: [4] }, 'don\'t-care row 4 is not a row of the table (0 … 3)', { dontCares: '4' }],
+      ['', [1.5], 'don\'t-care row 1.5 is not a row of the table (0 … 3)', { dontCares: '1.5' }],
+      ['', { Q: [0] }, 'don\'t-cares given for "Q", which is not an analysed output', { dontCares: 'Q' }],
+      ['?dontCares=1,x', undefined, 'don\'t-care row "x" is not a row number', { dontCares: 'x' }],
+      ['?dontCares=9', undefined, 'don\'t-care row 9 is not a row of the table (0 … 3)', { dontCares: '9' }],
+    ];
+    for (const [query, dontCares, message, fields] of cases) {
+      const res = await agent.post(`/api/analyze${query}`).send(dontCares === undefined ? halfAdder : { board: halfAdder, dontCares });
+      expect(res.status, message).toBe(400);
+      expect(res.body.error).toEqual({ code: 'invalid_input', message, fields });
+    }
+    const ok = await agent.post('/api/analyze?dontCares=3').send(halfAdder);
+    expect(ok.status).toBe(200);
+    expect(ok.body.outputsInfo.C.sop).toBe('0');
+  });
+
   it('answers 429 past 60 analyses a minute for one account', async () => {
     const agent = await app.signUp('Eve Larkspur', 'eve@larkspur.test');
     const tiny = { format: 'gatefold-board', version: 1, parts: [{ id: 'a', kind: 'switch', label: 'A', x: 0, y: 0 }], wires: [] };

@@ -1,8 +1,9 @@
 /**
  * `analyze FILE [--inputs A,B,…] [--outputs S,C,…] [--select S1,S2,…] [--dont-cares 3,5]`: the truth table,
- * minimal SOP/POS, function names and function map as the `analyze` JSON of CONTRACTS §2.
+ * minimal SOP/POS, function names and function map as the `analyze` JSON of CONTRACTS §2, from the one
+ * analysis pipeline of `shared/analysis` (its don't-care rule included).
  */
-import { AnalysisError, analyzeBoard } from '../../../shared/analysis';
+import { AnalysisError, analyzeBoard, parseRowList } from '../../../shared/analysis';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
 import { CliError } from '../errors';
@@ -23,14 +24,11 @@ export const analyze: CliCommand = {
       inputs: { type: 'string' }, outputs: { type: 'string' }, select: { type: 'string' }, 'dont-cares': { type: 'string' },
     });
     const board = readBoard(positionals[0]);
-    const dc = list(values['dont-cares'], 'dont-cares')?.map((s) => {
-      const n = Number(s);
-      if (!Number.isInteger(n) || n < 0) throw new CliError(`--dont-cares: "${s}" is not a row number`);
-      return n;
-    });
     try {
+      const rows = list(values['dont-cares'], 'dont-cares');
       const result = analyzeBoard(board, {
-        inputs: list(values.inputs, 'inputs'), outputs: list(values.outputs, 'outputs'), select: list(values.select, 'select'), dontCares: dc,
+        inputs: list(values.inputs, 'inputs'), outputs: list(values.outputs, 'outputs'), select: list(values.select, 'select'),
+        dontCares: rows && parseRowList(rows.join(',')),
       });
       // indented for people; a million-row table is written compact (it is for programs)
       io.stdout(JSON.stringify(result, null, result.rows.length <= 4096 ? 2 : undefined) + '\n');

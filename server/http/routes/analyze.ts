@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
-import { AnalysisError, analyzeBoardFile } from '../../../shared/analysis';
+import { AnalysisError, analyzeBoardFile, parseRowList } from '../../../shared/analysis';
 import { HttpError, badRequest, parseInput } from '../errors';
 import { requireUser } from '../middleware/require-user';
 
@@ -16,14 +16,11 @@ export const AnalyzeOptionsSchema = z.object({
   inputs: LabelListSchema.optional(),
   outputs: LabelListSchema.optional(),
   select: LabelListSchema.optional(),
+  // only the shape here: which rows are acceptable is the pipeline's one don't-care rule
   dontCares: z.union([
-    z.array(z.number().int().min(0)),
-    z.record(z.string(), z.array(z.number().int().min(0))),
-    z.string().transform((s, ctx) => {
-      const rows = s.split(',').filter(Boolean).map(Number);
-      if (rows.some((r) => !Number.isInteger(r) || r < 0)) ctx.addIssue({ code: 'custom', message: 'dontCares: row numbers separated by commas' });
-      return rows;
-    }),
+    z.array(z.number()),
+    z.record(z.string(), z.array(z.number())),
+    z.string(),
   ]).optional(),
 });
 
@@ -50,7 +47,8 @@ export function analyzeRouter(opts: { perMinute?: number } = {}): Router {
     const pick = (k: keyof typeof fromBody) => fromBody[k] ?? fromQuery[k];
     const opts = parseInput(AnalyzeOptionsSchema, { inputs: pick('inputs'), outputs: pick('outputs'), select: pick('select'), dontCares: pick('dontCares') });
     try {
-      res.json(analyzeBoardFile(board, opts));
+      const dontCares = typeof opts.dontCares === 'string' ? parseRowList(opts.dontCares) : opts.dontCares;
+      res.json(analyzeBoardFile(board, { ...opts, dontCares }));
     } catch (err) {
       if (err instanceof AnalysisError) {
         const invalidBoard = !('inputs' in err.fields || 'outputs' in err.fields || 'select' in err.fields || 'dontCares' in err.fields);

@@ -27,6 +27,15 @@ describe('runAnalysis (the worker job)', () => {
     expect(r.functionMap).toEqual([]);
   });
 
+  // The one don't-care rule (shared/analysis/dont-cares.ts): a mark is a row 0 … rowCount − 1 of an analysed output.
+  it('refuses a bad don\'t-care with a message naming it, as the API and the command line do', async () => {
+    await expect(runAnalysis({ board, select: [], dontCares: { S: [4] } })).rejects.toThrow('don\'t-care row 4 is not a row of the table (0 … 3)');
+    await expect(runAnalysis({ board, select: [], dontCares: { S: [1.5] } })).rejects.toThrow('don\'t-care row 1.5 is not a row of the table (0 … 3)');
+    await expect(runAnalysis({ board, select: [], dontCares: { Q: [0] } })).rejects.toThrow('don\'t-cares given for "Q", which is not an analysed output');
+    // rows count the chosen inputs: with one input there are two rows
+    await expect(runAnalysis({ board, inputs: ['A'], select: [], dontCares: { S: [2] } })).rejects.toThrow(/row 2 is not a row of the table \(0 … 1\)/);
+  });
+
   it('ignores moves in the logic key', () => {
     const moved = { ...board, parts: board.parts.map((p) => ({ ...p, x: p.x + 10 })) };
     expect(logicKey(moved)).toBe(logicKey(board));

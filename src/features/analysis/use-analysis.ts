@@ -87,7 +87,10 @@ export function useAnalysis(board: BoardFile) {
   const rerun = useCallback(() => setRunCount((n) => n + 1), []);
   // a new set of inputs renumbers the rows, so row marks no longer apply
   const setInputs = useCallback((inputs: string[]) => setChoices((c) => ({ ...c, inputs, select: c.select.filter((s) => inputs.includes(s)), dontCares: {} })), []);
-  const setOutputs = useCallback((outputs: string[]) => setChoices((c) => ({ ...c, outputs })), []);
+  // marks of an output no longer analysed would be refused (one don't-care rule): they go with it
+  const setOutputs = useCallback((outputs: string[]) => setChoices((c) => ({
+    ...c, outputs, dontCares: Object.fromEntries(Object.entries(c.dontCares).filter(([o]) => outputs.includes(o))),
+  })), []);
   const setSelect = useCallback((select: string[]) => setChoices((c) => ({ ...c, select })), []);
   const toggleDontCare = useCallback((output: string, row: number) => setChoices((c) => {
     const rows = new Set(c.dontCares[output] ?? []);
