@@ -24,4 +24,4 @@ export { evaluate, expressionColumn, parseExpression, type Expr } from './expres
 export { FUNCTION_IDS, FUNCTION_TITLES, columnOfFunction, functionIdOfColumn, type FunctionId } from './function-names';
 export { fanInCone, levelise, isCombinational, type Levelised } from './levelise';
 export { BitParallelEvaluator } from './bit-parallel';
-export type { Cube } from './cube';
+export { coversRow, type Cube } from './cube';

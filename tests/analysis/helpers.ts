@@ -1,5 +1,5 @@
 import Logic, { type Formula } from 'logic-solver';
-import { parseExpression, type Expr } from '../../shared/analysis/expression-parse';
+import { parseExpression, type Expr } from '../../shared/analysis';
 
 /** An expression as a logic-solver formula (an independent SAT solver from npm). */
 export function toFormula(e: Expr): Formula {

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { minimiseOnes, minimiseZeros } from '../../shared/analysis/minimise';
-import { coversRow, type Cube } from '../../shared/analysis/cube';
+import { coversRow, minimiseOnes, minimiseZeros, type Cube } from '../../shared/analysis';
 
 /** Seeded generator (mulberry32, common practice, no source): the same functions on every run. */
 function seeded(seed: number): () => number {

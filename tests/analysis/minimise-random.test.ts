@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { minimalForms } from '../../shared/analysis/forms';
-import { expressionColumn, parseExpression } from '../../shared/analysis/expression-parse';
+import { expressionColumn, minimalForms, parseExpression } from '../../shared/analysis';
 import { counts, satEquivalentOnCare } from './helpers';
 
 /** A random function of n inputs: per row 0, 1 or 2 (don't-care, rarer). */

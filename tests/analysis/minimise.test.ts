@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { minimalForms } from '../../shared/analysis/forms';
-import { expressionColumn, parseExpression } from '../../shared/analysis/expression-parse';
+import { expressionColumn, minimalForms, parseExpression } from '../../shared/analysis';
 import { counts, satEquivalentOnCare } from './helpers';
 
 const ABCD = ['A', 'B', 'C', 'D'];

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkBoard } from '../../../../shared/board/validate';
-import type { BoardFile } from '../../../../shared/board/schema';
+import { checkBoard, type BoardFile } from '../../../../shared/board';
 import { labelProblem } from './labels';
 
 const board: BoardFile = {
