@@ -1,11 +1,12 @@
 /**
  * `simulate FILE [--set A=1,B=0] [--clock LABEL --cycles N] [--vcd OUT.vcd] [--power-on resolve|x]` (CONTRACTS §2).
- * A cycle drives the clock input high, settles, drives it low, settles, then records the outputs; each
+ * Runs the live simulation the bench runs (shared/sim/live), with its clocking rules: a cycle drives the
+ * clock input high, settles, drives it low, settles, holds half a period, then records the outputs; each
  * phase lasts at least half the clock's period so that the dumped waveform shows the clock's shape.
  */
 import {
-  compileBoard, DEFAULT_CLOCK_PERIOD_GATE_DELAYS, familyDelays, familyOf, Simulator, timescaleFor, toVcd,
-  type CompiledPart, type Level, type Netlist, type VcdSample, type VcdSignal,
+  compileBoard, familyOf, LiveSimulation, timescaleFor, toVcd,
+  type CompiledPart, type Level, type Netlist, type SettleReport, type Timers, type VcdSample, type VcdSignal,
 } from '../../../shared/sim';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
@@ -30,14 +31,17 @@ function inputByLabel(netlist: Netlist, label: string, flag: string): CompiledPa
   return part;
 }
 
-/** `A=1,B=0` → [[part, level]] */
-function parseSets(netlist: Netlist, text: string): [CompiledPart, 0 | 1][] {
+/** `A=1,B=0` → [[part id, value]] */
+function parseSets(netlist: Netlist, text: string): [string, boolean][] {
   return text.split(',').filter((s) => s.trim()).map((item) => {
     const m = /^\s*([^=\s]+)\s*=\s*([01])\s*$/.exec(item);
     if (!m) throw new CliError(`--set: "${item}" is not LABEL=0 or LABEL=1`);
-    return [inputByLabel(netlist, m[1], '--set'), m[2] === '1' ? 1 : 0];
+    return [inputByLabel(netlist, m[1], '--set').id, m[2] === '1'];
   });
 }
+
+/** The command line never runs the clock on wall time: only the run's time budgets read it. */
+const timers: Timers = { now: () => performance.now(), setTimeout: () => undefined, clearTimeout: () => undefined };
 
 /** The dumped signals: inputs and outputs by label, then every other net in scope `nets`. */
 function vcdSignals(netlist: Netlist): { signals: VcdSignal[]; byNet: number[][] } {
@@ -63,9 +67,10 @@ export const simulate: CliCommand = {
     });
     const powerOn = parsePowerOn(values['power-on']);
     const board = readBoard(positionals[0]);
-    const netlist = compileBoard(board);
-    const sets = typeof values.set === 'string' ? parseSets(netlist, values.set) : [];
-    const clock = typeof values.clock === 'string' ? inputByLabel(netlist, values.clock, '--clock') : undefined;
+    // labels are checked before anything runs
+    const labels = compileBoard(board);
+    const sets = typeof values.set === 'string' ? parseSets(labels, values.set) : [];
+    const clock = typeof values.clock === 'string' ? inputByLabel(labels, values.clock, '--clock') : undefined;
     let cycles = 0;
     if (values.cycles !== undefined) {
       if (!clock) throw new CliError('--cycles needs --clock LABEL');
@@ -74,50 +79,49 @@ export const simulate: CliCommand = {
       cycles = n;
     } else if (clock) cycles = 1;
 
-    const sim = new Simulator(netlist, { powerOn });
-    const { signals, byNet } = vcdSignals(netlist);
     const samples: VcdSample[] = [];
-    // levels at power-on (time 0): sources and storage are driven already, gates still X
-    const initial: Level[] = signals.map(() => 'X');
-    byNet.forEach((list, net) => { for (const s of list) initial[s] = sim.level(net); });
-    if (values.vcd) sim.onChange((time, net, level) => { for (const s of byNet[net]) samples.push({ time, signal: s, level }); });
+    let signals: VcdSignal[] = [];
+    let initial: Level[] = [];
     const oscillating = new Set<string>();
     const races = new Set<string>();
     let settled = true;
-    let report = sim.settle();
+    let report: SettleReport | undefined;
     // the loop nets whose power-on level was chosen (only the first settle chooses)
-    const resolved = report.powerOn;
-    const absorb = () => {
-      settled &&= report.settled;
-      report.oscillating.forEach((n) => oscillating.add(n));
-      report.races.forEach((n) => races.add(n));
-    };
-    absorb();
-    for (const [part, v] of sets) sim.setInput(part.id, v);
-    report = sim.settle();
-    absorb();
-
-    const d = familyDelays(board.family);
-    const period = clock?.part.kind === 'clock' && clock.part.period ? clock.part.period : DEFAULT_CLOCK_PERIOD_GATE_DELAYS * Math.max(d.rise, d.fall);
-    const half = Math.max(1, Math.round(period / 2));
-    // once the board is known to oscillate, later settles get a small budget so long runs stay quick
-    const budget = () => (settled ? undefined : OSCILLATING_BUDGET);
-    const phase = (level: 0 | 1) => {
-      const start = sim.time;
-      sim.setInput(clock!.id, level);
-      report = sim.settle({ eventBudget: budget() });
-      absorb();
-      if (sim.time < start + half) sim.runFor(start + half - sim.time, { clocks: false });
-    };
+    let resolved: string[] | undefined;
+    const live = new LiveSimulation(timers, {
+      powerOn,
+      clockInputs: clock ? [clock.id] : [],
+      // once the board is known to oscillate, later settles get a small budget so long runs stay quick
+      oscillatingBudget: OSCILLATING_BUDGET,
+      onCompile: (netlist, sim) => {
+        const dump = vcdSignals(netlist);
+        signals = dump.signals;
+        // levels at power-on (time 0): sources and storage are driven already, gates still X
+        initial = signals.map(() => 'X');
+        dump.byNet.forEach((list, net) => { for (const s of list) initial[s] = sim.level(net); });
+        if (values.vcd) sim.onChange((time, net, level) => { for (const s of dump.byNet[net]) samples.push({ time, signal: s, level }); });
+      },
+      onSettle: (r) => {
+        report = r;
+        resolved ??= r.powerOn;
+        settled &&= r.settled;
+        r.oscillating.forEach((n) => oscillating.add(n));
+        r.races.forEach((n) => races.add(n));
+      },
+    });
+    live.load(board);
+    // the values of --set change together, straight after power-on; without a change the board settles
+    // once more all the same (an oscillating board runs on), as this command always has
+    if (!live.setTryOut(sets, false)) live.settle();
+    const sim = live.sim!;
     const trace: { cycle: number; outputs: Record<string, Level> }[] = [];
     for (let cycle = 1; cycle <= cycles; cycle++) {
-      phase(1);
-      phase(0);
+      live.cycle();
       trace.push({ cycle, outputs: sim.outputValues() });
     }
     const result = {
-      settled, oscillating: [...oscillating], conflicts: report.conflicts, outputs: sim.outputValues(), trace,
-      undrivenInputs: report.undrivenInputs, races: [...races], powerOn: resolved, time: sim.time, events: sim.stats.events,
+      settled, oscillating: [...oscillating], conflicts: report!.conflicts, outputs: sim.outputValues(), trace,
+      undrivenInputs: report!.undrivenInputs, races: [...races], powerOn: resolved ?? [], time: sim.time, events: sim.stats.events,
       ...(familyOf(board.family).caution ? { caution: familyOf(board.family).caution } : {}),
     };
     io.stdout(JSON.stringify(result, null, 2) + '\n');

@@ -24,7 +24,7 @@ export interface LiveOptions {
   powerOn?: SimulatorOptions['powerOn'];
   /** ids of the input parts the clock drives; default every clock part of the board */
   clockInputs?: readonly string[];
-  /** once a settle has not settled, later settles spend at most this many events (long clocked runs stay quick) */
+  /** once a settle has not settled, the settles after later clock edges spend at most this many events (long clocked runs stay quick) */
   oscillatingBudget?: number;
   /** a new Simulator for the board, before its first settle */
   onCompile?: (netlist: Netlist, sim: Simulator) => void;
@@ -101,10 +101,13 @@ export class LiveSimulation {
     if (!this.applied.size) this.settle();
   }
 
-  /** Sets try-out values (several at once change together) on top of the board's own values. */
-  setTryOut(values: Iterable<[string, boolean]>, gap = true): void {
+  /**
+   * Sets try-out values (several at once change together) on top of the board's own values, half a period
+   * after the last change unless `gap` is false; returns whether an input changed (and the board settled).
+   */
+  setTryOut(values: Iterable<[string, boolean]>, gap = true): boolean {
     for (const [id, v] of values) this.tryOut.set(id, v);
-    this.apply(gap);
+    return this.apply(gap);
   }
 
   /** Forgets every try-out value. */
@@ -147,7 +150,7 @@ export class LiveSimulation {
       this.lastEdgeAt = sim.time;
       this.clock.toggle();
       if (this.clock.phase) this.opts.onRisingEdge?.(sim.time);
-      this.apply(false);
+      this.apply(false, this.unsettled ? this.opts.oscillatingBudget : undefined);
     }
   }
 
@@ -174,30 +177,35 @@ export class LiveSimulation {
     return this.tryOut.get(part.id) ?? documentValue(part) ?? false;
   }
 
-  /** Sets every input whose value differs from what the simulator has, then settles (after a pause with `gap`). */
-  private apply(gap: boolean): void {
+  /**
+   * Sets every input whose value differs from what the simulator has, then settles (after a pause with
+   * `gap`, spending at most `eventBudget` events when given).
+   */
+  private apply(gap: boolean, eventBudget?: number): boolean {
     const sim = this.sim;
-    if (!sim || !this.netlist) return;
+    if (!sim || !this.netlist) return false;
     const changes: [string, boolean][] = [];
     for (const input of this.netlist.inputs) {
       const part = this.current.get(input.id) ?? input.part;
       const value = this.inputValue(part);
       if (this.applied.get(part.id) !== value) changes.push([part.id, value]);
     }
-    if (!changes.length) return;
+    if (!changes.length) return false;
     if (gap) this.idle(this.half);
     for (const [id, value] of changes) {
       sim.setInput(id, value);
       this.applied.set(id, value);
     }
-    this.settle();
+    this.settle(eventBudget);
+    return true;
   }
 
-  private settle(): void {
-    const budget = this.unsettled ? this.opts.oscillatingBudget : undefined;
-    this.report = this.sim!.settle({ eventBudget: budget });
+  /** Settles with the inputs as they are (a board that oscillates runs on); the report is also kept in `report`. */
+  settle(eventBudget?: number): SettleReport {
+    this.report = this.sim!.settle({ eventBudget });
     if (!this.report.settled) this.unsettled = true;
     if (this.report.powerOn.length) this.powerOn = this.report.powerOn;
     this.opts.onSettle?.(this.report);
+    return this.report;
   }
 }
