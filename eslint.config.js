@@ -18,6 +18,17 @@ const featureZones = readdirSync(new URL('./src/features', import.meta.url), { w
     message: `import the ${name} feature through its index.ts (src/features/${name})`,
   }));
 
+// Each shared package (shared/board, sim, analysis, api) is entered only through its index.ts from the
+// app's code (src, server, bench and the other shared packages); tests may reach inside to test a part.
+const sharedZones = readdirSync(new URL('./shared', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map(({ name }) => ({
+    target: ['./src/**', './server/**', './bench/**', `./shared/!(${name})/**`],
+    from: `./shared/${name}`,
+    except: ['./index.ts'],
+    message: `import shared/${name} through its index.ts`,
+  }));
+
 // The architecture of STYLE.md, checked: shared/ is pure, src/ never imports server/,
 // server/ never imports src/, only server/db touches Knex, migrations import no app code,
 // a client feature is imported only through its index.ts.
@@ -52,6 +63,7 @@ export default tseslint.config(
             message: 'only the board store (server/db/board-store.ts) touches the board_updates table',
           },
           ...featureZones,
+          ...sharedZones,
         ],
       }],
       'no-restricted-imports': 'off',

@@ -6,7 +6,7 @@ import type { BenchRow } from './run';
 import { compileBoard, Simulator } from '../shared/sim';
 import { randomCircuit } from '../tests/helpers/random-circuit';
 import { enumerateTable, minimalForms, resolveSpec } from '../shared/analysis';
-import { minimiseOnes, minimiseZeros } from '../shared/analysis/minimise';
+import { minimiseOnes, minimiseZeros } from '../shared/analysis';
 
 /** mulberry32 (common practice, no source): the same functions on every run. */
 function seeded(seed: number): () => number {

@@ -2,7 +2,7 @@
  * Opening a 1,000-part board in headless Chromium: the built app served by the real server (started
  * as the browser tests start it, on a free port with a temporary database), a board imported from a
  * generated file, and the time from navigation until the first parts, then every part, are drawn on
- * the bench. Also the mean frame time while the bench pans over all 1,000 parts (first drag after
+ * the canvas. Also the mean frame time while the canvas pans over all 1,000 parts (first drag after
  * opening, then a second drag). Each figure is the median of RUNS opens.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
-import type { BoardFile, Part, Wire } from '../shared/board/schema';
+import type { BoardFile, Part, Wire } from '../shared/board';
 import { freePort } from '../tests/e2e/fixtures';
 import type { BenchRow } from './run';
 
@@ -37,7 +37,7 @@ export function thousandPartBoard(): BoardFile {
     wires.push({ id: `c${r}`, from: `g${r}.out`, to: `n${r}.in0` });
     wires.push({ id: `d${r}`, from: `n${r}.out`, to: `l${r}.in` });
   }
-  return { format: 'gatefold-board', version: 1, title: 'Thousand-part bench', family: 'ideal', parts, wires };
+  return { format: 'gatefold-board', version: 1, title: 'Thousand-part board', family: 'ideal', parts, wires };
 }
 
 function median(values: number[]): number {
@@ -112,7 +112,7 @@ export default async function canvasBench(): Promise<BenchRow[]> {
     const page = await ctx.newPage();
     const all = board.parts.length;
 
-    // Warm the browser's cache of the app's assets once, so the figure is the bench, not the download.
+    // Warm the browser's cache of the app's assets once, so the figure is the canvas, not the download.
     await page.goto(`/boards/${id}`);
     await page.waitForFunction((n) => document.querySelectorAll('.react-flow__node').length >= n, all, { timeout: 120_000 });
 
@@ -131,7 +131,7 @@ export default async function canvasBench(): Promise<BenchRow[]> {
       // At fit-to-view a 1,000-part board must be in the plain-box mode, with every wire still drawn.
       const drawn = await page.evaluate(() => ({ far: document.querySelectorAll('.gf-far').length, wires: document.querySelectorAll('.react-flow__edge path').length }));
       if (drawn.far < all || drawn.wires < board.wires.length) throw new Error(`at fit view: ${drawn.far} plain boxes, ${drawn.wires} wire paths`);
-      // Pan across the bench for 60 frames and time them: once right after opening (what a user feels
+      // Pan across the canvas for 60 frames and time them: once right after opening (what a user feels
       // first), then once more (the steady cost of a frame, without one-time work of the first drag).
       const pan = (await page.evaluate(PAN_SCRIPT)) as number;
       const again = (await page.evaluate(PAN_SCRIPT)) as number;
@@ -145,10 +145,10 @@ export default async function canvasBench(): Promise<BenchRow[]> {
     const loadAvg = (await import('node:os')).loadavg()[0].toFixed(1);
     return [
       { name: 'open 1,000-part board: document synced', value: synced, unit: 'ms', note: 'navigation → app, sign-in check, socket, sync done' },
-      { name: 'open 1,000-part board: first parts drawn', value: first, unit: 'ms', note: 'navigation → first node on the bench (assets cached)' },
+      { name: 'open 1,000-part board: first parts drawn', value: first, unit: 'ms', note: 'navigation → first node on the canvas (assets cached)' },
       { name: 'open 1,000-part board: all 1,000 parts drawn', value: full, unit: 'ms', note: 'navigation → sync → fit to view → every node rendered' },
       { name: 'pan over 1,000 parts: mean frame', value: frame, unit: 'ms', note: `first drag after opening; headless Chromium, no GPU; 16.7 ms = 60 fps; machine load ${loadAvg}` },
-      { name: 'pan over 1,000 parts again: mean frame', value: med('again'), unit: 'ms', note: 'a second drag of the same bench (steady cost per frame)' },
+      { name: 'pan over 1,000 parts again: mean frame', value: med('again'), unit: 'ms', note: 'a second drag of the same canvas (steady cost per frame)' },
     ];
   } finally {
     await browser.close();

@@ -8,7 +8,7 @@ import * as Y from 'yjs';
 import type { BenchRow } from './run';
 import { startTestServer } from '../tests/helpers/test-app';
 import { addMember, connectClient, createBoard, signUp } from '../tests/collab/helpers';
-import { addPart, movePart } from '../shared/board/edits';
+import { addPart, movePart } from '../shared/board';
 import { loadBoardDoc } from '../server/boards-live';
 
 const EDITS = 200;

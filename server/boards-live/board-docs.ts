@@ -1,7 +1,7 @@
 import * as Y from 'yjs';
-import type { BoardFile } from '../../shared/board/schema';
-import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board/ydoc';
-import { replaceWithBoard, setMeta } from '../../shared/board/edits';
+import type { BoardFile } from '../../shared/board';
+import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board';
+import { replaceWithBoard, setMeta } from '../../shared/board';
 import type { BoardLocks } from './locks';
 import { ServerOrigin, type BoardMeta, type BoardStore } from './store';
 

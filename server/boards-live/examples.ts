@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { parseBoardFile } from '../../shared/board/validate';
-import type { BoardFile } from '../../shared/board/schema';
+import { parseBoardFile } from '../../shared/board';
+import type { BoardFile } from '../../shared/board';
 import type { BoardRegistry } from './registry';
 
 /** Reads `examples/<slug>.gatefold.json` (the demo boards' content), checked like an import. */

@@ -1,4 +1,4 @@
-import type { BoardFile } from '../../shared/board/schema';
+import type { BoardFile } from '../../shared/board';
 import {
   compactStoredBoard, ensureBoardMeta, loadBoardDoc, readBoardFile, writeBoardFile, writeBoardMeta, type BoardDocsDeps,
 } from './board-docs';

@@ -7,8 +7,8 @@ import { WebSocket } from 'ws';
 import { metaOf } from './board-docs';
 import { ServerOrigin, type BoardFanout, type BoardStore } from './store';
 import { UpdateLog } from './update-log';
-import { metaMap } from '../../shared/board/ydoc';
-import { repairBoard } from '../../shared/board/edits';
+import { metaMap } from '../../shared/board';
+import { repairBoard } from '../../shared/board';
 import { MSG, SYNC, awarenessClients } from './protocol';
 import { CLOSE, CollabError, type CollabOptions, type Peer } from './types';
 

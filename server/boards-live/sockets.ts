@@ -1,7 +1,7 @@
 import type { Server, IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
-import type { BoardRole } from '../../shared/api/types';
+import type { BoardRole } from '../../shared/api';
 import { authorizeUpgrade, boardIdOfPath } from './auth';
 import type { BoardRegistry } from './registry';
 import type { Room } from './room';

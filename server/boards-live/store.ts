@@ -4,7 +4,7 @@
  * A PostgreSQL store is the same module on another Knex client (the SQL is plain Knex); a cross-server
  * fan-out implements `BoardFanout`. Neither needs a change to rooms or routes.
  */
-import type { FamilyId } from '../../shared/board/schema';
+import type { FamilyId } from '../../shared/board';
 
 /** One Yjs update to store, numbered in the order the room applied it. */
 export interface NewBoardUpdate {

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import type { BoardRole } from '../../shared/api/types';
+import type { BoardRole } from '../../shared/api';
 import type { AuthzService } from '../services/authz';
 import type { AppEvents } from '../services/events';
 import type { BoardRegistry } from './registry';

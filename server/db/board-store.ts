@@ -1,5 +1,5 @@
 import type { BoardStore } from '../boards-live/store';
-import { FamilySchema } from '../../shared/board/schema';
+import { FamilySchema } from '../../shared/board';
 import type { Db } from './knex';
 import { nowIso } from './knex';
 import {

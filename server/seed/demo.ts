@@ -1,5 +1,5 @@
-import type { BoardRole } from '../../shared/api/types';
-import type { FamilyId } from '../../shared/board/schema';
+import type { BoardRole } from '../../shared/api';
+import type { FamilyId } from '../../shared/board';
 import type { Services } from '../services';
 
 /** Fills a freshly created demo board's document with parts and wires (written by the collaboration feature). */

@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
-import type { ApiUser } from '../../shared/api/types';
-import type { LoginBody, ResetBody, SignupBody } from '../../shared/api/schemas';
+import type { ApiUser } from '../../shared/api';
+import type { LoginBody, ResetBody, SignupBody } from '../../shared/api';
 import type { AppConfig } from '../config';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';

@@ -1,4 +1,4 @@
-import type { BoardRole } from '../../shared/api/types';
+import type { BoardRole } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { boardExists } from '../db/boards';
 import { findRole } from '../db/members';

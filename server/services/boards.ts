@@ -1,6 +1,6 @@
-import type { ApiBoard, BoardRole } from '../../shared/api/types';
-import type { FamilyId } from '../../shared/board/schema';
-import type { CreateBoardBody, UpdateBoardBody } from '../../shared/api/schemas';
+import type { ApiBoard, BoardRole } from '../../shared/api';
+import type { FamilyId } from '../../shared/board';
+import type { CreateBoardBody, UpdateBoardBody } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as boardsDb from '../db/boards';

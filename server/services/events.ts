@@ -1,5 +1,5 @@
 import { EventEmitter } from 'node:events';
-import type { BoardRole } from '../../shared/api/types';
+import type { BoardRole } from '../../shared/api';
 
 /** Events other features listen to (e.g. websocket rooms close or downgrade sockets). */
 export interface AppEventMap {

@@ -1,4 +1,4 @@
-import type { ApiBoard, ApiInvitation, ApiInvitationInfo } from '../../shared/api/types';
+import type { ApiBoard, ApiInvitation, ApiInvitationInfo } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as invDb from '../db/invitations';

@@ -1,5 +1,5 @@
-import type { ApiInvitation, ApiMember, BoardRole } from '../../shared/api/types';
-import type { AddMemberBody } from '../../shared/api/schemas';
+import type { ApiInvitation, ApiMember, BoardRole } from '../../shared/api';
+import type { AddMemberBody } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as membersDb from '../db/members';

@@ -1,4 +1,4 @@
-import type { ApiMail, ApiMailSummary } from '../../shared/api/types';
+import type { ApiMail, ApiMailSummary } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { findMail, listMail } from '../db/mail-messages';
 import { notFound } from '../lib/errors';

@@ -1,4 +1,4 @@
-import type { ApiUser } from '../../shared/api/types';
+import type { ApiUser } from '../../shared/api';
 import type { Db } from '../db/knex';
 import { findUserById, type UserRow } from '../db/users';
 

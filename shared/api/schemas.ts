@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { FAMILY_IDS } from '../board/schema';
+import { FAMILY_IDS } from '../board';
 
 /** Roles a member can be given; the owner role is held only by the board's creator. */
 export const MemberRoleSchema = z.enum(['editor', 'viewer'], {

@@ -1,4 +1,4 @@
-import type { FamilyId } from '../board/schema';
+import type { FamilyId } from '../board';
 
 /** A board role, strongest first: owner > editor > viewer. */
 export type BoardRole = 'owner' | 'editor' | 'viewer';

@@ -12,7 +12,7 @@ import { notifyError } from '../lib/notify';
 import { signInPath } from '../lib/safe-next';
 
 function navClass({ isActive }: { isActive: boolean }) {
-  return cn('rounded px-2.5 py-1 text-sm transition-colors', isActive ? 'bg-bench-800 text-amber-300' : 'text-slate-300 hover:text-slate-100');
+  return cn('rounded px-2.5 py-1 text-sm transition-colors', isActive ? 'bg-mat-800 text-amber-300' : 'text-slate-300 hover:text-slate-100');
 }
 
 function UserMenu({ user }: { user: ApiUser }) {
@@ -22,7 +22,7 @@ function UserMenu({ user }: { user: ApiUser }) {
       <span className="flex items-center gap-2 text-sm text-slate-200" data-testid="current-user">
         <Avatar name={user.name} size="sm" />
         <span className="hidden sm:inline">{user.name}</span>
-        {user.isAdmin && <span className="rounded border border-bench-600 px-1 font-mono text-[10px] text-slate-400">admin</span>}
+        {user.isAdmin && <span className="rounded border border-mat-600 px-1 font-mono text-[10px] text-slate-400">admin</span>}
       </span>
       <Button
         size="sm"
@@ -41,7 +41,7 @@ function TopBar() {
   const me = useQuery(meQueryOptions);
   const user = me.data ?? null;
   return (
-    <header className="flex h-11 shrink-0 items-center justify-between gap-4 border-b border-bench-700 bg-bench-900/95 px-4">
+    <header className="flex h-11 shrink-0 items-center justify-between gap-4 border-b border-mat-700 bg-mat-900/95 px-4">
       <div className="flex items-center gap-5">
         <Link to={user ? '/boards' : '/signin'} aria-label="Gatefold home">
           <Wordmark />
@@ -78,7 +78,7 @@ function TopBar() {
 /** Every page: the top bar over the bench surface; the page decides its own width. */
 export function RootLayout() {
   return (
-    <div className="bench-grid flex h-full min-h-0 flex-col">
+    <div className="mat-grid flex h-full min-h-0 flex-col">
       <TopBar />
       <main className="flex min-h-0 flex-1 flex-col overflow-auto">
         <Outlet />

@@ -18,7 +18,7 @@ export function Providers({ children }: { children: ReactNode }) {
         closeButton
         toastOptions={{
           classNames: {
-            toast: '!bg-bench-800 !border !border-bench-600 !text-slate-100 !font-sans',
+            toast: '!bg-mat-800 !border !border-mat-600 !text-slate-100 !font-sans',
             description: '!text-slate-300',
             success: '[&_[data-icon]]:!text-amber-glow',
             error: '[&_[data-icon]]:!text-rose-400',

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FAMILY_IDS } from '../../shared/board/schema';
+import { FAMILY_IDS } from '../../shared/board';
 import { FAMILY_LABELS, safetyCautionFor } from './families';
 
 describe('safetyCautionFor', () => {

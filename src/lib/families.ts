@@ -1,4 +1,4 @@
-import { FAMILY_IDS, type FamilyId } from '../../shared/board/schema';
+import { FAMILY_IDS, type FamilyId } from '../../shared/board';
 
 /** How each logic family is named in menus (the ids are the contract's). */
 export const FAMILY_LABELS: Record<FamilyId, string> = {

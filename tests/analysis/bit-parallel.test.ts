@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { CODE_CHARS, enumerateTable, levelise, resolveSpec } from '../../shared/analysis';
 import { compileBoard } from '../../shared/sim';
-import { toVerilog } from '../../shared/sim/verilog';
+import { toVerilog } from '../../shared/sim';
 import { randomBoardArb } from './random-board';
 import { randomCircuit, type RandomKind } from '../helpers/random-circuit';
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addPart, movePart } from '../../shared/board/edits';
-import { docToBoard } from '../../shared/board/ydoc';
+import { addPart, movePart } from '../../shared/board';
+import { docToBoard } from '../../shared/board';
 import {
   addMember, api, connectClient, createBoard, exportText, rawUpgrade, signUp, sleep, waitFor, type Client, type User,
 } from './helpers';

@@ -1,7 +1,7 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type Agent, type TestApp } from '../helpers/test-app';
-import { parseBoardFile } from '../../shared/board/validate';
+import { parseBoardFile } from '../../shared/board';
 
 const EXAMPLES = new URL('../../examples/', import.meta.url);
 const example = (name: string) => readFileSync(new URL(name, EXAMPLES), 'utf8');

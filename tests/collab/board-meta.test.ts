@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { setMeta } from '../../shared/board/edits';
-import { metaMap } from '../../shared/board/ydoc';
+import { setMeta } from '../../shared/board';
+import { metaMap } from '../../shared/board';
 import { addMember, api, connectClient, createBoard, signUp, waitFor, type Client, type User } from './helpers';
 
 // The title and family have one owner, the board's document; the boards row is its projection.

@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addPart, connect, deleteSelection, movePart, relabelPart, rotateParts } from '../../shared/board/edits';
-import { docToBoard, partsMap } from '../../shared/board/ydoc';
-import { parseBoardFile } from '../../shared/board/validate';
+import { addPart, connect, deleteSelection, movePart, relabelPart, rotateParts } from '../../shared/board';
+import { docToBoard, partsMap } from '../../shared/board';
+import { parseBoardFile } from '../../shared/board';
 import { addMember, connectClient, createBoard, exportText, signUp, waitFor, type User } from './helpers';
 
 const ME = { local: 'prop' };

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
 import { DEMO_BOARDS, DEMO_PASSWORD, DEMO_USERS } from '../../server/seed/demo';
 import { api, connectClient, waitFor } from './helpers';
-import { docToBoard } from '../../shared/board/ydoc';
+import { docToBoard } from '../../shared/board';
 
 let server: TestServer;
 beforeAll(async () => {

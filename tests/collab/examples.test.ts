@@ -5,9 +5,9 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { parseBoardFile } from '../../shared/board/validate';
-import type { BoardFile } from '../../shared/board/schema';
-import { canonicalBoard } from '../../shared/board/ydoc';
+import { parseBoardFile } from '../../shared/board';
+import type { BoardFile } from '../../shared/board';
+import { canonicalBoard } from '../../shared/board';
 import { compileBoard, Simulator } from '../../shared/sim';
 import { analyzeBoard } from '../../shared/analysis';
 

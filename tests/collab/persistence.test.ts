@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addPart, connect, movePart } from '../../shared/board/edits';
+import { addPart, connect, movePart } from '../../shared/board';
 import { countBoardUpdates, loadBoardUpdates } from '../../server/db/board-updates';
 import { connectClient, createBoard, exportText, signUp, waitFor, type User } from './helpers';
 

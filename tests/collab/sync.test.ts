@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import WebSocket from 'ws';
 import * as encoding from 'lib0/encoding';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addPart, connect, deleteSelection, movePart, relabelPart } from '../../shared/board/edits';
-import { docToBoard } from '../../shared/board/ydoc';
+import { addPart, connect, deleteSelection, movePart, relabelPart } from '../../shared/board';
+import { docToBoard } from '../../shared/board';
 import { addMember, connectClient, createBoard, signUp, waitFor, type Client, type User } from './helpers';
 
 const ME = { local: 'test' };

@@ -63,7 +63,7 @@ test('the inspector sets a gate to 3 inputs as one undoable edit and refuses a d
   await expect(page.getByTestId('pin-g2-in1')).toHaveCount(1);
   await page.screenshot({ path: 'test-results/inspector-01-and-three-inputs.png' });
 
-  // Undo (Ctrl+Z on the bench, not in a form field) takes back exactly that edit.
+  // Undo (Ctrl+Z on the canvas, not in a form field) takes back exactly that edit.
   await page.getByTestId('part-g2').click();
   await page.keyboard.press('Control+z');
   await expect(page.getByTestId('pin-g2-in2')).toHaveCount(0);
@@ -93,7 +93,7 @@ test('the inspector sets a gate to 3 inputs as one undoable edit and refuses a d
   for (const id of ['s', 'c']) await expect(page.locator(`.react-flow__node[data-id="${id}"] g[transform*="rotate(90)"]`)).toHaveCount(1);
   await page.screenshot({ path: 'test-results/inspector-03-two-selected.png' });
 
-  // It sits atop the right-hand column; with that column hidden it floats over the bench instead.
+  // It sits atop the right-hand column; with that column hidden it floats over the canvas instead.
   await expect(inspector).toHaveAttribute('data-placement', 'panel');
   await page.getByTestId('toggle-panels').click();
   await expect(inspector).toHaveAttribute('data-placement', 'float');

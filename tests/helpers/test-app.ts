@@ -5,7 +5,7 @@ import supertest from 'supertest';
 import { createApp, type AppContext } from '../../server/app';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { startServer } from '../../server/index';
-import type { ApiMail } from '../../shared/api/types';
+import type { ApiMail } from '../../shared/api';
 
 /** The origin test agents send, and the PUBLIC_URL the test app links to in e-mails. */
 export const TEST_ORIGIN = 'http://gatefold.test';

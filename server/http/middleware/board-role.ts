@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import type { BoardRole } from '../../../shared/api/types';
-import { IdParamSchema } from '../../../shared/api/schemas';
+import type { BoardRole } from '../../../shared/api';
+import { IdParamSchema } from '../../../shared/api';
 import type { AuthzService } from '../../services/authz';
 import { HttpError, notSignedIn } from '../errors';
 

@@ -1,5 +1,5 @@
 import { Router, type Request } from 'express';
-import { LoginSchema, ResetRequestSchema, ResetSchema, SignupSchema } from '../../../shared/api/schemas';
+import { LoginSchema, ResetRequestSchema, ResetSchema, SignupSchema } from '../../../shared/api';
 import type { AppConfig } from '../../config';
 import type { Services } from '../../services';
 import { notSignedIn, parseInput } from '../errors';

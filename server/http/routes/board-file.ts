@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { parseBoardFile } from '../../../shared/board/validate';
-import { canonicalBoard } from '../../../shared/board/ydoc';
+import { parseBoardFile } from '../../../shared/board';
+import { canonicalBoard } from '../../../shared/board';
 import type { Services } from '../../services';
 import type { BoardRegistry } from '../../boards-live';
 import { boardRoleGuard } from '../middleware/board-role';

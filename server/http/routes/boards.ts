@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { CreateBoardSchema, UpdateBoardSchema } from '../../../shared/api/schemas';
+import { CreateBoardSchema, UpdateBoardSchema } from '../../../shared/api';
 import type { Services } from '../../services';
 import { boardRoleGuard } from '../middleware/board-role';
 import { parseInput } from '../errors';

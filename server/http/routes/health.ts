@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { HealthResponse } from '../../../shared/api/types';
+import type { HealthResponse } from '../../../shared/api';
 
 export function healthRouter(version: string): Router {
   const r = Router();

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { AddMemberSchema, IdParamSchema, UpdateMemberSchema } from '../../../shared/api/schemas';
+import { AddMemberSchema, IdParamSchema, UpdateMemberSchema } from '../../../shared/api';
 import type { AppConfig } from '../../config';
 import type { Services } from '../../services';
 import { boardRoleGuard } from '../middleware/board-role';

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { IdParamSchema } from '../../../shared/api/schemas';
+import { IdParamSchema } from '../../../shared/api';
 import type { Services } from '../../services';
 import { parseInput } from '../errors';
 import { requireAdmin } from '../middleware/require-user';

@@ -15,7 +15,7 @@ import { BoardWorkspace, useBoardSession, type BoardSession } from '../../featur
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import { AnalysisPanel, useAnalysis } from '../../features/analysis';
-import type { ApiBoard } from '../../../shared/api/types';
+import type { ApiBoard } from '../../../shared/api';
 import { PageTitle } from '../../components/ui/page-title';
 
 /**
@@ -64,7 +64,7 @@ function BoardView({ board: b, me }: { board: ApiBoard; me: { id: number; name: 
   return (
     <div className="flex min-h-0 flex-1 flex-col" data-testid="board-page">
       <PageTitle>{title}</PageTitle>
-      <header className="flex min-h-11 shrink-0 flex-wrap items-center gap-x-4 gap-y-1 border-b border-bench-700 bg-bench-900/90 px-4 py-1.5">
+      <header className="flex min-h-11 shrink-0 flex-wrap items-center gap-x-4 gap-y-1 border-b border-mat-700 bg-mat-900/90 px-4 py-1.5">
         <BoardTitleEditor board={b} title={title} editable={canEdit(b.role)} />
         <span className="flex items-center gap-1.5 text-xs text-slate-400">
           you are <RoleBadge role={b.role} />
@@ -73,7 +73,7 @@ function BoardView({ board: b, me }: { board: ApiBoard; me: { id: number; name: 
           <MemberAvatars boardId={b.id} />
           {isOwner(b.role) && (
             <>
-              <Link to={`/boards/${b.id}/members`} className="rounded px-2 py-1 text-sm text-amber-300 hover:bg-bench-800">
+              <Link to={`/boards/${b.id}/members`} className="rounded px-2 py-1 text-sm text-amber-300 hover:bg-mat-800">
                 Members
               </Link>
               <DeleteBoardButton board={{ ...b, title }} />

@@ -11,7 +11,7 @@ export function RouteError() {
   const notFound = isRouteErrorResponse(error) && error.status === 404;
   const shown = isRouteErrorResponse(error) ? new Error(error.statusText || `Error ${error.status}`) : error;
   return (
-    <div className="bench-grid flex h-full flex-col">
+    <div className="mat-grid flex h-full flex-col">
       <PageColumn width="narrow">
         <div className="flex flex-col items-center gap-4">
           <ErrorState error={shown} title={notFound ? 'Page not found' : 'This page failed to load'} onRetry={notFound ? undefined : () => window.location.reload()} />

@@ -5,9 +5,9 @@ import { Spinner } from './spinner';
 type Variant = 'primary' | 'secondary' | 'ghost' | 'danger';
 
 const VARIANTS: Record<Variant, string> = {
-  primary: 'bg-amber-glow text-bench-950 hover:bg-amber-300 font-semibold',
-  secondary: 'border border-bench-600 bg-bench-800 text-slate-100 hover:border-bench-500 hover:bg-bench-700',
-  ghost: 'text-slate-300 hover:bg-bench-800 hover:text-slate-100',
+  primary: 'bg-amber-glow text-mat-950 hover:bg-amber-300 font-semibold',
+  secondary: 'border border-mat-600 bg-mat-800 text-slate-100 hover:border-mat-500 hover:bg-mat-700',
+  ghost: 'text-slate-300 hover:bg-mat-800 hover:text-slate-100',
   danger: 'border border-rose-800 bg-rose-950/60 text-rose-200 hover:bg-rose-900/70',
 };
 

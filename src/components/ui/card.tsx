@@ -2,12 +2,12 @@ import type { HTMLAttributes, ReactNode } from 'react';
 import { cn } from '../../lib/cn';
 
 export function Card({ className, ...rest }: HTMLAttributes<HTMLDivElement>) {
-  return <div className={cn('rounded-lg border border-bench-700 bg-bench-900/90 shadow-lg shadow-black/30', className)} {...rest} />;
+  return <div className={cn('rounded-lg border border-mat-700 bg-mat-900/90 shadow-lg shadow-black/30', className)} {...rest} />;
 }
 
 export function CardHeader({ title, subtitle, actions }: { title: ReactNode; subtitle?: ReactNode; actions?: ReactNode }) {
   return (
-    <div className="flex items-start justify-between gap-4 border-b border-bench-700 px-5 py-4">
+    <div className="flex items-start justify-between gap-4 border-b border-mat-700 px-5 py-4">
       <div className="min-w-0">
         <h2 className="text-base font-semibold text-slate-100">{title}</h2>
         {subtitle && <p className="mt-0.5 text-sm text-slate-400">{subtitle}</p>}

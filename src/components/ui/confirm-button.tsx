@@ -23,7 +23,7 @@ export function ConfirmButton({ title, description, confirmLabel, onConfirm, chi
       <dialog
         ref={dialog}
         aria-label={title}
-        className="m-auto w-full max-w-sm rounded-lg border border-bench-600 bg-bench-900 p-0 text-slate-200 shadow-2xl backdrop:bg-black/60"
+        className="m-auto w-full max-w-sm rounded-lg border border-mat-600 bg-mat-900 p-0 text-slate-200 shadow-2xl backdrop:bg-black/60"
       >
         <form method="dialog" className="flex flex-col gap-4 p-5">
           <h2 className="text-base font-semibold text-slate-100">{title}</h2>

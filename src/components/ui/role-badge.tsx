@@ -3,7 +3,7 @@ import { cn } from '../../lib/cn';
 const TONE: Record<string, string> = {
   owner: 'border-amber-600/70 text-amber-300',
   editor: 'border-slate-cool text-sky-200',
-  viewer: 'border-bench-500 text-slate-300',
+  viewer: 'border-mat-500 text-slate-300',
 };
 
 /** A board role as a small outlined tag in the mono face. */

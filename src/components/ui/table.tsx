@@ -7,10 +7,10 @@ import { cn } from '../../lib/cn';
  */
 export function DataTable<T>({ table, caption, rowTestId }: { table: Table<T>; caption: string; rowTestId?: string }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-bench-700">
+    <div className="overflow-x-auto rounded-lg border border-mat-700">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">{caption}</caption>
-        <thead className="bg-bench-800/80 text-xs uppercase tracking-wide text-slate-400">
+        <thead className="bg-mat-800/80 text-xs uppercase tracking-wide text-slate-400">
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
               {group.headers.map((header) => {
@@ -39,9 +39,9 @@ export function DataTable<T>({ table, caption, rowTestId }: { table: Table<T>; c
             </tr>
           ))}
         </thead>
-        <tbody className="divide-y divide-bench-700/70">
+        <tbody className="divide-y divide-mat-700/70">
           {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} data-testid={rowTestId} className={cn('bg-bench-900/60 hover:bg-bench-800/60')}>
+            <tr key={row.id} data-testid={rowTestId} className={cn('bg-mat-900/60 hover:bg-mat-800/60')}>
               {row.getVisibleCells().map((cell) => (
                 <td key={cell.id} className="px-4 py-2.5 align-middle text-slate-200">
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}

@@ -32,7 +32,7 @@ export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
   };
   const hasMarks = Object.values(choices.dontCares).some((r) => r.length);
   return (
-    <section aria-label="Analysis" data-testid="analysis-panel" className="space-y-3 border-t border-bench-700 p-3 text-sm">
+    <section aria-label="Analysis" data-testid="analysis-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Analysis</h2>
         <span className="text-xs text-slate-500" data-testid="analysis-status">
@@ -65,7 +65,7 @@ export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
                 <span className="text-slate-500">Notation</span>
                 {(['overbar', 'logic'] as const).map((n) => (
                   <button key={n} type="button" onClick={() => setNotation(n)} aria-pressed={notation === n}
-                    className={notation === n ? 'rounded bg-bench-700 px-1.5 text-slate-100' : 'rounded px-1.5 text-slate-400 hover:bg-bench-800'}>
+                    className={notation === n ? 'rounded bg-mat-700 px-1.5 text-slate-100' : 'rounded px-1.5 text-slate-400 hover:bg-mat-800'}>
                     {n === 'overbar' ? 'A̅·B' : '¬A ∧ B'}
                   </button>
                 ))}

@@ -21,13 +21,13 @@ export function FormsView({ result, notation, focus, onFocus }: {
         const t = result.terms[name];
         const hasUnknown = result.values[o].some((v) => v >= 2);
         return (
-          <li key={name} className="rounded border border-bench-700 bg-bench-900/60 p-2" data-testid={`forms-${name}`}>
+          <li key={name} className="rounded border border-mat-700 bg-mat-900/60 p-2" data-testid={`forms-${name}`}>
             <div className="flex flex-wrap items-center gap-2">
               <span className="font-mono font-semibold text-amber-300">{name}</span>
-              {f.function && <span className="rounded bg-bench-700 px-1.5 text-xs" title={FUNCTION_TITLES[f.function]} data-testid={`function-${name}`} data-function={f.function}>{FUNCTION_TITLES[f.function]}</span>}
+              {f.function && <span className="rounded bg-mat-700 px-1.5 text-xs" title={FUNCTION_TITLES[f.function]} data-testid={`function-${name}`} data-function={f.function}>{FUNCTION_TITLES[f.function]}</span>}
               {result.sequential[o] && <span className="rounded bg-fuchsia-950 px-1.5 text-xs text-fuchsia-200" title="A latch, flip-flop or feedback loop feeds this output: rows are simulated from power-on">depends on stored state</span>}
               <button type="button" onClick={() => onFocus(focus === name ? null : name)} aria-pressed={focus === name}
-                className={cn('ml-auto rounded px-1.5 text-xs', focus === name ? 'bg-amber-glow text-bench-950' : 'text-slate-300 hover:bg-bench-700')}>
+                className={cn('ml-auto rounded px-1.5 text-xs', focus === name ? 'bg-amber-glow text-mat-950' : 'text-slate-300 hover:bg-mat-700')}>
                 {focus === name ? 'Hide on board' : 'Show on board'}
               </button>
             </div>
@@ -37,7 +37,7 @@ export function FormsView({ result, notation, focus, onFocus }: {
                 <div className="text-sm text-slate-100">{t[kind].length || f[kind].length < 3 ? <ExpressionText terms={t[kind]} kind={kind} notation={notation} /> : <span className="text-slate-400">{f[kind]}</span>}</div>
                 <div className="flex items-start gap-1.5">
                   <code className="min-w-0 flex-1 break-all font-mono text-[11px] text-slate-400" data-testid={`${kind}-${name}`}>{f[kind]}</code>
-                  <button type="button" onClick={() => copy(f[kind])} className="shrink-0 rounded px-1.5 text-[11px] text-slate-300 hover:bg-bench-700" aria-label={`Copy the ${kind.toUpperCase()} of ${name}`}>Copy</button>
+                  <button type="button" onClick={() => copy(f[kind])} className="shrink-0 rounded px-1.5 text-[11px] text-slate-300 hover:bg-mat-700" aria-label={`Copy the ${kind.toUpperCase()} of ${name}`}>Copy</button>
                 </div>
                 {(kind === 'sop' ? f.sopAll : f.posAll).length > 1 && (
                   <details className="text-[11px] text-slate-400">

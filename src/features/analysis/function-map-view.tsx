@@ -6,12 +6,12 @@ export function FunctionMapView({ result, select }: { result: AnalysisResult; se
   if (!result.functionMap.length) return null;
   const data = result.functionMap[0].data;
   return (
-    <div className="overflow-x-auto rounded border border-bench-700" data-testid="function-map">
+    <div className="overflow-x-auto rounded border border-mat-700" data-testid="function-map">
       <table className="w-full border-collapse text-xs">
         <caption className="px-2 py-1 text-left text-slate-400">
           Function map: {select.join(', ')} select; data {data.length ? data.join(', ') : '(none)'}{data.length === 2 ? ` (A = ${data[0]}, B = ${data[1]})` : ''}
         </caption>
-        <thead className="bg-bench-800 text-slate-300">
+        <thead className="bg-mat-800 text-slate-300">
           <tr>
             <th scope="col" className="px-2 py-1 text-left font-mono">{select.join('')}</th>
             {result.outputs.map((o) => <th key={o} scope="col" className="px-2 py-1 text-left font-mono text-amber-300">{o}</th>)}
@@ -19,7 +19,7 @@ export function FunctionMapView({ result, select }: { result: AnalysisResult; se
         </thead>
         <tbody>
           {result.functionMap.map((e) => (
-            <tr key={e.select} className="odd:bg-bench-900/60">
+            <tr key={e.select} className="odd:bg-mat-900/60">
               <td className="px-2 py-0.5 font-mono">{e.select}</td>
               {result.outputs.map((o) => {
                 const f = e.functions[o];

@@ -29,7 +29,7 @@ function Order({ chosen, onChange }: { chosen: string[]; onChange(next: string[]
     <div className="flex flex-wrap items-center gap-1 text-xs" data-testid="input-order">
       <span className="text-[11px] uppercase tracking-wide text-slate-500">Column order</span>
       {chosen.map((name, i) => (
-        <span key={name} className="flex items-center rounded bg-bench-800 font-mono">
+        <span key={name} className="flex items-center rounded bg-mat-800 font-mono">
           {i > 0 && <button type="button" onClick={() => earlier(i)} className="px-1 text-slate-400 hover:text-amber-300" aria-label={`Move ${name} before ${chosen[i - 1]}`}>‹</button>}
           <span className="px-1">{name}</span>
         </span>

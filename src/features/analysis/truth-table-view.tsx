@@ -41,7 +41,7 @@ export function TruthTableView({ result, dontCares, onToggle }: {
         return (
           <button type="button" onClick={() => onToggle(name, r)} data-testid={`tt-${name}-${r}`}
             title={ch === '-' ? 'don’t-care (click to use the value again)' : 'click to mark this row don’t-care for minimisation'}
-            className={cn('w-full rounded px-1 leading-4 hover:bg-bench-700', TONE[ch])}>
+            className={cn('w-full rounded px-1 leading-4 hover:bg-mat-700', TONE[ch])}>
             {ch === '-' ? '–' : ch}
           </button>
         );
@@ -57,14 +57,14 @@ export function TruthTableView({ result, dontCares, onToggle }: {
   const bottom = virtualizer.getTotalSize() - (items.at(-1)?.end ?? 0);
 
   return (
-    <div ref={scrollRef} className="max-h-72 overflow-auto rounded border border-bench-700" data-testid="truth-table" aria-rowcount={result.rowCount + 1}>
+    <div ref={scrollRef} className="max-h-72 overflow-auto rounded border border-mat-700" data-testid="truth-table" aria-rowcount={result.rowCount + 1}>
       <table className="w-full border-collapse font-mono text-xs">
         <caption className="sr-only">Truth table, {result.rowCount} rows</caption>
-        <thead className="sticky top-0 bg-bench-800">
+        <thead className="sticky top-0 bg-mat-800">
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
               {g.headers.map((h, i) => (
-                <th key={h.id} scope="col" className={cn('px-1.5 py-1 text-center font-medium', i === k - 1 && 'border-r border-bench-600', i >= k ? 'text-amber-300' : 'text-slate-300')}>
+                <th key={h.id} scope="col" className={cn('px-1.5 py-1 text-center font-medium', i === k - 1 && 'border-r border-mat-600', i >= k ? 'text-amber-300' : 'text-slate-300')}>
                   {flexRender(h.column.columnDef.header, h.getContext())}
                 </th>
               ))}
@@ -74,9 +74,9 @@ export function TruthTableView({ result, dontCares, onToggle }: {
         <tbody>
           {top > 0 && <tr style={{ height: top }} aria-hidden="true" />}
           {rows.map((row) => (
-            <tr key={row.original} style={{ height: ROW_PX }} className="odd:bg-bench-900/60" aria-rowindex={row.original + 2}>
+            <tr key={row.original} style={{ height: ROW_PX }} className="odd:bg-mat-900/60" aria-rowindex={row.original + 2}>
               {row.getVisibleCells().map((cell, i) => (
-                <td key={cell.id} className={cn('px-1.5 text-center leading-4', i === k - 1 && 'border-r border-bench-600')}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
+                <td key={cell.id} className={cn('px-1.5 text-center leading-4', i === k - 1 && 'border-r border-mat-600')}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
               ))}
             </tr>
           ))}

@@ -34,7 +34,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
         <ClockControls clock={sim.clock} />
       </Block>
       <Block title="State">
-        <button type="button" onClick={sim.resetState} className="h-7 rounded border border-bench-600 bg-bench-800 px-2.5 text-xs hover:bg-bench-700" title="Latches and flip-flops back to their power-on value; gate loops to X">
+        <button type="button" onClick={sim.resetState} className="h-7 rounded border border-mat-600 bg-mat-800 px-2.5 text-xs hover:bg-mat-700" title="Latches and flip-flops back to their power-on value; gate loops to X">
           Reset stored state
         </button>
         <div className="mt-2">
@@ -58,7 +58,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
 
 function Block({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <div className="border-t border-bench-700 pt-2">
+    <div className="border-t border-mat-700 pt-2">
       <h3 className="mb-1 text-[11px] font-semibold uppercase tracking-wide text-slate-500">{title}</h3>
       {children}
     </div>

@@ -1,7 +1,7 @@
 import { MAX_RATE, MIN_RATE } from '../../../shared/sim';
 import type { LiveSim } from './use-live-sim';
 
-const btn = 'h-7 rounded border border-bench-600 bg-bench-800 px-2.5 text-xs hover:border-bench-500 hover:bg-bench-700';
+const btn = 'h-7 rounded border border-mat-600 bg-mat-800 px-2.5 text-xs hover:border-mat-500 hover:bg-mat-700';
 
 /** Slider position 0…100 ↔ rate on a log scale, so both a slow hand-followable and a fast clock fit. */
 export function rateFromSlider(pos: number): number {

@@ -1,6 +1,6 @@
 import type * as Y from 'yjs';
 import { FamilySchema, type FamilyId } from '../../../shared/board';
-import { setMeta } from '../../../shared/board/edits';
+import { setMeta } from '../../../shared/board';
 import { FAMILY_LABELS, FAMILY_OPTIONS } from '../../lib/families';
 
 /**
@@ -23,7 +23,7 @@ export function FamilyField({ family, readOnly, doc, origin }: { family: FamilyI
               const next = FamilySchema.safeParse(e.target.value);
               if (next.success) setMeta(doc, { family: next.data }, origin);
             }}
-            className="h-7 flex-1 rounded border border-bench-600 bg-bench-950 px-2 text-slate-200 focus:border-amber-glow focus:outline-none"
+            className="h-7 flex-1 rounded border border-mat-600 bg-mat-950 px-2 text-slate-200 focus:border-amber-glow focus:outline-none"
           >
             {FAMILY_OPTIONS.map((o) => (
               <option key={o.value} value={o.value}>{o.label}</option>

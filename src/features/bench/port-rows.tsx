@@ -1,7 +1,7 @@
 import type { PortValue } from './use-live-sim';
 import { LevelChip } from './level-chip';
 
-const btn = 'h-6 rounded border border-bench-600 bg-bench-800 px-2 text-xs hover:border-bench-500 hover:bg-bench-700 disabled:opacity-50';
+const btn = 'h-6 rounded border border-mat-600 bg-mat-800 px-2 text-xs hover:border-mat-500 hover:bg-mat-700 disabled:opacity-50';
 
 /** One input of the board with its value and, for switches and buttons, a control to operate it. */
 export function InputRow({ port, onSet, disabled }: { port: PortValue; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
@@ -49,7 +49,7 @@ export function OutputRow({ port }: { port: PortValue }) {
       {port.kind === 'lamp' && (
         <span
           aria-hidden="true"
-          className={port.value === '1' ? 'ml-auto h-3 w-3 rounded-full bg-signal-high shadow-[0_0_8px_#ffb347]' : 'ml-auto h-3 w-3 rounded-full border border-bench-500 bg-bench-800'}
+          className={port.value === '1' ? 'ml-auto h-3 w-3 rounded-full bg-signal-high shadow-[0_0_8px_#ffb347]' : 'ml-auto h-3 w-3 rounded-full border border-mat-500 bg-mat-800'}
         />
       )}
     </li>

@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type * as Y from 'yjs';
 import type { BoardFile } from '../../../shared/board';
-import { setPartField } from '../../../shared/board/edits';
+import { setPartField } from '../../../shared/board';
 import { emptyTrace, type Trace, type SignalChoice } from '../timing';
 import { decodeLevels, type Badge, type Level, type LiveCommand, type LivePort, type LiveReport, type LiveUpdate } from '../../../shared/sim';
 import { pulsingWireIds } from './pulse-style';

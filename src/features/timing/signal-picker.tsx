@@ -48,7 +48,7 @@ export function SignalPicker({ available, chosen, onChoose }: { available: Signa
       role="dialog"
       aria-label="Signals to record"
       style={{ position: 'fixed', left: anchor.left, bottom: window.innerHeight - anchor.top + 4 }}
-      className="z-50 max-h-80 w-60 overflow-auto rounded border border-bench-600 bg-bench-800 p-2 text-xs text-slate-200 shadow-lg"
+      className="z-50 max-h-80 w-60 overflow-auto rounded border border-mat-600 bg-mat-800 p-2 text-xs text-slate-200 shadow-lg"
     >
       <input
         type="search"
@@ -56,7 +56,7 @@ export function SignalPicker({ available, chosen, onChoose }: { available: Signa
         onChange={(e) => setFilter(e.target.value)}
         placeholder="Filter signals"
         aria-label="Filter signals"
-        className="mb-2 h-7 w-full rounded border border-bench-600 bg-bench-950 px-2 font-mono text-slate-200 focus:border-amber-glow focus:outline-none"
+        className="mb-2 h-7 w-full rounded border border-mat-600 bg-mat-950 px-2 font-mono text-slate-200 focus:border-amber-glow focus:outline-none"
       />
       {(['input', 'output', 'net'] as const).map((group) => {
         const matching = available.filter((s) => s.group === group && (!needle || s.name.toLowerCase().includes(needle)));
@@ -75,7 +75,7 @@ export function SignalPicker({ available, chosen, onChoose }: { available: Signa
           </fieldset>
         );
       })}
-      <div className="flex gap-2 border-t border-bench-700 pt-1">
+      <div className="flex gap-2 border-t border-mat-700 pt-1">
         <button type="button" className="underline" onClick={() => onChoose(available.filter((s) => s.group !== 'net').map((s) => s.name))}>Inputs + outputs</button>
         <button type="button" className="underline" onClick={() => onChoose([])}>None</button>
       </div>
@@ -87,7 +87,7 @@ export function SignalPicker({ available, chosen, onChoose }: { available: Signa
         ref={button}
         type="button"
         aria-expanded={anchor !== null}
-        className="rounded border border-bench-600 px-2 hover:bg-bench-700"
+        className="rounded border border-mat-600 px-2 hover:bg-mat-700"
         onClick={() => setAnchor((a) => (a ? null : button.current!.getBoundingClientRect()))}
       >
         Signals ({chosen.length})

@@ -93,28 +93,28 @@ export function TimingStrip(props: TimingStripProps) {
   };
 
   return (
-    <section aria-label="Timing strip" data-testid="timing-strip" className="flex h-full flex-col bg-bench-900 text-xs text-slate-200">
-      <div className="flex flex-wrap items-center gap-2 border-b border-bench-700 px-2 py-1">
+    <section aria-label="Timing strip" data-testid="timing-strip" className="flex h-full flex-col bg-mat-900 text-xs text-slate-200">
+      <div className="flex flex-wrap items-center gap-2 border-b border-mat-700 px-2 py-1">
         <span className="font-semibold text-amber-300">Timing strip</span>
         <SignalPicker available={available} chosen={chosen} onChoose={onChoose} />
-        <div role="group" aria-label="Time axis" className="flex overflow-hidden rounded border border-bench-600">
+        <div role="group" aria-label="Time axis" className="flex overflow-hidden rounded border border-mat-600">
           {(['time', 'cycles'] as const).map((m) => (
-            <button key={m} type="button" aria-pressed={axis === m} onClick={() => setAxis(m)} className={axis === m ? 'bg-bench-600 px-2' : 'px-2 hover:bg-bench-700'}>
+            <button key={m} type="button" aria-pressed={axis === m} onClick={() => setAxis(m)} className={axis === m ? 'bg-mat-600 px-2' : 'px-2 hover:bg-mat-700'}>
               {m === 'time' ? 'Time' : 'Clock cycles'}
             </button>
           ))}
         </div>
-        <button type="button" aria-label="Zoom in" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 0.5))}>+</button>
-        <button type="button" aria-label="Zoom out" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView(zoom(shown, 2))}>−</button>
-        <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={() => setView({ start: trace.start, span: Math.max(8, (trace.end - trace.start) * 1.05), follow: false })}>Fit</button>
-        <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" title="Forget the recording so far"
+        <button type="button" aria-label="Zoom in" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={() => setView(zoom(shown, 0.5))}>+</button>
+        <button type="button" aria-label="Zoom out" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={() => setView(zoom(shown, 2))}>−</button>
+        <button type="button" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={() => setView({ start: trace.start, span: Math.max(8, (trace.end - trace.start) * 1.05), follow: false })}>Fit</button>
+        <button type="button" className="rounded border border-mat-600 px-2 hover:bg-mat-700" title="Forget the recording so far"
           onClick={() => { onClear(); setPinned(null); setView(INITIAL); }}>Clear</button>
         <label className="flex items-center gap-1">
           <input type="checkbox" checked={view.follow} onChange={(e) => setView({ ...shown, follow: e.target.checked })} /> Follow
         </label>
         <span className="ml-auto flex gap-2">
-          <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={exportVcd}>Export VCD</button>
-          <button type="button" className="rounded border border-bench-600 px-2 hover:bg-bench-700" onClick={exportPng}>Export PNG</button>
+          <button type="button" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={exportVcd}>Export VCD</button>
+          <button type="button" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={exportPng}>Export PNG</button>
         </span>
       </div>
       <div ref={wrapRef} className="min-h-0 flex-1 overflow-auto">
@@ -131,7 +131,7 @@ export function TimingStrip(props: TimingStripProps) {
           />
         )}
       </div>
-      <div data-testid="timing-readout" aria-live="polite" className="flex flex-wrap gap-3 border-t border-bench-700 px-2 py-1 font-mono">
+      <div data-testid="timing-readout" aria-live="polite" className="flex flex-wrap gap-3 border-t border-mat-700 px-2 py-1 font-mono">
         {cursor === null ? (
           <>
             <span className="text-slate-400">Move over the waveforms for a readout; click to pin the cursor.</span>

@@ -1,4 +1,4 @@
-import type { Level } from '../../../shared/sim/levels';
+import type { Level } from '../../../shared/sim';
 
 /** One value change of a signal: at simulated time `t` the signal takes level `v`. */
 export interface Change {

@@ -1,4 +1,4 @@
-import { timescaleFor, toVcd, type VcdSample } from '../../../shared/sim/vcd';
+import { timescaleFor, toVcd, type VcdSample } from '../../../shared/sim';
 import type { Trace } from './trace';
 
 /**

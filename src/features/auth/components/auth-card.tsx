@@ -11,7 +11,7 @@ export function AuthCard({ title, subtitle, children, footer }: { title: string;
           {subtitle && <p className="mt-1 text-sm text-slate-400">{subtitle}</p>}
         </div>
         {children}
-        {footer && <div className="border-t border-bench-700 pt-4 text-sm text-slate-400">{footer}</div>}
+        {footer && <div className="border-t border-mat-700 pt-4 text-sm text-slate-400">{footer}</div>}
       </CardBody>
     </Card>
   );

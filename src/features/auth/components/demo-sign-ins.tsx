@@ -15,7 +15,7 @@ export const DEMO_PASSWORD = 'gatefold-demo';
 
 export function DemoSignIns({ onPick }: { onPick: (email: string) => void }) {
   return (
-    <details open className="rounded-lg border border-bench-700 bg-bench-900/80 px-4 py-3 text-sm" data-testid="demo-sign-ins">
+    <details open className="rounded-lg border border-mat-700 bg-mat-900/80 px-4 py-3 text-sm" data-testid="demo-sign-ins">
       <summary className="cursor-pointer select-none font-medium text-slate-300">Demo sign-ins</summary>
       <p className="mt-2 text-slate-400">
         On a server started with the demo data, these accounts share the password{' '}

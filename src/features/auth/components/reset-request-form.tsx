@@ -19,7 +19,7 @@ export function ResetRequestForm() {
 
   if (request.isSuccess) {
     return (
-      <p role="status" className="rounded-md border border-bench-600 bg-bench-800 px-3 py-3 text-sm text-slate-200">
+      <p role="status" className="rounded-md border border-mat-600 bg-mat-800 px-3 py-3 text-sm text-slate-200">
         If <span className="font-mono text-amber-300">{request.variables.email}</span> has a Gatefold account, a link to choose a
         new password is on its way. The link works once, for one hour.
       </p>

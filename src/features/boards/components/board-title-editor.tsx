@@ -68,7 +68,7 @@ export function BoardTitleEditor({ board, title, editable }: { board: ApiBoard; 
           onClick={() => setEditing(true)}
           aria-label="Rename board"
           title="Rename board"
-          className="rounded p-1 text-slate-500 hover:bg-bench-800 hover:text-amber-300"
+          className="rounded p-1 text-slate-500 hover:bg-mat-800 hover:text-amber-300"
         >
           <svg width="14" height="14" viewBox="0 0 14 14" aria-hidden="true">
             <path d="M2 12l1-3.5L9.5 2 12 4.5 5.5 11z" fill="none" stroke="currentColor" strokeWidth="1.4" strokeLinejoin="round" />

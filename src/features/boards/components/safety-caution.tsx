@@ -1,4 +1,4 @@
-import type { FamilyId } from '../../../../shared/board/schema';
+import type { FamilyId } from '../../../../shared/board';
 import { safetyCautionFor } from '../../../lib/families';
 
 /** One line of caution under the header for families whose real build can hurt someone. */

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
-import { movePart, setPartField, connect } from '../../../../shared/board/edits';
-import { boardToDoc, docToBoard } from '../../../../shared/board/ydoc';
-import type { BoardFile } from '../../../../shared/board/schema';
-import type { Level } from '../../../../shared/sim/levels';
+import { movePart, setPartField, connect } from '../../../../shared/board';
+import { boardToDoc, docToBoard } from '../../../../shared/board';
+import type { BoardFile } from '../../../../shared/board';
+import type { Level } from '../../../../shared/sim';
 import { byId, deriveEdges, deriveNodes, mergeLocal, pinLevels, stabilizeBoard } from './derive-flow';
 import { contractHalfAdder } from '../../../../tests/helpers/boards';
 

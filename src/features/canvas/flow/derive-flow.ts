@@ -4,7 +4,7 @@
  * re-render and nothing is allocated for them.
  */
 import { allPins, splitPinRef, type BoardFile, type Part, type Wire } from '../../../../shared/board';
-import type { Level } from '../../../../shared/sim/levels';
+import type { Level } from '../../../../shared/sim';
 import { placedShape } from '../lib/geometry';
 import type { PartBadge, PartNode, WireEdge } from './types';
 

@@ -6,7 +6,7 @@
 import { memo, useContext, useMemo, useState } from 'react';
 import { Handle, Position, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board';
-import type { Level } from '../../../../shared/sim/levels';
+import type { Level } from '../../../../shared/sim';
 import { levelColor } from '../lib/colors';
 import { placedShape, rotationTransform, type Side } from '../lib/geometry';
 import { PartSymbol } from '../symbols';

@@ -1,7 +1,7 @@
 /** Node and edge types of the canvas (React Flow), derived from the board. */
 import type { Edge, Node } from '@xyflow/react';
-import type { Part } from '../../../../shared/board/schema';
-import type { Level } from '../../../../shared/sim/levels';
+import type { Part } from '../../../../shared/board';
+import type { Level } from '../../../../shared/sim';
 
 export type BadgeTone = 'conflict' | 'oscillating' | 'undriven' | 'info';
 export interface PartBadge { tone: BadgeTone; text: string }

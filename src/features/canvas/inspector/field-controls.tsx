@@ -7,9 +7,9 @@ import type { InspectorField } from './inspector-fields';
 import { parsePeriod, ROTATIONS } from './inspector-fields';
 
 export const boxClass =
-  'nodrag w-full rounded border border-bench-600 bg-bench-950 px-2 py-1 font-mono text-xs text-slate-100 focus:border-amber-glow focus:outline-none aria-[invalid=true]:border-rose-500';
+  'nodrag w-full rounded border border-mat-600 bg-mat-950 px-2 py-1 font-mono text-xs text-slate-100 focus:border-amber-glow focus:outline-none aria-[invalid=true]:border-rose-500';
 const segClass = (on: boolean) =>
-  `h-6 min-w-8 rounded px-1.5 font-mono text-[11px] ${on ? 'bg-amber-glow font-semibold text-bench-950' : 'border border-bench-600 bg-bench-800 text-slate-200 hover:border-bench-500'}`;
+  `h-6 min-w-8 rounded px-1.5 font-mono text-[11px] ${on ? 'bg-amber-glow font-semibold text-mat-950' : 'border border-mat-600 bg-mat-800 text-slate-200 hover:border-mat-500'}`;
 
 /** One line of the card: the field's name on the left, its control (and any refusal) on the right. */
 export function Row({ title, htmlFor, error, children }: { title: string; htmlFor?: string; error?: string; children: ReactNode }) {

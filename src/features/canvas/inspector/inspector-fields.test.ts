@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { PART_KINDS, type PartKind } from '../../../../shared/board/kinds';
-import { PartSchema } from '../../../../shared/board/schema';
+import { PART_KINDS, type PartKind } from '../../../../shared/board';
+import { PartSchema } from '../../../../shared/board';
 import { COMMON_FIELDS, ROTATIONS, inspectorFields, operatedFields, parsePeriod } from './inspector-fields';
 
 /** The schema's own fields of `kind` (what PartSchema accepts beyond id, kind and position). */

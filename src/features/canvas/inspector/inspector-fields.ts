@@ -3,7 +3,7 @@
  * `label` and `rotation` belong to every part and are shown for all; `on` and `pressed` are the
  * live state of a switch or button, worked on the symbol itself, so the inspector leaves them out.
  */
-import { MAX_GATE_INPUTS, MIN_GATE_INPUTS, type PartKind } from '../../../../shared/board/kinds';
+import { MAX_GATE_INPUTS, MIN_GATE_INPUTS, type PartKind } from '../../../../shared/board';
 
 export type InspectorField =
   | { field: 'inputs'; control: 'count'; title: string; min: number; max: number }

@@ -7,9 +7,9 @@
  * offers what applies to all of them: turn and delete.
  */
 import { useState } from 'react';
-import { deleteSelection, relabelPart, rotateParts, setPartField } from '../../../../shared/board/edits';
-import { KIND_TITLES } from '../../../../shared/board/kinds';
-import type { Part } from '../../../../shared/board/schema';
+import { deleteSelection, relabelPart, rotateParts, setPartField } from '../../../../shared/board';
+import { KIND_TITLES } from '../../../../shared/board';
+import type { Part } from '../../../../shared/board';
 import { labelProblem } from '../lib/labels';
 import type { BoardSession } from '../session/use-board-session';
 import { DraftBox, KindField, RotationButtons, Row } from './field-controls';
@@ -18,10 +18,10 @@ import { useSelectedPartIds } from './use-selected-part-ids';
 
 export type InspectorPlacement = 'panel' | 'float';
 const CARD: Record<InspectorPlacement, string> = {
-  panel: 'border-b border-bench-700 p-3 text-slate-100',
-  float: 'pointer-events-auto w-64 rounded-lg border border-bench-600 bg-bench-900/95 p-3 text-slate-100 shadow-xl shadow-black/40 backdrop-blur-sm',
+  panel: 'border-b border-mat-700 p-3 text-slate-100',
+  float: 'pointer-events-auto w-64 rounded-lg border border-mat-600 bg-mat-900/95 p-3 text-slate-100 shadow-xl shadow-black/40 backdrop-blur-sm',
 };
-const actionClass = 'h-7 rounded border border-bench-600 bg-bench-800 px-2.5 text-xs text-slate-100 hover:border-bench-500 hover:bg-bench-700';
+const actionClass = 'h-7 rounded border border-mat-600 bg-mat-800 px-2.5 text-xs text-slate-100 hover:border-mat-500 hover:bg-mat-700';
 
 export function PartInspector({ session, placement }: { session: BoardSession; placement: InspectorPlacement }) {
   const ids = useSelectedPartIds();
@@ -86,7 +86,7 @@ function OnePart({ session, part, cardClass }: { session: BoardSession; part: Pa
 
   return (
     <section className={cardClass} aria-label="Part inspector" data-part={part.id}>
-      <header className="mb-2 flex items-baseline justify-between gap-2 border-b border-bench-700 pb-2">
+      <header className="mb-2 flex items-baseline justify-between gap-2 border-b border-mat-700 pb-2">
         <h2 className="truncate text-sm font-semibold text-amber-300" data-testid="inspector-kind">{KIND_TITLES[part.kind]}</h2>
         <code className="truncate font-mono text-[11px] text-slate-400" data-testid="inspector-id" title="part id">{part.id}</code>
       </header>

@@ -2,7 +2,7 @@
  * Board files in and out: download the board as `<title>.gatefold.json`, and upload a file into a NEW
  * board through `POST /api/boards/import` (the server checks it and names the bad ids in its errors).
  */
-import type { BoardFile } from '../../../../shared/board/schema';
+import type { BoardFile } from '../../../../shared/board';
 import { ApiError } from '../../../lib/api-client';
 
 /** A file name from a board title (letters, digits, dashes). */

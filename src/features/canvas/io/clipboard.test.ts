@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
-import { copyFragment, pasteFragment } from '../../../../shared/board/edits';
-import { boardToDoc, docToBoard } from '../../../../shared/board/ydoc';
+import { copyFragment, pasteFragment } from '../../../../shared/board';
+import { boardToDoc, docToBoard } from '../../../../shared/board';
 import { fragmentOrigin, parseFragment, rememberFragment, rememberedFragment } from './clipboard';
 
 const board = {

@@ -3,7 +3,7 @@
  * browser's copy/paste events (so pasting works between boards, tabs and windows; see
  * use-canvas-commands) and always in this tab's memory too.
  */
-import { FragmentSchema, type Fragment } from '../../../../shared/board/schema';
+import { FragmentSchema, type Fragment } from '../../../../shared/board';
 
 let memory: string | null = null;
 

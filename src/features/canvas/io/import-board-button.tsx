@@ -31,7 +31,7 @@ export function ImportBoardButton({ className, label = 'Import board file…' }:
       <input ref={input} type="file" accept=".json,application/json" className="hidden" data-testid="import-board-input"
         onChange={(e) => void onFile(e.target.files?.[0])} />
       <button type="button" disabled={busy} onClick={() => input.current?.click()} data-testid="import-board-button"
-        className={className ?? 'rounded border border-bench-600 bg-bench-800 px-2.5 py-1 text-xs text-slate-100 hover:bg-bench-700 disabled:opacity-60'}>
+        className={className ?? 'rounded border border-mat-600 bg-mat-800 px-2.5 py-1 text-xs text-slate-100 hover:bg-mat-700 disabled:opacity-60'}>
         {busy ? 'Importing…' : label}
       </button>
     </>

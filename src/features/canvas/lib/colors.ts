@@ -1,5 +1,5 @@
 /** Gatefold's own signal colours (PRODUCT.md "Look"). */
-import type { Level } from '../../../../shared/sim/levels';
+import type { Level } from '../../../../shared/sim';
 
 export const SIGNAL = {
   high: '#ffb347',

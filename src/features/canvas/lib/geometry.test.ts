@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { PART_KINDS, pinsOf } from '../../../../shared/board/kinds';
+import { PART_KINDS, pinsOf } from '../../../../shared/board';
 import { placedShape, rotatePoint, rotateSide, shapeOf, snap, type Rotation } from './geometry';
 
 describe('shapeOf', () => {

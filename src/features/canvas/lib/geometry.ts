@@ -4,8 +4,8 @@
  * Pin offsets are multiples of the 20 px grid wherever the shape allows, so that parts placed on
  * the grid give straight wires.
  */
-import { pinsOf, type PartKind } from '../../../../shared/board/kinds';
-import type { Part } from '../../../../shared/board/schema';
+import { pinsOf, type PartKind } from '../../../../shared/board';
+import type { Part } from '../../../../shared/board';
 
 export const GRID = 20;
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { PartSchema } from '../../../../shared/board/schema';
-import { PART_KINDS } from '../../../../shared/board/kinds';
+import { PartSchema } from '../../../../shared/board';
+import { PART_KINDS } from '../../../../shared/board';
 import { TRAY_ITEMS, searchTray } from '../tray/tray-items';
 import { newPart, nextLabel } from './new-part';
 

@@ -1,6 +1,6 @@
 /** What the parts tray places: a new part of a kind with sensible defaults and a free label. */
-import { isGateKind, isInputKind, isOutputKind, type PartKind } from '../../../../shared/board/kinds';
-import type { Part } from '../../../../shared/board/schema';
+import { isGateKind, isInputKind, isOutputKind, type PartKind } from '../../../../shared/board';
+import type { Part } from '../../../../shared/board';
 
 export interface TrayChoice {
   kind: PartKind;

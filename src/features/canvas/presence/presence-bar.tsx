@@ -13,7 +13,7 @@ const STATUS: Record<ConnectionStatus, { text: string; dot: string; hint: string
 function Disc({ user, you }: { user: PresenceUser; you?: boolean }) {
   return (
     <span title={you ? `${user.name} (you)` : user.name} data-testid="presence-avatar"
-      className="inline-flex h-7 w-7 select-none items-center justify-center rounded-full font-mono text-[10px] font-semibold text-bench-950 ring-2 ring-bench-900"
+      className="inline-flex h-7 w-7 select-none items-center justify-center rounded-full font-mono text-[10px] font-semibold text-mat-950 ring-2 ring-mat-900"
       style={{ background: user.color }}>
       {initialsOf(user.name)}
     </span>

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
-import { addPart, connect, deleteSelection, setPartField } from '../../../../shared/board/edits';
-import { docToBoard } from '../../../../shared/board/ydoc';
+import { addPart, connect, deleteSelection, setPartField } from '../../../../shared/board';
+import { docToBoard } from '../../../../shared/board';
 import { createUndoManager } from './undo';
 
 /** Two replicas of one board that exchange every update at once (as the room server relays them). */

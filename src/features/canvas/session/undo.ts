@@ -4,7 +4,7 @@
  * undo step, so two quick edits, say a switch flip and a delete, are never undone together.
  */
 import * as Y from 'yjs';
-import { metaMap, partsMap, wiresMap } from '../../../../shared/board/ydoc';
+import { metaMap, partsMap, wiresMap } from '../../../../shared/board';
 
 export function createUndoManager(doc: Y.Doc, origin: object): Y.UndoManager {
   return new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 0 });

@@ -6,8 +6,8 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import * as Y from 'yjs';
 import { WebsocketProvider } from 'y-websocket';
-import type { BoardFile } from '../../../../shared/board/schema';
-import { docToBoard } from '../../../../shared/board/ydoc';
+import type { BoardFile } from '../../../../shared/board';
+import { docToBoard } from '../../../../shared/board';
 import { createUndoManager } from './undo';
 import { presenceColor } from '../lib/colors';
 import { stabilizeBoard } from '../flow/derive-flow';

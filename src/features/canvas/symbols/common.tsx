@@ -1,6 +1,6 @@
 /** Pieces shared by the part symbols: pin stubs coloured by level, and the props every symbol takes. */
-import type { Level } from '../../../../shared/sim/levels';
-import type { Part } from '../../../../shared/board/schema';
+import type { Level } from '../../../../shared/sim';
+import type { Part } from '../../../../shared/board';
 import { INK, levelColor } from '../lib/colors';
 
 export interface SymbolProps<P extends Part = Part> {

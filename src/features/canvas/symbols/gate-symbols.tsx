@@ -2,7 +2,7 @@
  * IEEE Std 91 distinctive-shape gates: AND (flat back, round front), OR (curved back, pointed front),
  * XOR (OR with the extra input curve), and their inverted forms with an output bubble.
  */
-import type { Part } from '../../../../shared/board/schema';
+import type { Part } from '../../../../shared/board';
 import { Bubble, Stub, strokeProps, type SymbolProps } from './common';
 
 type GatePart = Extract<Part, { kind: 'and' | 'or' | 'nand' | 'nor' | 'xor' | 'xnor' }>;

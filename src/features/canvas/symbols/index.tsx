@@ -1,5 +1,5 @@
 /** The symbol of each part kind (one drawing per kind family, see the files beside this one). */
-import type { Part } from '../../../../shared/board/schema';
+import type { Part } from '../../../../shared/board';
 import type { SymbolProps } from './common';
 import { BufferSymbol, GateSymbol } from './gate-symbols';
 import { ButtonSymbol, ClockSymbol, ConstSymbol, SwitchSymbol } from './input-symbols';

@@ -4,7 +4,7 @@
  * and a constant 0 or 1.
  */
 import type { PointerEvent } from 'react';
-import type { Part } from '../../../../shared/board/schema';
+import type { Part } from '../../../../shared/board';
 import { INK, SIGNAL } from '../lib/colors';
 import { usePartActions } from '../flow/part-actions';
 import { Stub, monoFont, strokeProps, type SymbolProps } from './common';

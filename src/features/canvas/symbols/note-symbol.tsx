@@ -1,6 +1,6 @@
 /** A text note on the canvas: double-click to edit (editors only). */
 import { useState } from 'react';
-import type { Part } from '../../../../shared/board/schema';
+import type { Part } from '../../../../shared/board';
 import { usePartActions } from '../flow/part-actions';
 
 type NotePart = Extract<Part, { kind: 'note' }>;

@@ -1,5 +1,5 @@
 /** Output parts: a round lamp bulb that glows amber when lit, and a probe that reads out its value. */
-import type { Part } from '../../../../shared/board/schema';
+import type { Part } from '../../../../shared/board';
 import { INK, SIGNAL, levelColor } from '../lib/colors';
 import { Stub, monoFont, strokeProps, type SymbolProps } from './common';
 

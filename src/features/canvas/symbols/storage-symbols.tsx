@@ -2,8 +2,8 @@
  * SR latch, D latch and edge-triggered D flip-flop as IEEE Std 91 rectangles: pin names inside,
  * the dynamic-input triangle on the flip-flop's clock, and the complement output marked with a bar.
  */
-import type { Part } from '../../../../shared/board/schema';
-import { pinsOf } from '../../../../shared/board/kinds';
+import type { Part } from '../../../../shared/board';
+import { pinsOf } from '../../../../shared/board';
 import { INK } from '../lib/colors';
 import { Stub, monoFont, strokeProps, type SymbolProps } from './common';
 

@@ -10,7 +10,7 @@ import type { CanvasApi } from '../workspace/board-canvas';
 function Tool({ onClick, disabled, title, children, testId }: { onClick(): void; disabled?: boolean; title: string; children: ReactNode; testId: string }) {
   return (
     <button type="button" onClick={onClick} disabled={disabled} title={title} aria-label={title} data-testid={testId}
-      className="h-7 rounded px-2 text-xs text-slate-200 hover:bg-bench-700 disabled:cursor-not-allowed disabled:opacity-40">
+      className="h-7 rounded px-2 text-xs text-slate-200 hover:bg-mat-700 disabled:cursor-not-allowed disabled:opacity-40">
       {children}
     </button>
   );
@@ -49,19 +49,19 @@ export function CanvasToolbar({ session, canvas, canvasEl, fitAll, onHelp }: Pro
         <>
           <Tool testId="tool-undo" title="Undo your last edit (Ctrl+Z)" disabled={!session.canUndo} onClick={session.undo}>↶ Undo</Tool>
           <Tool testId="tool-redo" title="Redo (Ctrl+Shift+Z)" disabled={!session.canRedo} onClick={session.redo}>↷ Redo</Tool>
-          <span className="mx-1 h-4 w-px bg-bench-600" />
+          <span className="mx-1 h-4 w-px bg-mat-600" />
           <Tool testId="tool-rotate" title="Rotate the selection (R)" onClick={() => canvas?.run('rotate')}>⟳ Rotate</Tool>
           <Tool testId="tool-duplicate" title="Duplicate the selection (Ctrl+D)" onClick={() => canvas?.run('duplicate')}>⧉ Duplicate</Tool>
           <Tool testId="tool-delete" title="Delete the selection (Delete)" onClick={() => canvas?.run('delete')}>✕ Delete</Tool>
-          <span className="mx-1 h-4 w-px bg-bench-600" />
+          <span className="mx-1 h-4 w-px bg-mat-600" />
         </>
       )}
       <Tool testId="tool-export-file" title="Download the board file (.gatefold.json)" onClick={() => downloadBoardFile(session.board)}>⤓ File</Tool>
       <Tool testId="tool-export-png" title="Download a PNG picture of the board" disabled={busy} onClick={() => void picture('png')}>PNG</Tool>
       <Tool testId="tool-export-svg" title="Download an SVG picture of the board" disabled={busy} onClick={() => void picture('svg')}>SVG</Tool>
       {/* importing makes a new board of your own, so viewers may do it too (a guest without an account gets the server's 401) */}
-      <ImportBoardButton label="⤒ Import" className="h-7 rounded px-2 text-xs text-slate-200 hover:bg-bench-700 disabled:opacity-40" />
-      <span className="mx-1 h-4 w-px bg-bench-600" />
+      <ImportBoardButton label="⤒ Import" className="h-7 rounded px-2 text-xs text-slate-200 hover:bg-mat-700 disabled:opacity-40" />
+      <span className="mx-1 h-4 w-px bg-mat-600" />
       <Tool testId="tool-help" title="Keyboard shortcuts (?)" onClick={onHelp}>?</Tool>
     </div>
   );

@@ -42,12 +42,12 @@ export function PartsTray({ armed, onArm }: Props) {
     e.dataTransfer.effectAllowed = 'copy';
   };
   return (
-    <aside className="gf-tray flex w-56 shrink-0 flex-col border-r border-bench-700 bg-bench-900" data-testid="parts-tray" aria-label="Parts tray">
-      <div className="border-b border-bench-700 p-2">
+    <aside className="gf-tray flex w-56 shrink-0 flex-col border-r border-mat-700 bg-mat-900" data-testid="parts-tray" aria-label="Parts tray">
+      <div className="border-b border-mat-700 p-2">
         <div className="mb-1 text-[11px] font-semibold uppercase tracking-wider text-slate-400">Parts tray</div>
         <input type="search" value={query} onChange={(e) => setQuery(e.target.value)} placeholder="Search parts…"
           aria-label="Search parts" data-testid="tray-search"
-          className="h-7 w-full rounded border border-bench-600 bg-bench-800 px-2 text-xs text-slate-100 placeholder:text-slate-500 focus:border-amber-glow focus:outline-none" />
+          className="h-7 w-full rounded border border-mat-600 bg-mat-800 px-2 text-xs text-slate-100 placeholder:text-slate-500 focus:border-amber-glow focus:outline-none" />
       </div>
       <div className="flex-1 overflow-y-auto p-2">
         {groups.length === 0 && <p className="px-1 text-xs text-slate-500">No part matches “{query}”.</p>}
@@ -61,7 +61,7 @@ export function PartsTray({ armed, onArm }: Props) {
                     aria-pressed={isArmed(it)} title="Drag onto the canvas, or click here and then on the canvas"
                     onClick={() => onArm(isArmed(it) ? null : choiceOf(it))}
                     onKeyDown={(e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); onArm(choiceOf(it)); } }}
-                    className={`flex cursor-grab items-center gap-2 rounded px-1.5 py-1 text-xs hover:bg-bench-800 ${isArmed(it) ? 'bg-bench-700 ring-1 ring-amber-glow' : ''}`}>
+                    className={`flex cursor-grab items-center gap-2 rounded px-1.5 py-1 text-xs hover:bg-mat-800 ${isArmed(it) ? 'bg-mat-700 ring-1 ring-amber-glow' : ''}`}>
                     <Preview item={it} inputs={inputs[it.key] ?? 2} />
                     <span className="flex-1 truncate text-slate-200">{it.title}</span>
                     {it.multiInput && (
@@ -72,7 +72,7 @@ export function PartsTray({ armed, onArm }: Props) {
                           setInputs((m) => ({ ...m, [it.key]: n }));
                           if (isArmed(it)) onArm({ ...choiceOf(it), inputs: n });
                         }}
-                        className="h-5 rounded border border-bench-600 bg-bench-800 px-0.5 font-mono text-[10px] text-slate-200">
+                        className="h-5 rounded border border-mat-600 bg-mat-800 px-0.5 font-mono text-[10px] text-slate-200">
                         {[2, 3, 4, 5, 6, 7, 8].map((n) => <option key={n} value={n}>{n} in</option>)}
                       </select>
                     )}
@@ -83,7 +83,7 @@ export function PartsTray({ armed, onArm }: Props) {
           </section>
         ))}
       </div>
-      {armed && <div className="border-t border-bench-700 p-2 text-[11px] text-amber-300" data-testid="tray-armed">Click the canvas to place · Esc to cancel</div>}
+      {armed && <div className="border-t border-mat-700 p-2 text-[11px] text-amber-300" data-testid="tray-armed">Click the canvas to place · Esc to cancel</div>}
     </aside>
   );
 }

@@ -1,5 +1,5 @@
 /** The entries of the parts tray, in groups, with the words a search matches. */
-import { KIND_TITLES, type PartKind } from '../../../../shared/board/kinds';
+import { KIND_TITLES, type PartKind } from '../../../../shared/board';
 import type { TrayChoice } from '../lib/new-part';
 
 export interface TrayItem extends TrayChoice {

@@ -9,8 +9,8 @@ import {
   type Connection, type OnSelectionChangeParams,
 } from '@xyflow/react';
 import { toast } from 'sonner';
-import { connect, movePart, relabelPart, setPartField } from '../../../../shared/board/edits';
-import { partsMap } from '../../../../shared/board/ydoc';
+import { connect, movePart, relabelPart, setPartField } from '../../../../shared/board';
+import { partsMap } from '../../../../shared/board';
 import { INK, SIGNAL } from '../lib/colors';
 import { GRID, snap } from '../lib/geometry';
 import { labelProblem } from '../lib/labels';

@@ -6,7 +6,7 @@ import { useCallback, useRef, useState, type ReactNode } from 'react';
 import { ReactFlowProvider, useReactFlow } from '@xyflow/react';
 import '@xyflow/react/dist/style.css';
 import '../canvas.css';
-import type { Level } from '../../../../shared/sim/levels';
+import type { Level } from '../../../../shared/sim';
 import type { PartBadge } from '../flow/types';
 import type { TrayChoice } from '../lib/new-part';
 import { PresenceBar } from '../presence/presence-bar';
@@ -60,14 +60,14 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
 
   return (
     <div className="gf-workspace flex min-h-0 min-w-0 flex-1 flex-col" data-testid="board-workspace">
-      <div className="flex h-10 shrink-0 items-center gap-3 border-b border-bench-700 bg-bench-900 px-3">
+      <div className="flex h-10 shrink-0 items-center gap-3 border-b border-mat-700 bg-mat-900 px-3">
         <PresenceBar me={session.user} peers={peers.peers} status={session.status} />
-        {session.readOnly && <span className="rounded bg-bench-700 px-2 py-0.5 text-[11px] text-slate-300" data-testid="read-only-note">viewing · read-only</span>}
+        {session.readOnly && <span className="rounded bg-mat-700 px-2 py-0.5 text-[11px] text-slate-300" data-testid="read-only-note">viewing · read-only</span>}
         <div className="ml-auto">
           <CanvasToolbar session={session} canvas={canvas} canvasEl={() => canvasBox.current} fitAll={fitAll} onHelp={() => setHelp((h) => !h)} />
         </div>
         {panels ? (
-          <button type="button" className="h-7 rounded px-2 text-xs text-slate-300 hover:bg-bench-700" data-testid="toggle-panels"
+          <button type="button" className="h-7 rounded px-2 text-xs text-slate-300 hover:bg-mat-700" data-testid="toggle-panels"
             onClick={() => setPanelsOpen((o) => !o)} aria-expanded={panelsOpen}>{panelsOpen ? 'Hide panels ⟩' : '⟨ Panels'}</button>
         ) : null}
       </div>
@@ -80,7 +80,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
             {!(panels && panelsOpen) && <PartInspector session={session} placement="float" />}
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">
-                <span className="rounded bg-bench-800/90 px-3 py-1 text-xs text-slate-300" data-testid="sync-note">
+                <span className="rounded bg-mat-800/90 px-3 py-1 text-xs text-slate-300" data-testid="sync-note">
                   {session.status === 'offline' ? 'Offline — showing what this tab has' : 'Loading the board…'}
                 </span>
               </div>
@@ -89,7 +89,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
           {bottom ? <BottomDock>{bottom}</BottomDock> : null}
         </div>
         {panels && panelsOpen ? (
-          <aside className="w-80 shrink-0 overflow-y-auto border-l border-bench-700 bg-bench-900" data-testid="side-panels"><PartInspector session={session} placement="panel" />{panels}</aside>
+          <aside className="w-80 shrink-0 overflow-y-auto border-l border-mat-700 bg-mat-900" data-testid="side-panels"><PartInspector session={session} placement="panel" />{panels}</aside>
         ) : null}
       </div>
     </div>

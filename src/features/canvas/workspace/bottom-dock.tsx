@@ -18,11 +18,11 @@ export function BottomDock({ children }: { children: ReactNode }) {
   };
   const up = () => { drag.current = null; };
   return (
-    <section className="shrink-0 border-t border-bench-700 bg-bench-900" data-testid="bottom-dock">
+    <section className="shrink-0 border-t border-mat-700 bg-mat-900" data-testid="bottom-dock">
       <div className="flex h-6 items-center gap-2 px-2">
         {open && (
           <div role="separator" aria-orientation="horizontal" aria-label="Resize the dock" title="Drag to resize"
-            className="h-1.5 w-16 cursor-row-resize rounded bg-bench-600 hover:bg-bench-500" onPointerDown={down} onPointerMove={move} onPointerUp={up} />
+            className="h-1.5 w-16 cursor-row-resize rounded bg-mat-600 hover:bg-mat-500" onPointerDown={down} onPointerMove={move} onPointerUp={up} />
         )}
         <button type="button" className="ml-auto text-[11px] text-slate-400 hover:text-slate-100" onClick={() => setOpen((o) => !o)} aria-expanded={open}>
           {open ? 'Collapse ▾' : 'Expand ▴'}

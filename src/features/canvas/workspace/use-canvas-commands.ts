@@ -4,9 +4,9 @@
  */
 import { useCallback, useEffect, useRef } from 'react';
 import { toast } from 'sonner';
-import { addPart, copyFragment, deleteSelection, pasteFragment, rotateParts } from '../../../../shared/board/edits';
+import { addPart, copyFragment, deleteSelection, pasteFragment, rotateParts } from '../../../../shared/board';
 import { fragmentOrigin, parseFragment, rememberFragment, rememberedFragment } from '../io/clipboard';
-import type { Fragment } from '../../../../shared/board/schema';
+import type { Fragment } from '../../../../shared/board';
 import { snap } from '../lib/geometry';
 import { newPart, type TrayChoice } from '../lib/new-part';
 import { commandOf, type CommandName } from '../toolbar/shortcuts';

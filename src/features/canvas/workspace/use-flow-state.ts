@@ -5,7 +5,7 @@
  */
 import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { applyEdgeChanges, applyNodeChanges, type EdgeChange, type NodeChange } from '@xyflow/react';
-import type { Level } from '../../../../shared/sim/levels';
+import type { Level } from '../../../../shared/sim';
 import { byId, deriveEdges, deriveNodes, mergeLocal } from '../flow/derive-flow';
 import type { PartBadge, PartNode, WireEdge } from '../flow/types';
 import type { PeersView } from '../session/awareness';

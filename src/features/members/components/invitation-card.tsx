@@ -61,10 +61,10 @@ export function InvitationCard({ token, invitation, user, onAccepted }: Props) {
           <div className="flex flex-col gap-3">
             <p className="text-sm text-slate-400">Sign in, or create an account, to accept. You will come back here.</p>
             <div className="flex flex-wrap gap-2">
-              <Link to={`${signInPath(here, '/signup')}&email=${encodeURIComponent(invitation.email)}`} className="inline-flex h-9 items-center rounded-md bg-amber-glow px-4 text-sm font-semibold text-bench-950 hover:bg-amber-300">
+              <Link to={`${signInPath(here, '/signup')}&email=${encodeURIComponent(invitation.email)}`} className="inline-flex h-9 items-center rounded-md bg-amber-glow px-4 text-sm font-semibold text-mat-950 hover:bg-amber-300">
                 Create an account
               </Link>
-              <Link to={signInPath(here)} className="inline-flex h-9 items-center rounded-md border border-bench-600 bg-bench-800 px-4 text-sm text-slate-100 hover:bg-bench-700">
+              <Link to={signInPath(here)} className="inline-flex h-9 items-center rounded-md border border-mat-600 bg-mat-800 px-4 text-sm text-slate-100 hover:bg-mat-700">
                 Sign in
               </Link>
             </div>

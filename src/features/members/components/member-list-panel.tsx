@@ -9,7 +9,7 @@ import { membersQueryOptions } from '../api';
 export function MemberListPanel({ boardId, currentUserId }: { boardId: number; currentUserId?: number }) {
   const members = useQuery(membersQueryOptions(boardId));
   return (
-    <section aria-labelledby="member-list-heading" className="flex flex-col gap-3 rounded-lg border border-bench-700 bg-bench-900/85 p-4">
+    <section aria-labelledby="member-list-heading" className="flex flex-col gap-3 rounded-lg border border-mat-700 bg-mat-900/85 p-4">
       <h2 id="member-list-heading" className="text-xs font-semibold uppercase tracking-wide text-slate-400">
         Members
       </h2>

@@ -58,7 +58,7 @@ export function MembersTable({ boardId, members, myRole, myUserId, onLeft }: Pro
                   { onSuccess: () => notifySuccess(`${m.name} is now ${role.data}`), onError: (err) => notifyError(err, 'Could not change the role') },
                 );
               }}
-              className="h-7 rounded border border-bench-600 bg-bench-950 px-2 text-xs text-slate-200 focus:border-amber-glow focus:outline-none"
+              className="h-7 rounded border border-mat-600 bg-mat-950 px-2 text-xs text-slate-200 focus:border-amber-glow focus:outline-none"
             >
               {ROLE_OPTIONS.map((o) => (
                 <option key={o.value} value={o.value}>

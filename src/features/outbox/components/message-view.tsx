@@ -34,7 +34,7 @@ export function MessageView({ message }: { message: ApiMail }) {
           <Header label="Date" value={formatDateTime(message.date)} />
         </dl>
       </div>
-      <section aria-label="Text" className="rounded-lg border border-bench-700 bg-bench-950/80 p-4">
+      <section aria-label="Text" className="rounded-lg border border-mat-700 bg-mat-950/80 p-4">
         <pre className="whitespace-pre-wrap break-words font-mono text-[13px] leading-relaxed text-slate-200" data-testid="message-text">
           {linkify(message.text || '').map((p, i) =>
             p.kind === 'link' ? (
@@ -54,7 +54,7 @@ export function MessageView({ message }: { message: ApiMail }) {
             title="HTML version of the message"
             sandbox="allow-popups allow-popups-to-escape-sandbox"
             srcDoc={htmlDocument(message.html)}
-            className="h-96 w-full rounded-lg border border-bench-700 bg-white"
+            className="h-96 w-full rounded-lg border border-mat-700 bg-white"
           />
         </section>
       )}
