@@ -7,6 +7,8 @@ export interface AppEventMap {
   'membership-changed': [{ boardId: number; userId: number; role: BoardRole | null }];
   /** A board was deleted (its rows are gone). */
   'board-deleted': [{ boardId: number }];
+  /** Sessions of a user ended (sign-out: that session; password reset: every session, no `sessionIds`). */
+  'sessions-ended': [{ userId: number; sessionIds?: string[] }];
 }
 
 export type AppEvents = EventEmitter<AppEventMap>;
