@@ -4,7 +4,7 @@
  * (registry.ts, board-docs.ts), the room (room.ts, update-log.ts, protocol.ts) and the websocket
  * upgrade (sockets.ts, auth.ts). Nothing here imports server/db: the store is injected.
  */
-export { BoardRegistry, type BoardRegistryDeps } from './registry';
+export { BoardRegistry, type BoardActivity, type BoardRegistryDeps } from './registry';
 export { attachBoardSockets, type SocketsHandle } from './sockets';
 export { exampleBoardContent, readExampleBoard } from './examples';
 export { loadBoardDoc } from './board-docs';

@@ -7,6 +7,12 @@ import { Room } from './room';
 import { ServerOrigin, type BoardFanout, type BoardMeta, type BoardStore } from './store';
 import { CLOSE, DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './types';
 
+/**
+ * Something happened on a board's live side: a live room applied an update (any origin), or a room
+ * unloaded after its last socket left and everything was stored. Features listen (automatic snapshots).
+ */
+export type BoardActivity = { type: 'update'; boardId: number; origin: unknown } | { type: 'unloaded'; boardId: number };
+
 export interface BoardRegistryDeps {
   store: BoardStore;
   options?: Partial<CollabOptions>;
@@ -32,6 +38,7 @@ export class BoardRegistry {
   private readonly locks = new BoardLocks();
   private readonly docs: BoardDocsDeps;
   private closing = false;
+  private readonly listeners = new Set<(activity: BoardActivity) => void>();
 
   constructor(private readonly deps: BoardRegistryDeps) {
     this.options = { ...DEFAULT_COLLAB_OPTIONS, ...deps.options };
@@ -100,6 +107,22 @@ export class BoardRegistry {
     return compactStoredBoard(this.docs, boardId);
   }
 
+  /** Calls `listener` on every update a live room applies and when a room unloads; returns the unsubscribe. */
+  onActivity(listener: (activity: BoardActivity) => void): () => void {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  }
+
+  private emit(activity: BoardActivity): void {
+    for (const listener of this.listeners) {
+      try {
+        listener(activity);
+      } catch (err) {
+        console.error('boards-live: an activity listener failed:', err);
+      }
+    }
+  }
+
   /** Resolves when every open room has stored all its updates. */
   async flushAll(): Promise<void> {
     await Promise.all([...this.open.values()].map((r) => r.flush()));
@@ -125,6 +148,7 @@ export class BoardRegistry {
     const { doc, seq, rows } = await loadBoardDoc(this.store, boardId);
     const room = new Room({ store: this.store, options: () => this.options, logErrors: this.deps.logErrors, fanout: this.deps.fanout }, boardId, doc, seq, rows);
     this.open.set(boardId, room);
+    doc.on('update', (_update: Uint8Array, origin: unknown) => this.emit({ type: 'update', boardId, origin }));
     await ensureBoardMeta(this.store, boardId, doc, new ServerOrigin(null, 'board-row'));
     return room;
   }
@@ -135,6 +159,7 @@ export class BoardRegistry {
       if (room.conns.size || this.claims.has(room) || this.open.get(room.boardId) !== room) return;
       this.open.delete(room.boardId);
       room.destroy();
+      this.emit({ type: 'unloaded', boardId: room.boardId });
     });
   }
 }
