@@ -25,6 +25,8 @@ import { boardFileRouter } from './http/routes/board-file';
 import { BoardRegistry, exampleBoardContent } from './boards-live';
 import { createKnexBoardStore } from './db/board-store';
 import { analyzeRouter } from './http/routes/analyze';
+import { mountSnapshots } from './snapshots';
+import { createAnalysisRunner } from './services/analysis-runner';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -70,9 +72,10 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
 
   const app = express();
   app.disable('x-powered-by');
-  // Behind an https proxy the cookie is Secure; Express must trust X-Forwarded-Proto to send it.
-  if (config.trustProxy !== undefined) app.set('trust proxy', config.trustProxy);
-  else if (config.publicUrl?.startsWith('https:')) app.set('trust proxy', 'loopback, linklocal, uniquelocal');
+  // Proxies are trusted only as TRUST_PROXY says (never guessed from address ranges): otherwise
+  // X-Forwarded-* are ignored and rate limits count the socket's address. The Secure session cookie
+  // behind an https proxy does not depend on this (see createSessionMiddleware).
+  app.set('trust proxy', config.trustProxy ?? false);
 
   app.use(securityHeaders(config));
   app.use('/api', express.json({ limit: config.jsonLimit }));
@@ -82,7 +85,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   app.use('/api', healthRouter(config.version));
   app.use('/api', authRouter(services, config, limits));
   app.use('/api', boardsRouter(services));
-  app.use('/api', membersRouter(services, config));
+  app.use('/api', membersRouter(services, config, limits));
   app.use('/api', invitationsRouter(services));
   app.use('/api', outboxRouter(services));
 
@@ -111,8 +114,11 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
 
   // routers of other features are mounted here (before the /api 404 below); shutdown work goes in ctx.onClose
   app.use('/api', boardFileRouter(services, boardRegistry));
-  app.use('/api', analyzeRouter());
+  const analyses = createAnalysisRunner(config.analyze);
+  onClose.push(() => analyses.close());
+  app.use('/api', analyzeRouter(config.analyze, analyses));
   ctx.boardContent = exampleBoardContent(boardRegistry);
+  app.use('/api', mountSnapshots(ctx));
 
   app.use('/api', apiNotFound);
   const client = clientRouter(config.distDir);

@@ -45,6 +45,21 @@ export const DEMO_BOARDS: DemoBoard[] = [
 ];
 
 /**
+ * Each demo board's history: named snapshots of its earlier stages, oldest first (a stage lists the
+ * part ids it had; the last stage without a list is the board as it is now).
+ */
+export const DEMO_HISTORY: Record<DemoBoardSlug, Array<{ name: string; parts?: string[] }>> = {
+  'half-adder': [{ name: 'Inputs and the sum gate', parts: ['a', 'b', 'g1', 's'] }, { name: 'Carry added' }],
+  'mux-logic-unit': [{ name: 'Four gate functions side by side', parts: ['a', 'b', 'g_and', 'g_or', 'g_xor', 'g_not'] }, { name: 'Multiplexer picks the function' }],
+  'debounced-clock': [
+    { name: 'Raw push button on a lamp', parts: ['rest', 'push', 'raw'] },
+    { name: 'NAND latch cleans the press', parts: ['rest', 'push', 'g_rb', 'g_sb', 'g_q', 'g_qn', 'raw', 'clean'] },
+    { name: 'Flip-flop toggles on each clean press' },
+  ],
+  'ripple-counter-4bit': [{ name: 'One stage: a single flip-flop', parts: ['clk', 'ff0', 'q0'] }, { name: 'All four stages' }],
+};
+
+/**
  * Creates the demo accounts and boards on an empty database. Board content comes from
  * `ctx.boardContent`, when the collaboration feature provides it.
  */

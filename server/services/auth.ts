@@ -8,6 +8,7 @@ import { countUsers, findUserByEmail, insertUser, findUserById, updatePasswordHa
 import { consumeReset, findUsableReset, insertPasswordReset } from '../db/password-resets';
 import { deleteSessionsOfUser } from '../db/session-store';
 import { HttpError, badRequest, conflict } from '../lib/errors';
+import type { AppEvents } from './events';
 import type { Mailer } from './mail';
 import { passwordResetMail } from './mail-templates';
 import { hashToken, newToken } from './tokens';
@@ -22,11 +23,16 @@ export interface AuthService {
   logIn(body: LoginBody): Promise<ApiUser>;
   /** Mails a reset link if the account exists; silent otherwise (no account probing). */
   requestReset(email: string, origin: string): Promise<void>;
-  /** Sets the new password from a reset token; 400 `invalid_token` if unknown, used or expired. */
+  /**
+   * Sets the new password from a reset token; 400 `invalid_token` if unknown, used or expired. Every
+   * other session of the user ends (store rows deleted) and every live socket of the user is closed.
+   */
   resetPassword(body: ResetBody, keepSid?: string): Promise<void>;
+  /** The session `sessionId` of `userId` ended (sign-out): its live sockets close. */
+  signedOut(userId: number, sessionId: string): void;
 }
 
-export function createAuthService(db: Db, config: AppConfig, mailer: Mailer): AuthService {
+export function createAuthService(db: Db, config: AppConfig, mailer: Mailer, events: AppEvents): AuthService {
   // Compared against when the address is unknown, so both failures take as long.
   let dummyHash: Promise<string> | undefined;
   const dummy = () => (dummyHash ??= bcrypt.hash('gatefold-timing-equaliser', config.bcryptCost));
@@ -73,8 +79,13 @@ export function createAuthService(db: Db, config: AppConfig, mailer: Mailer): Au
       const passwordHash = await bcrypt.hash(body.password, config.bcryptCost);
       if (!(await consumeReset(db, reset, now))) throw invalid();
       await updatePasswordHash(db, reset.user_id, passwordHash);
-      // Whoever knew the old password is signed out everywhere.
+      // Whoever knew the old password is signed out everywhere, live sockets included.
       await deleteSessionsOfUser(db, reset.user_id, keepSid);
+      events.emit('sessions-ended', { userId: reset.user_id });
+    },
+
+    signedOut(userId, sessionId) {
+      events.emit('sessions-ended', { userId, sessionIds: [sessionId] });
     },
   };
 }

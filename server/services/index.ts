@@ -25,7 +25,7 @@ export function createServices(db: Db, config: AppConfig, events: AppEvents, mai
   const boards = createBoardsService(db, events, boardMeta);
   const invitations = createInvitationsService(db, events, mailer, boards);
   return {
-    auth: createAuthService(db, config, mailer),
+    auth: createAuthService(db, config, mailer, events),
     authz: createAuthzService(db),
     users: createUsersService(db),
     boards,

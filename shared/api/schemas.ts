@@ -92,3 +92,24 @@ export const IdParamSchema = z.coerce
   .number({ error: 'Must be a number' })
   .int('Must be a whole number')
   .positive('Must be a positive number');
+
+/** A snapshot's name as typed by a user. */
+export const SnapshotNameSchema = z
+  .string({ error: 'Name is required' })
+  .trim()
+  .min(1, 'Name is required')
+  .max(120, 'Name must be at most 120 characters');
+
+/** Body of `POST /api/boards/:id/snapshots`: a named snapshot (the name defaults to the time). */
+export const CreateSnapshotSchema = z.object({ name: SnapshotNameSchema.optional() });
+export type CreateSnapshotBody = z.infer<typeof CreateSnapshotSchema>;
+
+/** Body of `PATCH /api/boards/:id/snapshots/:sid`. */
+export const RenameSnapshotSchema = z.object({ name: SnapshotNameSchema });
+export type RenameSnapshotBody = z.infer<typeof RenameSnapshotSchema>;
+
+/** Body of `POST /api/boards/:id/copy`: the live board, or one of its snapshots. */
+export const CopyBoardSchema = z.object({
+  snapshotId: z.number({ error: 'snapshotId must be a number' }).int('snapshotId must be a whole number').positive('snapshotId must be positive').optional(),
+});
+export type CopyBoardBody = z.infer<typeof CopyBoardSchema>;

@@ -1,3 +1,5 @@
+import type { BoardFile } from '../board';
+import type { BoardDiff } from '../render';
 import type { FamilyId } from '../board';
 
 /** A board role, strongest first: owner > editor > viewer. */
@@ -80,3 +82,46 @@ export interface InvitationInfoResponse { invitation: ApiInvitationInfo }
 export interface OutboxResponse { messages: ApiMailSummary[] }
 export interface OutboxMessageResponse { message: ApiMail }
 export interface OkResponse { ok: true }
+
+/** How a snapshot came to be. */
+export type SnapshotKind = 'named' | 'automatic' | 'before-restore' | 'copied-from';
+
+/** One entry of a board's history. */
+export interface ApiSnapshot {
+  id: number;
+  boardId: number;
+  name: string;
+  kind: SnapshotKind;
+  /** who took it (null: the server, automatically, or a deleted account) */
+  authorId: number | null;
+  authorName: string | null;
+  createdAt: string;
+  partCount: number;
+  wireCount: number;
+  /** its picture: `GET` this URL for an SVG */
+  thumbnailUrl: string;
+  /** for a copied-from snapshot: what the board was copied from */
+  source: { boardId: number; boardTitle: string; snapshotId: number | null; snapshotName: string | null } | null;
+}
+
+export interface SnapshotsResponse { snapshots: ApiSnapshot[] }
+export interface SnapshotResponse { snapshot: ApiSnapshot }
+/** `GET /api/boards/:id/snapshots/:sid`: the snapshot with its board file. */
+export interface SnapshotDetailResponse { snapshot: ApiSnapshot; board: BoardFile }
+/** `POST /api/boards/:id/snapshots/:sid/restore`: what was restored and the snapshot that undoes it. */
+export interface RestoreResponse { restored: ApiSnapshot; beforeRestore: ApiSnapshot }
+/** `GET /api/boards/:id/snapshots/:sid/compare`: from the snapshot to the live board. */
+export type CompareResponse = BoardDiff;
+
+/**
+ * The notice a restore leaves in the document's `meta` map under `RESTORE_NOTICE_KEY`, so that every
+ * connected screen can say who restored which snapshot, and when.
+ */
+export interface RestoreNotice {
+  snapshotId: number;
+  snapshotName: string;
+  byUserId: number;
+  byName: string;
+  at: string;
+}
+export const RESTORE_NOTICE_KEY = 'lastRestore';

@@ -100,7 +100,7 @@ describe('auth API', () => {
 describe('sign-in rate limit', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await createTestApp({ rateLimit: { windowMs: 60_000, login: 3, signup: 2, resetRequest: 3 } });
+    t = await createTestApp({ rateLimit: { windowMs: 60_000, login: 3, loginPerAddress: 1000, signup: 2, resetRequest: 3, invitations: 1000, invitationsWindowMs: 3_600_000 } });
     await t.signUp('Ines Okafor', 'ines@larkspur.example', 'gatefold-demo');
   });
   afterAll(() => t.close());

@@ -1,28 +1,59 @@
-import { rateLimit } from 'express-rate-limit';
-import type { RequestHandler } from 'express';
+import { rateLimit, type Options } from 'express-rate-limit';
+import type { Request, RequestHandler } from 'express';
 import type { AppConfig } from '../../config';
 import { HttpError } from '../errors';
 
-function limiter(windowMs: number, limit: number, what: string, skipSuccessfulRequests: boolean): RequestHandler {
+type Key = Options['keyGenerator'];
+
+function minutes(ms: number): string {
+  const m = Math.ceil(ms / 60000);
+  return m === 1 ? '1 minute' : `${m} minutes`;
+}
+
+/**
+ * One limiter answering 429 `too_many_attempts` in the contract's error shape. The key is the client
+ * address (`req.ip`: the socket's address unless TRUST_PROXY says which proxies to believe) unless
+ * `key` says otherwise.
+ */
+function limiter(p: { windowMs: number; limit: number; what: string; skipSuccessfulRequests?: boolean; skipFailedRequests?: boolean; key?: Key }): RequestHandler {
   return rateLimit({
-    windowMs,
-    limit,
-    skipSuccessfulRequests,
+    windowMs: p.windowMs,
+    limit: p.limit,
+    skipSuccessfulRequests: p.skipSuccessfulRequests ?? false,
+    skipFailedRequests: p.skipFailedRequests ?? false,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
+    ...(p.key ? { keyGenerator: p.key } : {}),
     handler: (_req, _res, next) => {
-      next(new HttpError(429, 'too_many_attempts', `Too many ${what}; wait ${Math.ceil(windowMs / 60000)} minutes and try again`));
+      next(new HttpError(429, 'too_many_attempts', `Too many ${p.what}; wait ${minutes(p.windowMs)} and try again`));
     },
   });
 }
 
-/** Per-address limits on the password-guessing and account-creation routes (sizes from config). */
+/** The account a sign-in is for: the e-mail of the body, as the login schema compares it. */
+function accountKey(req: Request): string {
+  const email = (req.body as { email?: unknown } | undefined)?.email;
+  return `account:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
+}
+
+/** The signed-in account (the limiter runs after requireUser / the board role check). */
+const userKey = (req: Request) => `user:${String(req.session?.userId ?? 'none')}`;
+
+/**
+ * The limits of the password-guessing, account-creation and mail-sending routes (sizes from config).
+ * Sign-in is limited twice, and only failures count: strictly per account (guessing one password) and
+ * generously per address (spraying many accounts), so a classroom behind one address keeps signing in.
+ */
 export function createRateLimits(config: AppConfig) {
   const { windowMs } = config.rateLimit;
+  const rl = config.rateLimit;
   return {
-    // Only failed sign-ins count, so a classroom behind one address can still sign in.
-    login: limiter(windowMs, config.rateLimit.login, 'sign-in attempts', true),
-    signup: limiter(windowMs, config.rateLimit.signup, 'sign-ups', false),
-    resetRequest: limiter(windowMs, config.rateLimit.resetRequest, 'reset requests', false),
+    loginPerAccount: limiter({ windowMs, limit: rl.login, what: 'failed sign-ins for this account', skipSuccessfulRequests: true, key: accountKey }),
+    loginPerAddress: limiter({ windowMs, limit: rl.loginPerAddress, what: 'failed sign-ins from your address', skipSuccessfulRequests: true }),
+    signup: limiter({ windowMs, limit: rl.signup, what: 'sign-ups from your address' }),
+    resetRequest: limiter({ windowMs, limit: rl.resetRequest, what: 'reset requests' }),
+    invitations: limiter({ windowMs: rl.invitationsWindowMs, limit: rl.invitations, what: 'members added or invited', skipFailedRequests: true, key: userKey }),
   };
 }
+
+export type RateLimits = ReturnType<typeof createRateLimits>;

@@ -4,8 +4,8 @@ import type { AppConfig } from '../../config';
 import type { Services } from '../../services';
 import { notSignedIn, parseInput } from '../errors';
 import { SESSION_COOKIE } from '../middleware/session';
-import { requestOrigin } from '../middleware/origin';
-import type { createRateLimits } from '../middleware/rate-limits';
+import { requireLinkOrigin } from '../middleware/origin';
+import type { RateLimits } from '../middleware/rate-limits';
 
 /** New session id for the signed-in user (no session fixation), saved before we answer. */
 async function signIn(req: Request, userId: number): Promise<void> {
@@ -14,7 +14,7 @@ async function signIn(req: Request, userId: number): Promise<void> {
   await new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
 }
 
-export function authRouter(services: Services, config: AppConfig, limits: ReturnType<typeof createRateLimits>): Router {
+export function authRouter(services: Services, config: AppConfig, limits: RateLimits): Router {
   const r = Router();
 
   r.post('/auth/signup', limits.signup, async (req, res) => {
@@ -24,7 +24,8 @@ export function authRouter(services: Services, config: AppConfig, limits: Return
     res.status(201).json({ user });
   });
 
-  r.post('/auth/login', limits.login, async (req, res) => {
+  // Failed sign-ins count per address (generous) and per account (strict); correct ones never count.
+  r.post('/auth/login', limits.loginPerAddress, limits.loginPerAccount, async (req, res) => {
     const body = parseInput(LoginSchema, req.body);
     const user = await services.auth.logIn(body);
     await signIn(req, user.id);
@@ -32,8 +33,11 @@ export function authRouter(services: Services, config: AppConfig, limits: Return
   });
 
   r.post('/auth/logout', async (req, res) => {
+    const userId = req.session?.userId;
+    const sessionId = req.sessionID;
     if (req.session) await new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
     res.clearCookie(SESSION_COOKIE, { path: '/', httpOnly: true, sameSite: 'lax' });
+    if (userId) services.auth.signedOut(userId, sessionId);
     res.status(204).end();
   });
 
@@ -44,9 +48,10 @@ export function authRouter(services: Services, config: AppConfig, limits: Return
     res.json({ user });
   });
 
-  r.post('/auth/reset-request', limits.resetRequest, async (req, res) => {
+  // The Host is checked before the address is looked at, so the answer says nothing about the account.
+  r.post('/auth/reset-request', limits.resetRequest, requireLinkOrigin(config), async (req, res) => {
     const { email } = parseInput(ResetRequestSchema, req.body);
-    await services.auth.requestReset(email, requestOrigin(req, config));
+    await services.auth.requestReset(email, res.locals.linkOrigin as string);
     res.status(202).json({ ok: true });
   });
 
