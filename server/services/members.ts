@@ -16,8 +16,11 @@ export function toApiMember(row: membersDb.MemberRow): ApiMember {
 }
 
 export interface MembersService {
-  /** Members, and (for owners) pending invitations. */
-  list(boardId: number, viewerRole: BoardRole): Promise<{ members: ApiMember[]; invitations: ApiInvitation[] }>;
+  /**
+   * Members, and (for owners) pending invitations. E-mail addresses go to the owner only (and each
+   * member sees their own); the others see names and roles.
+   */
+  list(boardId: number, viewerRole: BoardRole, viewerId: number): Promise<{ members: ApiMember[]; invitations: ApiInvitation[] }>;
   /** Adds an existing account at once (and mails them), or invites an unknown address. */
   add(boardId: number, byUserId: number, body: AddMemberBody, origin: string): Promise<{ member: ApiMember } | { invitation: ApiInvitation }>;
   /** Adds a member without mail (demo seed, accepted invitations). */
@@ -41,8 +44,13 @@ export function createMembersService(db: Db, events: AppEvents, mailer: Mailer, 
   };
 
   return {
-    async list(boardId, viewerRole) {
-      const members = (await membersDb.listMembers(db, boardId)).map(toApiMember);
+    async list(boardId, viewerRole, viewerId) {
+      const members = (await membersDb.listMembers(db, boardId)).map((row) => {
+        const m = toApiMember(row);
+        if (viewerRole === 'owner' || row.user_id === viewerId) return m;
+        const { email: _hidden, ...rest } = m;
+        return rest;
+      });
       const invites = viewerRole === 'owner' ? await invitations.listPending(boardId) : [];
       return { members, invitations: invites };
     },

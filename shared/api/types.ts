@@ -29,7 +29,8 @@ export interface ApiBoard {
 /** A member of a board. */
 export interface ApiMember {
   userId: number;
-  email: string;
+  /** Given to the board's owner only (and to the member themselves); others see name and role. */
+  email?: string;
   name: string;
   role: BoardRole;
 }

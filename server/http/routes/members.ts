@@ -5,22 +5,25 @@ import type { AppConfig } from '../../config';
 import type { Services } from '../../services';
 import { boardRoleGuard } from '../middleware/board-role';
 import { parseInput } from '../errors';
-import { requestOrigin } from '../middleware/origin';
+import { requireLinkOrigin } from '../middleware/origin';
+import type { RateLimits } from '../middleware/rate-limits';
 
 const UserParams = z.object({ userId: IdParamSchema });
 const InvitationParams = z.object({ invitationId: IdParamSchema });
 
-export function membersRouter(services: Services, config: AppConfig): Router {
+export function membersRouter(services: Services, config: AppConfig, limits: Pick<RateLimits, 'invitations'>): Router {
   const r = Router();
   const requireBoardRole = boardRoleGuard(services.authz);
 
+  // E-mail addresses only for the owner; others see names and roles.
   r.get('/boards/:id/members', requireBoardRole('viewer'), async (_req, res) => {
-    res.json(await services.members.list(res.locals.boardId, res.locals.boardRole));
+    res.json(await services.members.list(res.locals.boardId, res.locals.boardRole, res.locals.userId));
   });
 
-  r.post('/boards/:id/members', requireBoardRole('owner'), async (req, res) => {
+  // Each addition sends an e-mail: limited per account, and the link's host is checked first.
+  r.post('/boards/:id/members', requireBoardRole('owner'), limits.invitations, requireLinkOrigin(config), async (req, res) => {
     const body = parseInput(AddMemberSchema, req.body);
-    res.status(201).json(await services.members.add(res.locals.boardId, res.locals.userId, body, requestOrigin(req, config)));
+    res.status(201).json(await services.members.add(res.locals.boardId, res.locals.userId, body, res.locals.linkOrigin as string));
   });
 
   r.patch('/boards/:id/members/:userId', requireBoardRole('owner'), async (req, res) => {

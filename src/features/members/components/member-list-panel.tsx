@@ -27,7 +27,8 @@ export function MemberListPanel({ boardId, currentUserId }: { boardId: number; c
                   {m.name}
                   {m.userId === currentUserId && <span className="text-slate-500"> (you)</span>}
                 </div>
-                <div className="truncate font-mono text-[11px] text-slate-500">{m.email}</div>
+                {/* the server gives e-mail addresses to the owner only */}
+                {m.email && <div className="truncate font-mono text-[11px] text-slate-500">{m.email}</div>}
               </div>
               <RoleBadge role={m.role} />
             </li>

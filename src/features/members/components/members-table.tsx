@@ -39,7 +39,8 @@ export function MembersTable({ boardId, members, myRole, myUserId, onLeft }: Pro
           </span>
         ),
       }),
-      col.accessor('email', { header: 'E-mail', cell: (c) => <span className="font-mono text-xs text-slate-300">{c.getValue()}</span> }),
+      // owners only: others are not given members' addresses
+      ...(owner ? [col.accessor('email', { header: 'E-mail', cell: (c) => <span className="font-mono text-xs text-slate-300">{c.getValue() ?? ''}</span> })] : []),
       col.accessor('role', {
         header: 'Role',
         cell: (c) => {
