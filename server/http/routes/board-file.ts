@@ -19,7 +19,10 @@ export function slugify(title: string): string {
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1 } });
 
-/** multer's own errors carry no HTTP status; give them ours (413 for size, 400 for the rest). */
+/**
+ * Upload errors are the client's: multer's own (413 for size, 400 for the rest) and the multipart
+ * parser's (truncated body, missing or wrong boundary, malformed part header…), which carry no status.
+ */
 const singleFile: RequestHandler = (req, res, next) => {
   upload.single('file')(req, res, (err: unknown) => {
     if (!err) return next();
@@ -27,7 +30,8 @@ const singleFile: RequestHandler = (req, res, next) => {
       if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'too_large', `The board file is larger than ${MAX_IMPORT_BYTES / 1024 / 1024} MB`));
       return next(badRequest('invalid_input', `Upload one board file in the field "file" (${err.message})`, { file: err.message }));
     }
-    next(err);
+    const message = err instanceof Error ? err.message : String(err);
+    next(badRequest('bad_upload', `The upload is not a readable multipart form (${message})`, { file: message }));
   });
 };
 
