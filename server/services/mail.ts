@@ -2,6 +2,7 @@ import nodemailer from 'nodemailer';
 import type { AppConfig } from '../config';
 import type { Db } from '../db/knex';
 import { startMailCatcher, type MailCatcher } from './mail-catcher';
+import { secretLinksIn } from './mail-secrets';
 
 /** One outgoing message: always a plain-text body and a simple HTML one. */
 export interface OutgoingMail {
@@ -25,6 +26,12 @@ export interface Mailer {
 export async function createMailer(config: AppConfig, db: Db): Promise<Mailer> {
   const catcher = config.smtpUrl ? undefined : await startMailCatcher(db, config.smtpCatcherPort, config.logErrors);
   const smtpUrl = config.smtpUrl ?? catcher!.url;
+  if (catcher && config.logMailLinks) {
+    // A local demo has no mailbox: the links hidden from the Outbox are printed here instead.
+    catcher.onDelivery((m) => {
+      for (const link of secretLinksIn(m.text)) console.log(`mail to ${m.to} ("${m.subject}"): ${link}`);
+    });
+  }
   const transport = catcher
     ? nodemailer.createTransport({ host: '127.0.0.1', port: catcher.port, secure: false, ignoreTLS: true })
     : nodemailer.createTransport(smtpUrl);

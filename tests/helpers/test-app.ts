@@ -6,6 +6,7 @@ import { createApp, type AppContext } from '../../server/app';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { startServer } from '../../server/index';
 import type { ApiMail } from '../../shared/api';
+import type { CaughtMail } from '../../server/services/mail-catcher';
 
 /** The origin test agents send, and the PUBLIC_URL the test app links to in e-mails. */
 export const TEST_ORIGIN = 'http://gatefold.test';
@@ -34,7 +35,8 @@ export function testConfig(overrides: TestAppOverrides = {}): { config: AppConfi
     smtpCatcherPort: 0,
     publicUrl: TEST_ORIGIN,
     seedDemo: false,
-    rateLimit: { windowMs: 60_000, login: 1000, signup: 1000, resetRequest: 1000 },
+    rateLimit: { ...base.rateLimit, windowMs: 60_000, login: 1000, loginPerAddress: 1000, signup: 1000, resetRequest: 1000, invitations: 1000 },
+    logMailLinks: false,
     ...overrides,
   } as AppConfig;
   return { config, dir };
@@ -48,8 +50,12 @@ export interface TestApp {
   signUp(name: string, email: string, password?: string): Promise<Agent>;
   /** Signs in an existing account and returns an agent carrying its session cookie. */
   signIn(email: string, password: string): Promise<Agent>;
-  /** Waits (up to `timeoutMs`) for a caught message to `to` (newest first) whose subject matches. */
+  /** Waits (up to `timeoutMs`) for a caught message to `to` (newest first) whose subject matches, as the Outbox stores it. */
   waitForMail(to: string, subject?: RegExp, timeoutMs?: number): Promise<ApiMail>;
+  /** Waits for a message to `to` as the SMTP catcher received it (live links, unlike the Outbox), newest first. */
+  waitForDelivery(to: string, subject?: RegExp, timeoutMs?: number): Promise<CaughtMail>;
+  /** Every message the SMTP catcher received so far, in order. */
+  deliveries: CaughtMail[];
   close(): Promise<void>;
 }
 
@@ -67,6 +73,7 @@ export function tokenFromMail(mail: Pick<ApiMail, 'text'>, prefix: 'invitations'
 export async function createTestApp(overrides: TestAppOverrides = {}): Promise<TestApp> {
   const { config, dir } = testConfig(overrides);
   const ctx = await createApp(config);
+  const deliveries = collectDeliveries(ctx);
   const request = () => supertest.agent(ctx.app).set('Origin', TEST_ORIGIN);
 
   const withSession = async (agent: Agent, path: string, body: object, expected: number) => {
@@ -81,6 +88,8 @@ export async function createTestApp(overrides: TestAppOverrides = {}): Promise<T
     signUp: (name, email, password = 'correct horse battery') =>
       withSession(request(), '/api/auth/signup', { name, email, password }, 201),
     signIn: (email, password) => withSession(request(), '/api/auth/login', { email, password }, 200),
+    deliveries,
+    waitForDelivery: (to, subject, timeoutMs) => waitForDelivery(deliveries, to, subject, timeoutMs),
     async waitForMail(to, subject, timeoutMs = 5000) {
       const until = Date.now() + timeoutMs;
       for (;;) {
@@ -98,10 +107,31 @@ export async function createTestApp(overrides: TestAppOverrides = {}): Promise<T
   };
 }
 
+/** Collects what the app's built-in SMTP catcher receives (the live messages, as a mailbox would). */
+export function collectDeliveries(ctx: AppContext): CaughtMail[] {
+  const list: CaughtMail[] = [];
+  // an app sending to SMTP_URL has no catcher: nothing to collect
+  ctx.mail.catcher?.onDelivery((m) => list.push(m));
+  return list;
+}
+
+/** Waits (up to `timeoutMs`) for a delivered message to `to` whose subject matches; newest first. */
+export async function waitForDelivery(list: CaughtMail[], to: string, subject?: RegExp, timeoutMs = 5000): Promise<CaughtMail> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const hit = [...list].reverse().find((m) => m.to.toLowerCase().includes(to.toLowerCase()) && (!subject || subject.test(m.subject)));
+    if (hit) return hit;
+    if (Date.now() > until) throw new Error(`no delivery to ${to} matching ${subject ?? 'anything'} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 25));
+  }
+}
+
 export interface TestServer {
   /** e.g. `http://127.0.0.1:41234` — use it for fetch, websockets and browsers. */
   url: string;
   ctx: AppContext;
+  /** What the built-in SMTP catcher received, live links included. */
+  deliveries: CaughtMail[];
   close(): Promise<void>;
 }
 
@@ -116,6 +146,7 @@ export async function startTestServer(overrides: TestAppOverrides = {}): Promise
   return {
     url: running.url,
     ctx: running.ctx,
+    deliveries: collectDeliveries(running.ctx),
     async close() {
       await running.close();
       rmSync(dir, { recursive: true, force: true });
