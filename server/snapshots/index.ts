@@ -20,17 +20,17 @@ export { DEFAULT_AUTO_OPTIONS, type AutoSnapshotOptions } from './auto';
  */
 export function mountSnapshots(ctx: AppContext): Router {
   const options: AutoSnapshotOptions = { ...DEFAULT_AUTO_OPTIONS, ...(ctx.config as { snapshots?: Partial<AutoSnapshotOptions> }).snapshots };
-  let auto: AutoSnapshots | undefined;
-  const service = createSnapshotsService({
-    db: ctx.db, registry: ctx.boardRegistry, boards: ctx.services.boards, onTaken: (boardId) => auto?.taken(boardId),
-  });
-  auto = new AutoSnapshots(options, async (boardId) => {
+  // the scheduler calls the service only later (on a timer or a room unloading), so it may come first
+  const auto = new AutoSnapshots(options, async (boardId) => {
     if (await ctx.boardRegistry.store.exists(boardId)) await service.take(boardId, { kind: 'automatic', authorId: null });
+  });
+  const service = createSnapshotsService({
+    db: ctx.db, registry: ctx.boardRegistry, boards: ctx.services.boards, onTaken: (boardId) => auto.taken(boardId),
   });
   const stop = ctx.boardRegistry.onActivity(auto.onActivity);
   ctx.onClose.push(async () => {
     stop();
-    await auto?.close();
+    await auto.close();
   });
   wrapDemoContent(ctx, service);
   return snapshotsRouter(ctx.services, service);
