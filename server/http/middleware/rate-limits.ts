@@ -23,6 +23,8 @@ function limiter(p: { windowMs: number; limit: number; what: string; skipSuccess
     skipFailedRequests: p.skipFailedRequests ?? false,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
+    // X-Forwarded-For from a client is expected noise: only TRUST_PROXY decides whether it is read
+    validate: { xForwardedForHeader: false },
     ...(p.key ? { keyGenerator: p.key } : {}),
     handler: (_req, _res, next) => {
       next(new HttpError(429, 'too_many_attempts', `Too many ${p.what}; wait ${minutes(p.windowMs)} and try again`));

@@ -39,7 +39,7 @@ export function analyzeRouter(config: AnalyzeConfig, runner: AnalysisRunner): Ro
   const r = Router();
   // a million-row table keeps a core busy for a second or two: bound how often one account asks
   const limit = rateLimit({
-    windowMs: 60_000, limit: config.perMinute, standardHeaders: 'draft-7', legacyHeaders: false,
+    windowMs: 60_000, limit: config.perMinute, standardHeaders: 'draft-7', legacyHeaders: false, validate: { xForwardedForHeader: false },
     keyGenerator: (req) => `user:${String(req.session?.userId ?? 'none')}`,
     handler: (_req, _res, next) => next(new HttpError(429, 'too_many_attempts', 'Too many analyses in a minute; wait a moment and try again')),
   });
