@@ -72,6 +72,12 @@ export class Simulator {
   /** per driver slot: 1 when its level was chosen at power-on, so an X evaluation keeps that level */
   private readonly hold: Uint8Array;
   private holding = false;
+  /** heater warm-up (option warmUp): time units, 1 per part once warm, and the queue of parts warming */
+  private readonly warmUp: number;
+  private readonly warm: Uint8Array;
+  private readonly warmGap: number;
+  private warmQueue: { t: number; part: number }[] = [];
+  private warmHead = 0;
 
   constructor(netlist: Netlist, opts: SimulatorOptions = {}) {
     this.netlist = netlist;
@@ -121,6 +127,9 @@ export class Simulator {
       const half = clockHalfPeriod(p.part.period, maxDelay);
       this.clocks.push({ part: i, half, next: half });
     });
+    this.warmUp = Math.max(0, Math.floor(opts.warmUp ?? 0));
+    this.warm = new Uint8Array(n).fill(1);
+    this.warmGap = maxDelay + 1;
     this.undrivenInputList = netlist.undriven.flatMap((net) => netlist.nets[net].readers
       .filter((r) => { const part = netlist.partById(r.part); return part !== undefined && !isOutputKind(part.kind); })
       .map((r) => `${r.part}.${r.pin}`));
@@ -136,8 +145,9 @@ export class Simulator {
    * Gate outputs to X, storage to its `init` (or 0), inputs kept at their levels, queue emptied; the
    * next settle may resolve self-sustained X loops (option `powerOn`).
    */
-  private powerOn(): void {
+  private powerOn(warmUp = this.warmUp): void {
     this.powerOnPending = this.resolveAtPowerOn;
+    this.coolDown(warmUp);
     this.wheel.clear();
     this.bouncer.clear();
     this.slotVal.fill(LX);
@@ -176,10 +186,39 @@ export class Simulator {
 
   /**
    * Storage back to its initial value, gate outputs to X; input levels stay. The next settle resolves
-   * self-sustained X loops again (option `powerOn`).
+   * self-sustained X loops again (option `powerOn`). `warmUp` replaces the option's heater warm-up for
+   * this power-on only (time units; 0 for none).
    */
-  resetState(): void {
-    this.powerOn();
+  resetState(opts: { warmUp?: number } = {}): void {
+    this.powerOn(opts.warmUp === undefined ? this.warmUp : Math.max(0, Math.floor(opts.warmUp)));
+  }
+
+  /** Time at which the last part's heater is warm (option warmUp); at or before `time` when all are. */
+  get warmUntil(): number {
+    return this.warmQueue.length ? this.warmQueue[this.warmQueue.length - 1].t : 0;
+  }
+
+  /** Every evaluating part cold again, warming in file order from now (no-op without warm-up). */
+  private coolDown(warmUp: number): void {
+    this.warmQueue = [];
+    this.warmHead = 0;
+    this.warm.fill(1);
+    if (warmUp <= 0) return;
+    let k = 0;
+    this.parts.forEach((_, i) => {
+      if (!this.evaluates[i]) return;
+      this.warm[i] = 0;
+      this.warmQueue.push({ t: this.now + warmUp + k++ * this.warmGap, part: i });
+    });
+  }
+
+  /** Parts whose heaters are warm by time t evaluate from now on. */
+  private wake(t: number): void {
+    while (this.warmHead < this.warmQueue.length && this.warmQueue[this.warmHead].t <= t) {
+      const p = this.warmQueue[this.warmHead++].part;
+      this.warm[p] = 1;
+      this.markDirty(p);
+    }
   }
 
   /**
@@ -257,6 +296,11 @@ export class Simulator {
 
   private evaluate(p: number): void {
     if (!this.evaluates[p]) return;
+    if (!this.warm[p]) {
+      // a cold tube passes no plate current: its plate, the output, sits at the supply (high)
+      for (let s = this.slotStart[p]; s < this.slotStart[p + 1]; s++) this.schedule(s, L1, p);
+      return;
+    }
     const part = this.parts[p];
     const kind = part.kind;
     const a = this.inStart[p];
@@ -295,6 +339,7 @@ export class Simulator {
   /** Moves to time t (≥ now) and processes everything due then. */
   private advance(t: number): void {
     this.now = t;
+    if (this.warmHead < this.warmQueue.length) this.wake(t);
     this.bouncer.due(t, (part, v) => this.driveSource(part, v));
     if (this.wheel.queued) this.wheel.drain(t, this.applyBound);
     this.evalDirty();
@@ -388,6 +433,7 @@ export class Simulator {
     for (;;) {
       let t = this.nextTime();
       for (const c of clocks) t = Math.min(t, c.next);
+      if (this.warmHead < this.warmQueue.length) t = Math.min(t, this.warmQueue[this.warmHead].t);
       if (t > end) break;
       this.now = t;
       for (const c of clocks) {

@@ -113,6 +113,14 @@ export interface SimulatorOptions {
    * IEEE Std 1364 semantics: such a loop stays X until something loads it.
    */
   powerOn?: 'resolve' | 'x';
+  /**
+   * Heater warm-up of tube families, in time units after power-on (default 0: none). Until its heater is
+   * warm a tube passes no plate current, so every gate, multiplexer and storage part drives its outputs
+   * high; they warm one after another in file order, one slowest gate delay apart (real heaters never
+   * warm in the same instant, so a latch of gates settles instead of racing), and then the logic takes
+   * over. settle() leaves the parts cold; runFor() lets the warm-up pass (see Simulator.warmUntil).
+   */
+  warmUp?: number;
 }
 
 /** Counters since the simulator was made. */

@@ -86,6 +86,9 @@ export class LiveEngine {
       case 'reset-state':
         live.resetState();
         break;
+      case 'warm-up':
+        live.warmUp(msg.units);
+        break;
       case 'clear-trace':
         if (live.sim && live.netlist) this.recorder.clear(live.netlist, live.sim.time, (net) => live.sim!.level(net));
         break;

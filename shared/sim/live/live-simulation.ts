@@ -125,6 +125,22 @@ export class LiveSimulation {
     this.powerOn = this.report.powerOn;
   }
 
+  /**
+   * Power-on again with the tube heaters cold (Simulator option warmUp, `units` time units): every gate's
+   * output sits high, then the simulated time runs on, inputs held, until the last heater is warm and the
+   * logic has taken over — so the timing strip shows the indicators lit at switch-on going out.
+   */
+  warmUp(units: number): void {
+    const sim = this.sim;
+    if (!sim) return;
+    sim.resetState({ warmUp: units });
+    this.unsettled = false;
+    this.settle();
+    if (sim.warmUntil > sim.time) this.idle(sim.warmUntil - sim.time);
+    this.settle();
+    this.powerOn = this.report.powerOn;
+  }
+
   /** One clock cycle (see the class): two edges, each settled, then half a period held. */
   cycle(): void {
     this.halfCycles(2);

@@ -18,6 +18,8 @@ export type LiveCommand =
   | { type: 'rate'; hz: number }
   /** stored state back to power-on (storage parts to their init, gate loops to X) */
   | { type: 'reset-state' }
+  /** power-on again with the tube heaters cold for `units` time units (gate outputs high), then let them warm */
+  | { type: 'warm-up'; units: number }
   /** signals (net names) the timing strip records from now on; rows already recorded keep their history */
   | { type: 'subscribe'; signals: string[] }
   /** forget the recording so far and record the same signals from now on */
