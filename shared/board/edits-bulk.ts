@@ -122,6 +122,7 @@ export function dedupeSignalLabels(doc: Y.Doc, origin: unknown): string[] {
   const used = new Set<string>();
   const renames: [Y.Map<unknown>, string, string][] = [];
   for (const [id, p] of sortedEntries(partsMap(doc))) {
+    if (!(p instanceof Y.Map)) continue; // not a part (see quarantineDoc)
     const label = p.get('label');
     const kind = String(p.get('kind'));
     if (typeof label !== 'string' || !(isInputKind(kind) || isOutputKind(kind))) continue;
@@ -144,9 +145,12 @@ export function dedupeSignalLabels(doc: Y.Doc, origin: unknown): string[] {
  * while another wired to it). One transaction; returns the deleted wire ids.
  */
 export function removeDanglingWires(doc: Y.Doc, origin: unknown): string[] {
-  const parts = new Map([...partsMap(doc).values()].map((p) => [String(p.get('id')), readPart(p)]));
+  // Entries that are not maps are not parts or wires at all (quarantineDoc removes them); skip, never throw.
+  const parts = new Map([...partsMap(doc).values()].filter((p) => p instanceof Y.Map).map((p) => [String(p.get('id')), readPart(p)]));
   const wires = wiresMap(doc);
-  const gone = [...wires.entries()].filter(([, w]) => !pinExists(parts, String(w.get('from'))) || !pinExists(parts, String(w.get('to')))).map(([id]) => id);
+  const gone = [...wires.entries()]
+    .filter(([, w]) => w instanceof Y.Map && (!pinExists(parts, String(w.get('from'))) || !pinExists(parts, String(w.get('to')))))
+    .map(([id]) => id);
   if (gone.length) doc.transact(() => gone.forEach((id) => wires.delete(id)), origin);
   return gone;
 }

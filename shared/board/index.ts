@@ -9,3 +9,4 @@ export * from './schema';
 export * from './validate';
 export * from './ydoc';
 export * from './edits';
+export * from './doc-check';

@@ -8,6 +8,7 @@
 import * as Y from 'yjs';
 import type { BoardFile, FamilyId, Part, Wire } from './schema';
 import { pinSide, splitPinRef } from './pins';
+import { PART_KINDS } from './kinds';
 
 /** The part fields of CONTRACTS §1, in the order an exported file lists them. */
 export const PART_FIELDS = [
@@ -51,7 +52,7 @@ export function readWire(ymap: YRecord): Wire {
 }
 
 function orderOf(ymap: YRecord): number {
-  const o = ymap.get('order');
+  const o = ymap instanceof Y.Map ? ymap.get('order') : undefined;
   return typeof o === 'number' ? o : Number.MAX_SAFE_INTEGER;
 }
 
@@ -114,7 +115,8 @@ export function pinExists(parts: Map<string, Part>, ref: string): boolean {
   const split = splitPinRef(ref);
   if (!split) return false;
   const part = parts.get(split.part);
-  if (!part) return false;
+  // a part of an unknown kind has no pins (and must not make the check throw)
+  if (!part || !(PART_KINDS as readonly string[]).includes(part.kind)) return false;
   return pinSide(part, split.pin) !== null;
 }
 
