@@ -1,5 +1,6 @@
 import { ServerResponse, type IncomingMessage } from 'node:http';
 import type { Request } from 'express';
+import type { Store } from 'express-session';
 import { CollabError, type SocketContext, type Peer } from './types';
 
 const PATH_RE = /^\/collab\/([1-9][0-9]{0,15})\/?$/;
@@ -34,16 +35,29 @@ function originAllowed(ctx: SocketContext, req: IncomingMessage): boolean {
   }
 }
 
+/** Asks the session store whether a socket's session still exists and still belongs to its user. */
+export type SessionCheck = () => Promise<boolean>;
+
+function sessionCheck(store: Store | undefined, sessionId: string, userId: number): SessionCheck {
+  return () =>
+    new Promise((resolve) => {
+      if (!store) return resolve(true);
+      // A store error is not proof that the session ended: the socket stays until the next check.
+      store.get(sessionId, (err, sess) => resolve(Boolean(err) || (sess as { userId?: number } | null | undefined)?.userId === userId));
+    });
+}
+
 /**
- * Decides who may join the board's room: a signed-in member, with their role. Throws CollabError
- * `not_signed_in` (→ 401) or `forbidden` / `bad_origin` (→ 403).
+ * Decides who may join the board's room: a signed-in member, with their role and session (whose
+ * end closes the socket). Throws CollabError `not_signed_in` (→ 401) or `forbidden` / `bad_origin` (→ 403).
  */
-export async function authorizeUpgrade(ctx: SocketContext, req: IncomingMessage, boardId: number): Promise<Peer> {
+export async function authorizeUpgrade(ctx: SocketContext, req: IncomingMessage, boardId: number): Promise<{ peer: Peer; sessionAlive: SessionCheck }> {
   if (!originAllowed(ctx, req)) throw new CollabError('bad_origin', `origin ${req.headers.origin} is not allowed`);
   await loadSession(ctx, req);
-  const userId = (req as Request).session?.userId;
+  const r = req as Request;
+  const userId = r.session?.userId;
   if (!userId) throw new CollabError('not_signed_in', 'sign in first');
   const role = await ctx.services.authz.roleOf(boardId, userId);
   if (!role) throw new CollabError('forbidden', `user ${userId} is not a member of board ${boardId}`);
-  return { userId, role };
+  return { peer: { userId, role, sessionId: r.sessionID }, sessionAlive: sessionCheck(r.sessionStore, r.sessionID, userId) };
 }

@@ -1,7 +1,7 @@
 import * as Y from 'yjs';
 import type { BoardFile } from '../../shared/board';
 import { boardToDoc, docToBoard, metaMap, partsMap, wiresMap } from '../../shared/board';
-import { replaceWithBoard, setMeta } from '../../shared/board';
+import { quarantineDoc, replaceWithBoard, setMeta } from '../../shared/board';
 import type { BoardLocks } from './locks';
 import { ServerOrigin, type BoardMeta, type BoardStore } from './store';
 
@@ -66,6 +66,8 @@ async function editStored(deps: BoardDocsDeps, boardId: number, userId: number |
   const updates: Uint8Array[] = [];
   const metaBefore = JSON.stringify(metaOf(doc));
   doc.on('update', (u: Uint8Array) => updates.push(u));
+  // content stored before updates were checked is removed first, and that removal stored with the edit
+  quarantineDoc(doc, new ServerOrigin(null, 'quarantine'));
   await edit(doc);
   const meta = metaOf(doc);
   doc.destroy();
@@ -85,6 +87,8 @@ export async function readBoardFile(deps: BoardDocsDeps, boardId: number): Promi
     if (open) return docToBoard(open.doc);
     const { doc } = await loadBoardDoc(deps.store, boardId);
     await ensureBoardMeta(deps.store, boardId, doc, null);
+    // a board stored before updates were checked: read it without what no board file allows
+    quarantineDoc(doc, null);
     const board = docToBoard(doc);
     doc.destroy();
     return board;

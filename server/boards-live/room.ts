@@ -7,10 +7,11 @@ import { WebSocket } from 'ws';
 import { metaOf } from './board-docs';
 import { ServerOrigin, type BoardFanout, type BoardStore } from './store';
 import { UpdateLog } from './update-log';
-import { metaMap } from '../../shared/board';
-import { repairBoard } from '../../shared/board';
-import { MSG, SYNC, awarenessClients } from './protocol';
-import { CLOSE, CollabError, type CollabOptions, type Peer } from './types';
+import { metaMap, quarantineDoc, repairBoard, type Quarantine } from '../../shared/board';
+import { MSG, SYNC } from './protocol';
+import { Presence } from './presence';
+import { UpdateGuard } from './update-guard';
+import { CLOSE, CollabError, SocketRefusal, closeReason, type CollabOptions, type Peer } from './types';
 
 /** One open socket in a room. */
 export interface Conn {
@@ -29,6 +30,11 @@ export interface RoomDeps {
   fanout?: BoardFanout;
 }
 
+/** What a room removed from its stored board when it opened it (content stored before updates were checked). */
+export interface QuarantineReport extends Quarantine {
+  at: string;
+}
+
 /** An update another server applied first (it stores it; this room only applies and broadcasts it). */
 class RemoteOrigin {}
 const REMOTE = new RemoteOrigin();
@@ -38,13 +44,19 @@ const REMOTE = new RemoteOrigin();
  * is broadcast to the other sockets in the tick it is applied, and queued for the store in that same
  * tick, in order; the queue is written at once and flushed before the room unloads and at shutdown.
  * So a collaborator may see an update a moment before it is stored, and an update counts as kept
- * once `flush()` has resolved. Updates from viewers are never applied. A malformed message closes
- * only its own socket.
+ * once `flush()` has resolved. Updates from viewers are never applied. An editor's update is checked
+ * before it is applied (update-guard.ts): one that would make the board invalid or pass a limit is
+ * refused and closes its socket. A malformed message closes only its own socket; nothing a socket
+ * sends makes the room throw. Presence is fanned out by presence.ts.
  */
 export class Room {
   readonly conns = new Map<WebSocket, Conn>();
   readonly awareness: awarenessProtocol.Awareness;
+  readonly presence: Presence;
+  /** What was removed from the stored board when the room opened, if anything (a log line says so too). */
+  readonly quarantine: QuarantineReport | null = null;
   private readonly log: UpdateLog;
+  private readonly guard: UpdateGuard;
   private destroyed = false;
   private metaChanged = false;
   private readonly unsubscribe: () => void;
@@ -58,13 +70,44 @@ export class Room {
   ) {
     this.log = new UpdateLog(deps.store, boardId, doc, seq, rows, () => deps.options().compactThreshold);
     this.awareness = new awarenessProtocol.Awareness(doc);
-    this.awareness.setLocalState(null);
+    this.presence = new Presence(this.awareness, this.conns, deps.options, (conn, data) => this.send(conn as Conn, data));
     doc.on('update', this.onDocUpdate);
-    this.awareness.on('update', this.onAwarenessUpdate);
     metaMap(doc).observe(this.onMetaChange);
     doc.on('afterTransaction', this.onAfterTransaction);
+    this.quarantine = this.quarantineStored();
+    this.guard = new UpdateGuard(doc, deps.options);
     this.unsubscribe = deps.fanout?.subscribe(boardId, (update) => Y.applyUpdate(doc, update, REMOTE)) ?? (() => undefined);
   }
+
+  /**
+   * A board stored before updates were checked may hold parts or wires no board file allows: they are
+   * removed by a server edit (stored like any other) and reported, so the room and its export work.
+   */
+  private quarantineStored(): QuarantineReport | null {
+    try {
+      const q = quarantineDoc(this.doc, new ServerOrigin(null, 'quarantine'));
+      if (!q.removed.length && !q.repaired.wires.length && !q.repaired.relabelled.length && !q.problems.length) return null;
+      console.warn(
+        `collab: board ${this.boardId}: the stored board did not pass the board check; removed ${q.removed.length} entr${q.removed.length === 1 ? 'y' : 'ies'}` +
+          ` (${q.removed.map((r) => `${r.where} ${JSON.stringify(r.key).slice(0, 40)}`).join(', ')}), repaired ${q.repaired.wires.length} wire(s) and ${q.repaired.relabelled.length} label(s):` +
+          ` ${q.problems.slice(0, 5).map((p) => p.message).join('; ')}`,
+      );
+      return { ...q, at: new Date().toISOString() };
+    } catch (err) {
+      console.error(`collab: board ${this.boardId}: checking the stored board failed:`, err);
+      return null;
+    }
+  }
+
+  /** The merge repair, total: a failure is logged, never thrown. */
+  private repair = (): void => {
+    if (this.log.isDiscarded || this.destroyed) return;
+    try {
+      repairBoard(this.doc, new ServerOrigin(null, 'repair'));
+    } catch (err) {
+      console.error(`collab: board ${this.boardId}: the repair pass failed:`, err);
+    }
+  };
 
   /**
    * Concurrent edits can each be valid and still merge into a board that is not: two inputs given one
@@ -75,7 +118,7 @@ export class Room {
     if (!this.conns.has(tr.origin as WebSocket)) return;
     const lists = new Set<unknown>([this.doc.getMap('parts'), this.doc.getMap('wires')]);
     const touched = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || keys.has('inputs') || (lists.has(type) && keys.size > 0));
-    if (touched) queueMicrotask(() => !this.log.isDiscarded && !this.destroyed && repairBoard(this.doc, new ServerOrigin(null, 'repair')));
+    if (touched) queueMicrotask(this.repair);
   };
 
   /**
@@ -104,22 +147,6 @@ export class Room {
     this.broadcast(encoding.toUint8Array(enc), origin);
   };
 
-  private onAwarenessUpdate = (
-    { added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown,
-  ): void => {
-    const conn = this.conns.get(origin as WebSocket);
-    if (conn) {
-      added.forEach((id) => conn.clients.add(id));
-      removed.forEach((id) => conn.clients.delete(id));
-    }
-    const changed = [...added, ...updated, ...removed];
-    const enc = encoding.createEncoder();
-    encoding.writeVarUint(enc, MSG.awareness);
-    encoding.writeVarUint8Array(enc, awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed));
-    // To everyone, the sender too: a lone client's own renewals are what keep its socket from timing out.
-    this.broadcast(encoding.toUint8Array(enc), null);
-  };
-
   /** Resolves when every applied update is in the database. */
   flush(): Promise<void> {
     return this.log.flush();
@@ -133,8 +160,9 @@ export class Room {
     encoding.writeVarUint(enc, MSG.sync);
     syncProtocol.writeSyncStep1(enc, this.doc);
     this.send(conn, encoding.toUint8Array(enc));
-    const states = [...this.awareness.getStates().keys()];
-    if (states.length) this.send(conn, this.awarenessMessage(states));
+    const presence = this.presence.snapshot();
+    if (presence) this.send(conn, presence);
+    this.presence.audienceChanged();
     return conn;
   }
 
@@ -143,7 +171,7 @@ export class Room {
     const conn = this.conns.get(ws);
     if (!conn) return;
     this.conns.delete(ws);
-    awarenessProtocol.removeAwarenessStates(this.awareness, [...conn.clients], null);
+    this.presence.leave(conn);
   }
 
   /** Handles one message; a bad one is logged and closes that socket only. */
@@ -152,6 +180,10 @@ export class Room {
       const reply = this.handle(conn, data);
       if (reply) this.send(conn, reply);
     } catch (err) {
+      if (err instanceof SocketRefusal) {
+        console.warn(`collab: board ${this.boardId}: refused a message of user ${conn.peer.userId} and closed the socket (${err.closeCode} ${err.code}): ${err.message}`);
+        return conn.ws.close(err.closeCode, closeReason(`${err.code}: ${err.message}`));
+      }
       const code = err instanceof CollabError ? err.code : 'malformed_message';
       if (this.deps.logErrors) console.warn(`collab: board ${this.boardId}: closing a socket after a bad message (${code}): ${(err as Error).message}`);
       conn.ws.close(CLOSE.invalidData, code);
@@ -174,37 +206,26 @@ export class Room {
         const update = decoding.readVarUint8Array(decoder);
         // Read-only on the server: a viewer's document changes are never applied (y-protocols PROTOCOL.md).
         if (conn.peer.role === 'viewer') return null;
-        Y.decodeUpdate(update); // throws on a malformed update before anything touches the document
-        Y.applyUpdate(this.doc, update, conn.ws);
+        this.guard.check(update); // throws on a malformed, invalid or over-limit update: nothing applied
+        try {
+          Y.applyUpdate(this.doc, update, conn.ws);
+        } catch (err) {
+          this.guard.rebuild();
+          throw err;
+        }
         return null;
       }
       case MSG.awareness: {
-        const update = decoding.readVarUint8Array(decoder);
-        // A socket speaks only for its own clients: never move or hide someone else's cursor.
-        if (awarenessClients(update).some((id) => this.ownerOf(id, conn))) return null;
-        awarenessProtocol.applyAwarenessUpdate(this.awareness, update, conn.ws);
+        this.presence.receive(conn, decoding.readVarUint8Array(decoder));
         return null;
       }
       case MSG.queryAwareness:
-        return this.awarenessMessage([...this.awareness.getStates().keys()]);
+        return this.presence.snapshot();
       case MSG.auth:
         throw new CollabError('unknown_message', 'auth messages are not used; the session decides');
       default:
         throw new CollabError('unknown_message', `unknown message type ${type}`);
     }
-  }
-
-  /** True when awareness client `id` belongs to a socket other than `conn`. */
-  private ownerOf(id: number, conn: Conn): boolean {
-    for (const other of this.conns.values()) if (other !== conn && other.clients.has(id)) return true;
-    return false;
-  }
-
-  private awarenessMessage(clients: number[]): Uint8Array {
-    const enc = encoding.createEncoder();
-    encoding.writeVarUint(enc, MSG.awareness);
-    encoding.writeVarUint8Array(enc, awarenessProtocol.encodeAwarenessUpdate(this.awareness, clients));
-    return encoding.toUint8Array(enc);
   }
 
   private send(conn: Conn, data: Uint8Array): void {
@@ -234,6 +255,8 @@ export class Room {
     this.doc.off('update', this.onDocUpdate);
     metaMap(this.doc).unobserve(this.onMetaChange);
     this.doc.off('afterTransaction', this.onAfterTransaction);
+    this.guard.destroy();
+    this.presence.destroy();
     this.awareness.destroy();
     this.doc.destroy();
   }

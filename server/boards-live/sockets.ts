@@ -2,7 +2,7 @@ import type { Server, IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
 import type { BoardRole } from '../../shared/api';
-import { authorizeUpgrade, boardIdOfPath } from './auth';
+import { authorizeUpgrade, boardIdOfPath, type SessionCheck } from './auth';
 import type { BoardRegistry } from './registry';
 import type { Room } from './room';
 import { CLOSE, CollabError, type CollabOptions, type Peer, type SocketContext } from './types';
@@ -18,8 +18,11 @@ function refuse(socket: Duplex, status: 401 | 403 | 404 | 500, text: string): vo
   socket.destroy();
 }
 
-/** Wires one accepted socket to its room: messages in, keep-alive pings, leaving. */
-function connect(ws: WebSocket, room: Room, peer: Peer, registry: BoardRegistry, options: CollabOptions, logErrors: boolean): void {
+/**
+ * Wires one accepted socket to its room: messages in, keep-alive pings, leaving. On each ping tick the
+ * socket's session is asked for again: one that expired or was destroyed closes the socket (4401).
+ */
+function connect(ws: WebSocket, room: Room, peer: Peer, sessionAlive: SessionCheck, registry: BoardRegistry, options: CollabOptions, logErrors: boolean): void {
   const conn = room.join(ws, peer);
   let alive = true;
   ws.on('pong', () => (alive = true));
@@ -27,6 +30,9 @@ function connect(ws: WebSocket, room: Room, peer: Peer, registry: BoardRegistry,
     if (!alive) return ws.terminate();
     alive = false;
     ws.ping();
+    void sessionAlive().then((ok) => {
+      if (!ok && ws.readyState === ws.OPEN) ws.close(CLOSE.sessionEnded, 'session_ended');
+    });
   }, options.pingIntervalMs);
   ws.on('message', (data: Buffer, isBinary: boolean) => {
     if (!isBinary) return room.receive(conn, new Uint8Array()); // text frames are not the protocol: close
@@ -72,7 +78,21 @@ function applyMembership(registry: BoardRegistry, { boardId, userId, role }: { b
     // A viewer made editor reconnects (the client does so by itself) so that the full sync runs again:
     // edits of theirs the server ignored so far would otherwise leave later ones without their base.
     else if (conn.peer.role === 'viewer' && role !== 'viewer') conn.ws.close(CLOSE.roleChanged, 'role changed');
-    else conn.peer.role = role;
+    else {
+      conn.peer.role = role;
+      room.presence.audienceChanged();
+    }
+  }
+}
+
+/** Sessions ended (sign-out, password reset): their sockets close at once, on every board. */
+function endSessions(registry: BoardRegistry, { userId, sessionIds }: { userId: number; sessionIds?: string[] }): void {
+  for (const room of registry.rooms.values()) {
+    for (const conn of room.conns.values()) {
+      if (conn.peer.userId !== userId) continue;
+      if (sessionIds && !(conn.peer.sessionId && sessionIds.includes(conn.peer.sessionId))) continue;
+      conn.ws.close(CLOSE.sessionEnded, 'session_ended');
+    }
   }
 }
 
@@ -94,9 +114,9 @@ export function attachBoardSockets(server: Server, ctx: SocketContext): SocketsH
     }
     if (registry.isClosing) return refuse(socket, 500, 'Server Closing');
     authorizeUpgrade(ctx, req, boardId)
-      .then(async (peer) => {
+      .then(async ({ peer, sessionAlive }) => {
         const room = await registry.claim(boardId);
-        accept(wss, req, socket, head, (ws) => connect(ws, room, peer, registry, options, ctx.config.logErrors), () => registry.release(room));
+        accept(wss, req, socket, head, (ws) => connect(ws, room, peer, sessionAlive, registry, options, ctx.config.logErrors), () => registry.release(room));
       })
       .catch((err: unknown) => {
         if (err instanceof CollabError) {
@@ -109,10 +129,12 @@ export function attachBoardSockets(server: Server, ctx: SocketContext): SocketsH
   };
   const onMembership = (change: { boardId: number; userId: number; role: BoardRole | null }) => applyMembership(registry, change);
   const onDeleted = ({ boardId }: { boardId: number }) => registry.discardBoard(boardId);
+  const onSessionsEnded = (ended: { userId: number; sessionIds?: string[] }) => endSessions(registry, ended);
 
   server.on('upgrade', onUpgrade);
   ctx.events.on('membership-changed', onMembership);
   ctx.events.on('board-deleted', onDeleted);
+  ctx.events.on('sessions-ended', onSessionsEnded);
 
   let closed: Promise<void> | undefined;
   const close = () =>
@@ -120,6 +142,7 @@ export function attachBoardSockets(server: Server, ctx: SocketContext): SocketsH
       server.off('upgrade', onUpgrade);
       ctx.events.off('membership-changed', onMembership);
       ctx.events.off('board-deleted', onDeleted);
+      ctx.events.off('sessions-ended', onSessionsEnded);
       await registry.close();
       for (const ws of wss.clients) ws.terminate();
       await new Promise<void>((resolve) => wss.close(() => resolve()));
