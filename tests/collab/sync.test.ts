@@ -110,14 +110,14 @@ describe('live board sync', () => {
     expect(await closed).toBe(1009);
   });
 
-  it('awareness (cursors) passes between clients', async () => {
+  it("awareness (cursors) passes between editors; nobody speaks for another's client", async () => {
     const boardId = await createBoard(server, owner);
-    await addMember(server, owner, boardId, editor, 'viewer');
+    await addMember(server, owner, boardId, editor, 'editor');
     const a = open(boardId, owner);
     const b = open(boardId, editor);
     await Promise.all([a.synced, b.synced]);
     b.provider.awareness.setLocalState({ user: { id: editor.id, name: 'Editor', color: '#888' }, cursor: { x: 5, y: 6 }, selection: [] });
-    await waitFor(() => [...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 5), 'a viewer cursor to arrive');
+    await waitFor(() => [...a.provider.awareness.getStates().values()].some((s) => s.cursor?.x === 5), 'an editor cursor to arrive');
     // a third socket cannot remove or move b's cursor by speaking for b's client id
     const raw = new WebSocket(server.url.replace(/^http/, 'ws') + `/collab/${boardId}`, { headers: { Cookie: owner.cookie } });
     await new Promise((r) => raw.once('open', r));
