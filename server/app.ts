@@ -25,6 +25,7 @@ import { boardFileRouter } from './http/routes/board-file';
 import { BoardRegistry, exampleBoardContent } from './boards-live';
 import { createKnexBoardStore } from './db/board-store';
 import { analyzeRouter } from './http/routes/analyze';
+import { buildRouter } from './http/routes/build';
 import { mountSnapshots } from './snapshots';
 import { createAnalysisRunner } from './services/analysis-runner';
 
@@ -117,6 +118,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   const analyses = createAnalysisRunner(config.analyze);
   onClose.push(() => analyses.close());
   app.use('/api', analyzeRouter(config.analyze, analyses));
+  app.use('/api', buildRouter());
   ctx.boardContent = exampleBoardContent(boardRegistry);
   app.use('/api', mountSnapshots(ctx));
 

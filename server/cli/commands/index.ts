@@ -5,9 +5,13 @@ import type { CliCommand } from './types';
 import { simulate } from './simulate';
 import { exportVerilog } from './export-verilog';
 import { analyze } from './analyze';
+import { convert } from './convert';
+import { buildSheetCommand } from './build-sheet';
 
 export const COMMANDS: Record<string, CliCommand> = {
   simulate,
   'export-verilog': exportVerilog,
   analyze,
+  convert,
+  'build-sheet': buildSheetCommand,
 };
