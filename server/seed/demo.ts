@@ -26,7 +26,7 @@ export const DEMO_USERS = [
 ] as const;
 
 type DemoUserKey = (typeof DEMO_USERS)[number]['key'];
-export type DemoBoardSlug = 'half-adder' | 'mux-logic-unit' | 'debounced-clock' | 'ripple-counter-4bit';
+export type DemoBoardSlug = 'half-adder' | 'mux-logic-unit' | 'debounced-clock' | 'ripple-counter-4bit' | 'tube-logic-unit';
 
 interface DemoBoard {
   slug: DemoBoardSlug;
@@ -41,6 +41,7 @@ export const DEMO_BOARDS: DemoBoard[] = [
   { slug: 'half-adder', title: 'Half adder', family: 'tube-drl-nor', owner: 'theo', members: [['ines', 'editor']] },
   { slug: 'mux-logic-unit', title: 'Mux logic unit', family: 'tube-drl-nor', owner: 'ines', members: [['theo', 'editor'], ['calder', 'viewer']] },
   { slug: 'debounced-clock', title: 'Debounced clock', family: 'tube-drl-nor', owner: 'theo', members: [['ines', 'editor']] },
+  { slug: 'tube-logic-unit', title: 'Tube logic unit', family: 'tube-drl-nor', owner: 'mara', members: [['theo', 'editor'], ['ines', 'editor']] },
   { slug: 'ripple-counter-4bit', title: '4-bit ripple counter', family: 'ttl-74ls', owner: 'calder', members: [['sam', 'viewer'], ['priya', 'viewer']] },
 ];
 
@@ -52,10 +53,11 @@ export const DEMO_HISTORY: Record<DemoBoardSlug, Array<{ name: string; parts?: s
   'half-adder': [{ name: 'Inputs and the sum gate', parts: ['a', 'b', 'g1', 's'] }, { name: 'Carry added' }],
   'mux-logic-unit': [{ name: 'Four gate functions side by side', parts: ['a', 'b', 'g_and', 'g_or', 'g_xor', 'g_not'] }, { name: 'Multiplexer picks the function' }],
   'debounced-clock': [
-    { name: 'Raw push button on a lamp', parts: ['rest', 'push', 'raw'] },
-    { name: 'NAND latch cleans the press', parts: ['rest', 'push', 'g_rb', 'g_sb', 'g_q', 'g_qn', 'raw', 'clean'] },
-    { name: 'Flip-flop toggles on each clean press' },
+    { name: 'Raw push button on a lamp', parts: ['push', 'raw'] },
+    { name: 'NAND latch cleans the press', parts: ['push', 'g_rb', 'g_sb', 'g_q', 'g_qn', 'raw', 'clean'] },
+    { name: 'Flip-flops count the clean presses' },
   ],
+  'tube-logic-unit': [{ name: 'Three NOR gates: NOR, AND and XOR of A and B', parts: ['a', 'b', 'g_nor', 'g_and', 'g_xor', 'n', 'd', 'x'] }, { name: 'Result register of NOR gates' }],
   'ripple-counter-4bit': [{ name: 'One stage: a single flip-flop', parts: ['clk', 'ff0', 'q0'] }, { name: 'All four stages' }],
 };
 
