@@ -98,11 +98,14 @@ export class Presence {
     if (speaking.size > maxAwarenessClients) {
       throw new SocketRefusal(CLOSE.awarenessTooLarge, 'awareness_too_large', `speaks for ${speaking.size} presence clients (limit ${maxAwarenessClients})`);
     }
-    const clocks = new Map(entries.map(({ id }) => [id, this.awareness.meta.get(id)?.clock ?? -1]));
+    const before = new Map(entries.map(({ id }) => [id, { clock: this.awareness.meta.get(id)?.clock ?? -1, had: this.awareness.states.has(id) }]));
     awarenessProtocol.applyAwarenessUpdate(this.awareness, update, conn.ws);
     const editor = conn.peer.role !== 'viewer';
     for (const { id, json } of entries) {
-      if ((this.awareness.meta.get(id)?.clock ?? -1) === clocks.get(id)) continue; // old news: not applied
+      const was = before.get(id)!;
+      // applied: a newer clock, or (y-protocols) a removal at the same clock
+      const applied = (this.awareness.meta.get(id)?.clock ?? -1) !== was.clock || (was.had && !this.awareness.states.has(id));
+      if (!applied) continue;
       const changed = this.lastJson.get(id) !== json;
       if (json === 'null') this.lastJson.delete(id);
       else this.lastJson.set(id, json);
