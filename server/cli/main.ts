@@ -14,10 +14,11 @@ async function main(argv: string[]): Promise<number> {
     const known = Object.keys(COMMANDS).sort().join(', ');
     throw new CliError(name ? `unknown command "${name}" (commands: ${known})` : `no command given (commands: ${known})`);
   }
-  // output is buffered so that a failure half-way leaves stdout empty
-  let out = '';
+  // output is held until the command has finished, so that a failure half-way leaves stdout empty; a
+  // large result comes as pieces (an iterable) and is written piece by piece, never as one string
+  const out: (string | Iterable<string>)[] = [];
   const files: [string, string][] = [];
-  const io: CliIo = { stdout: (text) => { out += text; }, writeFile: (path, text) => { files.push([path, text]); } };
+  const io: CliIo = { stdout: (text) => { out.push(text); }, writeFile: (path, text) => { files.push([path, text]); } };
   await command.run(args, io);
   for (const [path, text] of files) {
     try {
@@ -26,8 +27,16 @@ async function main(argv: string[]): Promise<number> {
       throw new CliError(`cannot write ${path} (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
     }
   }
-  process.stdout.write(out);
+  for (const part of out) {
+    for (const piece of typeof part === 'string' ? [part] : part) await write(piece);
+  }
   return 0;
+}
+
+/** Writes to stdout, waiting for the pipe to drain when its buffer is full. */
+function write(text: string): Promise<void> | void {
+  if (process.stdout.write(text)) return;
+  return new Promise((resolve) => process.stdout.once('drain', resolve));
 }
 
 // a reader that stops early (`… | head`) closes the pipe: end quietly instead of printing a stack

@@ -3,7 +3,7 @@
  * minimal SOP/POS, function names and function map as the `analyze` JSON of CONTRACTS §2, from the one
  * analysis pipeline of `shared/analysis` (its don't-care rule included).
  */
-import { AnalysisError, analyzeBoard, parseRowList } from '../../../shared/analysis';
+import { AnalysisError, analyzeBoard, parseRowList, type AnalyzeResult } from '../../../shared/analysis';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
 import { CliError } from '../errors';
@@ -15,6 +15,26 @@ function list(v: string | boolean | undefined, flag: string): string[] | undefin
   const items = v.split(',').map((s) => s.trim()).filter(Boolean);
   if (!items.length) throw new CliError(`--${flag} needs at least one label`);
   return items;
+}
+
+const ROWS_PER_PIECE = 8192;
+
+/** The bytes of `JSON.stringify(result) + '\n'`, in pieces: the rows a batch at a time. */
+function* compactJsonPieces(result: AnalyzeResult): Generator<string> {
+  let sep = '{';
+  for (const [key, value] of Object.entries(result)) {
+    if (value === undefined) continue; // as JSON.stringify leaves it out
+    if (key !== 'rows') { yield `${sep}${JSON.stringify(key)}:${JSON.stringify(value)}`; sep = ','; continue; }
+    const rows = value as AnalyzeResult['rows'];
+    yield `${sep}${JSON.stringify(key)}:[`;
+    sep = ',';
+    for (let i = 0; i < rows.length; i += ROWS_PER_PIECE) {
+      const batch = JSON.stringify(rows.slice(i, i + ROWS_PER_PIECE));
+      yield (i ? ',' : '') + batch.slice(1, -1);
+    }
+    yield ']';
+  }
+  yield sep === '{' ? '{}\n' : '}\n';
 }
 
 export const analyze: CliCommand = {
@@ -30,8 +50,8 @@ export const analyze: CliCommand = {
         inputs: list(values.inputs, 'inputs'), outputs: list(values.outputs, 'outputs'), select: list(values.select, 'select'),
         dontCares: rows && parseRowList(rows.join(',')),
       });
-      // indented for people; a million-row table is written compact (it is for programs)
-      io.stdout(JSON.stringify(result, null, result.rows.length <= 4096 ? 2 : undefined) + '\n');
+      // indented for people; a large table is written compact (it is for programs), in pieces
+      io.stdout(result.rows.length <= 4096 ? JSON.stringify(result, null, 2) + '\n' : compactJsonPieces(result));
     } catch (err) {
       if (err instanceof AnalysisError) throw new CliError(err.message);
       throw err;

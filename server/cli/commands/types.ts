@@ -1,7 +1,7 @@
 /** A command of the Gatefold command line. */
 export interface CliIo {
-  /** writes text to standard output (as is) */
-  stdout(text: string): void;
+  /** writes text to standard output (as is); an iterable is written piece by piece (a large JSON) */
+  stdout(text: string | Iterable<string>): void;
   /** writes a file (used by --vcd) */
   writeFile(path: string, text: string): void;
 }
