@@ -4,7 +4,9 @@ import { defineConfig } from '@playwright/test';
 // which each spec starts on a free port with its own temporary database (tests/e2e/fixtures).
 export default defineConfig({
   testDir: 'tests/e2e',
-  timeout: 60_000,
+  timeout: 90_000,
+  // A loaded 2-core machine can take several seconds to open a board; waits are for states, not speed.
+  expect: { timeout: 15_000 },
   workers: 1,
   reporter: [['list']],
   use: {
