@@ -46,8 +46,8 @@ export interface PinSet {
 export function pinsOf(kind: PartKind, inputs = 2): PinSet {
   switch (kind) {
     case 'switch':
+    case 'button': // a changeover contact: outn is the normally-closed throw
       return { inputs: [], outputs: ['out', 'outn'] };
-    case 'button':
     case 'clock':
     case 'const':
       return { inputs: [], outputs: ['out'] };

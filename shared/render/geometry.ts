@@ -39,6 +39,8 @@ export function shapeOf(kind: PartKind, inputs = 2): PartShape {
     case 'switch':
       return { w: 80, h: 60, pins: column(p.outputs, 80, 'right', true) };
     case 'button':
+      // pressing moves the common down from the normally-closed throw (outn, upper) to the open one (out)
+      return { w: 80, h: 60, pins: [{ pin: 'outn', output: true, x: 80, y: 20, side: 'right' }, { pin: 'out', output: true, x: 80, y: 40, side: 'right' }] };
     case 'clock':
       return { w: 80, h: 40, pins: column(p.outputs, 80, 'right', true) };
     case 'const':

@@ -67,10 +67,14 @@ export function symbolSvg(part: Part, w: number, h: number, t: RenderTheme): str
         + `<line x1="22" y1="30" x2="${num(x2)}" y2="${num(y2)}" stroke="${part.on ? t.on : t.stroke}" stroke-width="3" stroke-linecap="round"/>`
         + `<circle cx="22" cy="30" r="5" fill="${t.stroke}"/>` + text(10, 54, part.on ? 'ON' : 'OFF', 8, t.dim);
     }
-    case 'button':
-      return body(`M4 4 H${w - 16} V36 H4 Z`, t) + line(52, 20, w, 20, t.wire)
-        + `<circle cx="18" cy="28" r="2.5" fill="${t.stroke}"/><circle cx="48" cy="28" r="2.5" fill="${t.stroke}"/>`
-        + line(14, part.pressed ? 24 : 18, 52, part.pressed ? 24 : 18, t.stroke) + line(33, 8, 33, 18, t.stroke) + line(27, 8, 39, 8, t.stroke);
+    case 'button': {
+      // a changeover contact: the bar rests under the normally-closed pair (outn) and a press moves it to the open pair (out)
+      const bar = part.pressed ? 38 : 22;
+      const dot = (x: number, y: number) => `<circle cx="${x}" cy="${y}" r="2.5" fill="${t.stroke}"/>`;
+      return body(`M4 4 H${w - 16} V56 H4 Z`, t) + line(52, 20, w, 20, t.wire) + line(52, 40, w, 40, t.wire)
+        + dot(18, 18) + dot(48, 18) + dot(18, 42) + dot(48, 42)
+        + line(14, bar, 52, bar, part.pressed ? t.on : t.stroke) + line(33, 8, 33, bar, t.stroke) + line(27, 8, 39, 8, t.stroke);
+    }
     case 'clock':
       return body(`M4 4 H${w - 16} V36 H4 Z`, t) + `<path d="M12 28 H20 V12 H30 V28 H40 V12 H50 V28 H56" fill="none" stroke="${t.stroke}" stroke-width="2"/>`
         + line(w - 16, 20, w, 20, t.wire);

@@ -1,7 +1,9 @@
 /**
- * Contact-bounce model of a push button: after each change the contact opens and closes again a few
- * times (1–3 times, each stage lasting 2–4 gate delays) before it rests at the new level. Seeded, so a
- * run is repeatable: the same seed gives the same bounces.
+ * Contact-bounce model of a push button, a changeover contact: one action moves the common from one
+ * throw to the other (break before make). The throw it leaves opens cleanly; the throw it meets closes,
+ * then opens and closes again a few times (1–3 times, each stage lasting 2–4 gate delays) before it
+ * rests closed. Pressing meets the normally-open throw (`out`), releasing the normally-closed one
+ * (`outn`). Seeded, so a run is repeatable: the same seed gives the same bounces.
  */
 import { L0, L1 } from './codes';
 
@@ -17,7 +19,7 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-interface BounceEvent { time: number; part: number; value: number }
+interface BounceEvent { time: number; part: number; pin: number; value: number }
 
 /** Pending bounce toggles of all buttons, in time order. */
 export class Bouncer {
@@ -28,13 +30,17 @@ export class Bouncer {
     this.rnd = mulberry32(seed);
   }
 
-  /** Schedules the bounces after part `part` changed to `value` (0 or 1) at time now. */
+  /**
+   * Schedules the bounces of the throw met after part `part` changed to `value` (0 or 1) at time now:
+   * pin 0 (`out`) after a press, pin 1 (`outn`) after a release; it was just closed, and closes last.
+   */
   bounce(part: number, value: number, now: number): void {
+    const pin = value === L1 ? 0 : 1;
     const pairs = 1 + Math.floor(this.rnd() * 3);
     let t = now;
     for (let k = 0; k < pairs * 2; k++) {
       t += this.gateDelay * (2 + Math.floor(this.rnd() * 3));
-      this.events.push({ time: t, part, value: k % 2 === 0 ? (value === L1 ? L0 : L1) : value });
+      this.events.push({ time: t, part, pin, value: k % 2 === 0 ? L0 : L1 });
     }
     this.events.sort((a, b) => a.time - b.time);
   }
@@ -44,11 +50,11 @@ export class Bouncer {
     return this.events.length ? this.events[0].time : Infinity;
   }
 
-  /** Applies (via drive) every toggle due at or before t. */
-  due(t: number, drive: (part: number, value: number) => void): void {
+  /** Applies (via drive: part, its output pin, level) every toggle due at or before t. */
+  due(t: number, drive: (part: number, pin: number, value: number) => void): void {
     while (this.events.length && this.events[0].time <= t) {
       const e = this.events.shift()!;
-      drive(e.part, e.value);
+      drive(e.part, e.pin, e.value);
     }
   }
 

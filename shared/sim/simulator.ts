@@ -340,7 +340,7 @@ export class Simulator {
   private advance(t: number): void {
     this.now = t;
     if (this.warmHead < this.warmQueue.length) this.wake(t);
-    this.bouncer.due(t, (part, v) => this.driveSource(part, v));
+    this.bouncer.due(t, (part, pin, v) => this.driveSlot(this.slotStart[part] + pin, v));
     if (this.wheel.queued) this.wheel.drain(t, this.applyBound);
     this.evalDirty();
   }

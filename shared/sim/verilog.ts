@@ -76,7 +76,7 @@ function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, str
     case 'switch': case 'button': case 'clock': {
       const port = ports.get(p)!;
       const r = o(0) === port ? [] : [`  assign ${o(0)} = ${port};`];
-      if (p.kind === 'switch' && !unused(p.outputs[1])) r.push(`  not ${inst()} (${o(1)}, ${port});`);
+      if ((p.kind === 'switch' || p.kind === 'button') && !unused(p.outputs[1])) r.push(`  not ${inst()} (${o(1)}, ${port});`);
       return r;
     }
     case 'const':

@@ -1,11 +1,12 @@
 /**
- * Input parts: toggle switch (out and its complement outn, as a changeover switch gives), push button,
- * clock, constant. They are set from outside (Simulator.setInput) and drive at once (no delay).
+ * Input parts: toggle switch (out and its complement outn, as a changeover switch gives), push button
+ * (a changeover contact: out the normally-open throw, outn the normally-closed one — complements except
+ * while a throw bounces, see bounce.ts), clock, constant. They are set from outside (Simulator.setInput) and drive at once (no delay).
  */
 import type { Part } from '../../board';
 import { L0, L1, not4 } from '../codes';
 
-/** Outputs of an input part at level v: out = v, and outn = not v for a switch. */
+/** Outputs of an input part at level v: out = v, and outn = not v for a switch or button. */
 export function sourceOutputs(v: number, out: Uint8Array): void {
   out[0] = v;
   out[1] = not4(v);

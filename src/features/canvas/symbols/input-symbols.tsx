@@ -1,6 +1,6 @@
 /**
  * Input parts: a changeover toggle switch drawn as a lever that swings between its two throws,
- * a momentary push button whose plunger drops while held, a clock with a square-wave glyph,
+ * a momentary changeover push button whose plunger drops while held, a clock with a square-wave glyph,
  * and a constant 0 or 1.
  */
 import type { PointerEvent } from 'react';
@@ -39,27 +39,30 @@ export function SwitchSymbol({ part, w, level, shown }: SymbolProps<SwitchPart> 
 
 type ButtonPart = Extract<Part, { kind: 'button' }>;
 
+/**
+ * A changeover push button: the bar rests under the normally-closed pair of contacts (`outn`, upper
+ * stub) and a press moves it down to the open pair (`out`, lower stub).
+ */
 export function ButtonSymbol({ part, w, level, shown }: SymbolProps<ButtonPart> & { shown: boolean }) {
   const actions = usePartActions();
-  const drop = shown ? 6 : 0;
+  const bar = shown ? 38 : 22;
   const down = (e: PointerEvent) => { e.stopPropagation(); (e.target as Element).setPointerCapture?.(e.pointerId); actions.pressButton(part.id, true); };
   const up = (e: PointerEvent) => { e.stopPropagation(); actions.pressButton(part.id, false); };
   return (
     <>
-      <rect x={4} y={4} width={w - 20} height={32} rx={6} {...strokeProps} strokeWidth={1.5} />
-      <Stub x1={52} y1={20} x2={w} y2={20} level={level('out')} />
-      {/* two fixed contacts and a bridging bar on a plunger */}
-      <circle cx={18} cy={28} r={2.5} fill={INK.stroke} />
-      <circle cx={48} cy={28} r={2.5} fill={INK.stroke} />
-      <g style={{ transform: `translateY(${drop}px)`, transition: 'transform 60ms linear' }}>
-        <line x1={14} y1={18} x2={52} y2={18} stroke={shown ? SIGNAL.high : INK.stroke} strokeWidth={3} strokeLinecap="round" />
-        <line x1={33} y1={8} x2={33} y2={18} stroke={INK.stroke} strokeWidth={2} />
-        <line x1={27} y1={8} x2={39} y2={8} stroke={INK.stroke} strokeWidth={2} />
+      <rect x={4} y={4} width={w - 20} height={52} rx={6} {...strokeProps} strokeWidth={1.5} />
+      <Stub x1={52} y1={20} x2={w} y2={20} level={level('outn')} />
+      <Stub x1={52} y1={40} x2={w} y2={40} level={level('out')} />
+      {[18, 48].flatMap((x) => [18, 42].map((y) => <circle key={`${x}-${y}`} cx={x} cy={y} r={2.5} fill={INK.stroke} />))}
+      <g style={{ transform: `translateY(${bar - 22}px)`, transition: 'transform 60ms linear' }}>
+        <line x1={14} y1={22} x2={52} y2={22} stroke={shown ? SIGNAL.high : INK.stroke} strokeWidth={3} strokeLinecap="round" />
       </g>
+      <line x1={33} y1={8} x2={33} y2={bar} stroke={INK.stroke} strokeWidth={2} />
+      <line x1={27} y1={8} x2={39} y2={8} stroke={INK.stroke} strokeWidth={2} />
       {/* contact bounce is on: a small zigzag in the corner */}
-      {part.bounce && <path d="M50 33 l2 -4 l2 4 l2 -4 l2 4" fill="none" stroke={INK.dim} strokeWidth={1} data-testid="bounce-mark" />}
+      {part.bounce && <path d="M50 53 l2 -4 l2 4 l2 -4 l2 4" fill="none" stroke={INK.dim} strokeWidth={1} data-testid="bounce-mark" />}
       {/* only the plunger is the actuator (pressing must not start a drag); grab the lower edge to move the part */}
-      <rect x={10} y={2} width={46} height={24} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
+      <rect x={10} y={2} width={46} height={44} fill="transparent" className="nodrag gf-actuator" data-testid={`actuator-${part.id}`}
         style={{ cursor: 'pointer' }} onPointerDown={down} onPointerUp={up} onPointerCancel={up} />
     </>
   );
