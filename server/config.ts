@@ -72,7 +72,10 @@ export interface RateLimitConfig {
 export interface AnalyzeConfig {
   /** analyses per account per minute */
   perMinute: number;
-  /** a table with more inputs than this is computed in a worker thread (and streamed) */
+  /**
+   * a table with more inputs than this is computed in a worker thread (and streamed): exact minimisation
+   * can take seconds well below the row counts that make the JSON large, so only tiny tables stay inline
+   */
   inlineMaxInputs: number;
   /** wall-clock limit of one worker analysis (ms); past it the worker is stopped and 413 answered */
   timeLimitMs: number;
@@ -210,7 +213,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       signup: e.RATE_LIMIT_SIGNUP, resetRequest: e.RATE_LIMIT_RESET,
       invitations: e.RATE_LIMIT_INVITATIONS, invitationsWindowMs: 60 * 60 * 1000,
     },
-    analyze: { perMinute: e.RATE_LIMIT_ANALYZE, inlineMaxInputs: 12, timeLimitMs: e.ANALYZE_TIME_LIMIT_MS, workers: e.ANALYZE_WORKERS },
+    analyze: { perMinute: e.RATE_LIMIT_ANALYZE, inlineMaxInputs: 6, timeLimitMs: e.ANALYZE_TIME_LIMIT_MS, workers: e.ANALYZE_WORKERS },
     distDir: e.DIST_DIR,
     trustProxy: e.TRUST_PROXY,
     version: packageVersion(),

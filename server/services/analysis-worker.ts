@@ -1,22 +1,27 @@
-import { parentPort, workerData } from 'node:worker_threads';
+import { parentPort } from 'node:worker_threads';
 import { AnalysisError, type AnalyzeRequest } from '../../shared/analysis';
 import type { BoardFile } from '../../shared/board';
-import { analyzePending } from './analysis-table';
+import { analyzePending, type PendingAnalysis } from './analysis-table';
 
-/** A large analysis off the request thread: `workerData` in, one message out (the table's bytes transferred). */
-export type WorkerReply =
-  | { ok: true; result: import('./analysis-table').PendingAnalysis }
-  | { ok: false; analysisError?: { message: string; fields: Record<string, string> }; message: string };
+/** A job for the analysis worker. */
+export interface WorkerJob { id: number; board: BoardFile; req: AnalyzeRequest }
 
-const { board, req } = workerData as { board: BoardFile; req: AnalyzeRequest; entry: string };
-let reply: WorkerReply;
-try {
-  const result = analyzePending(board, req);
-  reply = { ok: true, result };
-  parentPort!.postMessage(reply, [...new Set(result.values.map((v) => v.buffer as ArrayBuffer))]);
-} catch (err) {
-  reply = err instanceof AnalysisError
-    ? { ok: false, analysisError: { message: err.message, fields: err.fields }, message: err.message }
-    : { ok: false, message: err instanceof Error ? err.message : String(err) };
-  parentPort!.postMessage(reply);
-}
+/** The worker's answer to a job (the table's bytes are transferred, not copied). */
+export type WorkerReply = { id: number } & (
+  | { ok: true; result: PendingAnalysis }
+  | { ok: false; analysisError?: { message: string; fields: Record<string, string> }; message: string }
+);
+
+// Large analyses off the request thread: one job at a time, as long as the worker lives.
+parentPort!.on('message', ({ id, board, req }: WorkerJob) => {
+  try {
+    const result = analyzePending(board, req);
+    const reply: WorkerReply = { id, ok: true, result };
+    parentPort!.postMessage(reply, [...new Set(result.values.map((v) => v.buffer as ArrayBuffer))]);
+  } catch (err) {
+    const reply: WorkerReply = err instanceof AnalysisError
+      ? { id, ok: false, analysisError: { message: err.message, fields: err.fields }, message: err.message }
+      : { id, ok: false, message: err instanceof Error ? err.message : String(err) };
+    parentPort!.postMessage(reply);
+  }
+});
