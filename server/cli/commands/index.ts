@@ -7,6 +7,8 @@ import { exportVerilog } from './export-verilog';
 import { analyze } from './analyze';
 import { convert } from './convert';
 import { buildSheetCommand } from './build-sheet';
+import { testVectorsCommand } from './test-vectors';
+import { diagnoseCommand } from './diagnose';
 
 export const COMMANDS: Record<string, CliCommand> = {
   simulate,
@@ -14,4 +16,6 @@ export const COMMANDS: Record<string, CliCommand> = {
   analyze,
   convert,
   'build-sheet': buildSheetCommand,
+  'test-vectors': testVectorsCommand,
+  diagnose: diagnoseCommand,
 };
