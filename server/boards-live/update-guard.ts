@@ -1,6 +1,6 @@
 import * as Y from 'yjs';
 import { WebSocket } from 'ws';
-import { checkDocChanges, emptyTouched, partsMap, touchedBy, wiresMap, type DocProblem, type DocTouched } from '../../shared/board';
+import { checkDocChanges, emptyTouched, metaMap, partsMap, touchedBy, wiresMap, type DocProblem, type DocTouched } from '../../shared/board';
 import { CLOSE, SocketRefusal, type CollabOptions } from './types';
 
 /** Bytes a document holds waiting for missing dependencies (Yjs pending structs and deletes). */
@@ -80,6 +80,10 @@ export class UpdateGuard {
 
   private cloneDoc(): Y.Doc {
     const shadow = new Y.Doc({ gc: this.doc.gc });
+    // typed first: a root first made by an update is a plain AbstractType, replaced when opened as a map
+    partsMap(shadow);
+    wiresMap(shadow);
+    metaMap(shadow);
     Y.applyUpdate(shadow, Y.encodeStateAsUpdate(this.doc));
     shadow.on('afterTransaction', this.collect);
     return shadow;

@@ -119,6 +119,8 @@ function rootNameOf(doc: Y.Doc, type: Y.AbstractType<any>): string {
 /**
  * Adds what transaction `tr` changed to `into`: the part, wire and meta keys (a change deep inside a
  * part map counts for that part) and stray content anywhere else. Read it from `afterTransaction`.
+ * Open the document's `parts`, `wires` and `meta` (partsMap…) before its first transaction: a root
+ * first made by an update is a plain AbstractType that Yjs replaces when it is opened as a map.
  */
 export function touchedBy(tr: Y.Transaction, into: DocTouched = emptyTouched()): DocTouched {
   const doc = tr.doc;
