@@ -15,6 +15,8 @@ import { BoardWorkspace, useBoardSession, type BoardSession } from '../../featur
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import { AnalysisPanel, useAnalysis } from '../../features/analysis';
+import { BuildPanel, useBuildSheet } from '../../features/build';
+import { useBoardHistory } from '../../features/snapshots';
 import type { ApiBoard } from '../../../shared/api';
 import { PageTitle } from '../../components/ui/page-title';
 
@@ -93,14 +95,21 @@ function BoardView({ board: b, me }: { board: ApiBoard; me: { id: number; name: 
 function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; name: string } | null; session: BoardSession }) {
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
+  const build = useBuildSheet(session.board);
+  const highlight = build.highlight ?? analysis.highlight;
+  // preview and compare show a snapshot read-only on the canvas, without the live levels
+  const history = useBoardHistory(board.id, board.role, session);
+  const live = !history.viewing;
   // The family is part of the live document (the bench's family select edits it for everyone), so the
   // caution follows the document, not the board row.
   return (
     <>
       <SafetyCaution family={session.board.family} />
       <PulseStyle wireIds={sim.pulsingWires} />
-      <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values} highlight={analysis.highlight}
-        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
+      {history.banner}
+      <BoardWorkspace session={history.session} levels={live ? sim.levels : undefined} partBadges={live ? sim.partBadges : undefined} onTryOut={live ? sim.tryOut.set : undefined}
+        tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
+        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} />{history.panel}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
         bottom={<TimingStrip {...sim.timing} />} />
     </>
   );

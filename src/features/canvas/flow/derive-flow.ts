@@ -5,6 +5,7 @@
  */
 import { allPins, splitPinRef, type BoardFile, type Part, type Wire } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
+import type { CompareMark } from '../../../../shared/render';
 import { placedShape } from '../lib/geometry';
 import type { PartBadge, PartNode, WireEdge } from './types';
 
@@ -19,6 +20,8 @@ export interface DeriveNodesInput {
   /** part id → live position while a collaborator drags it */
   remoteDrag?: ReadonlyMap<string, { x: number; y: number }>;
   readOnly: boolean;
+  /** part id → a snapshot compare's mark */
+  marks?: ReadonlyMap<string, CompareMark>;
 }
 
 /** Pin levels of a part as a short string (one character per pin, '-' where unknown). */
@@ -47,6 +50,7 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
     const fresh = input.badges?.get(part.id);
     const badge = fresh && old?.data.badge && old.data.badge.tone === fresh.tone && old.data.badge.text === fresh.text ? old.data.badge : fresh;
     const highlight = input.highlight?.has(part.id) ?? false;
+    const mark = input.marks?.get(part.id);
     const remoteColor = input.remoteSelection?.get(part.id);
     const drag = input.remoteDrag?.get(part.id);
     const x = drag ? drag.x : part.x;
@@ -54,7 +58,7 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
     if (old) {
       const d = old.data;
       if (d.part === part && d.levels === levels && d.shown === shown && d.badge === badge && d.highlight === highlight
-        && d.remoteColor === remoteColor && d.readOnly === input.readOnly && old.position.x === x && old.position.y === y) {
+        && d.remoteColor === remoteColor && d.readOnly === input.readOnly && d.mark === mark && old.position.x === x && old.position.y === y) {
         out[i] = old;
         return;
       }
@@ -69,7 +73,7 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
       draggable: !input.readOnly,
       connectable: !input.readOnly,
       deletable: !input.readOnly,
-      data: { part, levels, shown, badge, highlight, remoteColor, readOnly: input.readOnly },
+      data: { part, levels, shown, badge, highlight, remoteColor, readOnly: input.readOnly, mark },
     };
   });
   return out;
@@ -77,7 +81,7 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
 
 /** Edges for the wires, coloured by the level of each wire's `from` pin; unchanged wires keep their edge. */
 export function deriveEdges(wires: readonly Wire[], levels: ReadonlyMap<string, Level> | undefined, readOnly: boolean,
-  prev: ReadonlyMap<string, WireEdge>): WireEdge[] {
+  prev: ReadonlyMap<string, WireEdge>, marks?: ReadonlyMap<string, CompareMark>): WireEdge[] {
   const out: WireEdge[] = [];
   for (const wire of wires) {
     const from = splitPinRef(wire.from);
@@ -85,13 +89,14 @@ export function deriveEdges(wires: readonly Wire[], levels: ReadonlyMap<string, 
     if (!from || !to) continue;
     const level = levels?.get(wire.from);
     const old = prev.get(wire.id);
+    const mark = marks?.get(wire.id);
     if (old && old.source === from.part && old.sourceHandle === from.pin && old.target === to.part && old.targetHandle === to.pin
-      && old.data?.level === level && old.deletable === !readOnly) {
+      && old.data?.level === level && old.data?.mark === mark && old.deletable === !readOnly) {
       out.push(old);
       continue;
     }
     out.push({ id: wire.id, type: 'wire', source: from.part, sourceHandle: from.pin, target: to.part, targetHandle: to.pin,
-      deletable: !readOnly, data: { level } });
+      deletable: !readOnly, data: { level, mark } });
   }
   return out;
 }

@@ -19,7 +19,7 @@ import { FarContext } from './zoom-detail';
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
 function PartNodeView({ data, selected }: NodeProps<PartNode>) {
-  const { part, levels, shown, badge, highlight, remoteColor, readOnly } = data;
+  const { part, levels, shown, badge, highlight, remoteColor, readOnly, mark } = data;
   const shape = useMemo(() => placedShape(part), [part]);
   const pinNames = useMemo(() => allPins(part), [part]);
   const [renaming, setRenaming] = useState(false);
@@ -31,6 +31,7 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const classes = ['gf-part', `gf-kind-${part.kind}`];
   if (selected) classes.push('gf-selected');
   if (highlight) classes.push('gf-highlight');
+  if (mark) classes.push(`gf-mark gf-mark-${mark}`);
   // A collaborator's selection (box-shadow) shows even when the part is selected here too (dashed outline).
   const outline = remoteColor ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
   return (

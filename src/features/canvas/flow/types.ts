@@ -2,6 +2,7 @@
 import type { Edge, Node } from '@xyflow/react';
 import type { Part } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
+import type { CompareMark } from '../../../../shared/render';
 
 export type BadgeTone = 'conflict' | 'oscillating' | 'undriven' | 'info';
 export interface PartBadge { tone: BadgeTone; text: string }
@@ -17,10 +18,14 @@ export interface PartNodeData extends Record<string, unknown> {
   /** colour of a collaborator who has this part selected */
   remoteColor?: string;
   readOnly: boolean;
+  /** a snapshot compare's mark (added, removed, changed) */
+  mark?: CompareMark;
 }
 export type PartNode = Node<PartNodeData, 'part'>;
 
 export interface WireEdgeData extends Record<string, unknown> {
   level?: Level;
+  /** a snapshot compare's mark */
+  mark?: CompareMark;
 }
 export type WireEdge = Edge<WireEdgeData, 'wire'>;

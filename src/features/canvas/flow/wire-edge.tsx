@@ -5,6 +5,7 @@
 import { memo } from 'react';
 import { BaseEdge, getSmoothStepPath, type EdgeProps } from '@xyflow/react';
 import { levelColor } from '../lib/colors';
+import { MARK_COLORS } from '../../../../shared/render';
 import type { WireEdge } from './types';
 
 function WireEdgeView({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<WireEdge>) {
@@ -12,11 +13,11 @@ function WireEdgeView({ id, sourceX, sourceY, targetX, targetY, sourcePosition, 
   const level = data?.level;
   const color = levelColor(level);
   const style = {
-    stroke: selected ? '#e6edf3' : color,
+    stroke: selected ? '#e6edf3' : data?.mark ? MARK_COLORS[data.mark] : color,
     // A high wire is drawn a little heavier; no CSS filter (a glow filter on every wire costs whole frames
     // when a large board pans on a machine without GPU compositing).
-    strokeWidth: selected ? 3 : level === '1' ? 2.5 : 2,
-    strokeDasharray: level === 'Z' ? '5 4' : undefined,
+    strokeWidth: selected ? 3 : data?.mark ? 3.5 : level === '1' ? 2.5 : 2,
+    strokeDasharray: data?.mark === 'removed' || level === 'Z' ? '5 4' : undefined,
   };
   return <BaseEdge id={id} path={path} style={style} interactionWidth={12} className={level ? `gf-wire gf-level-${level}` : 'gf-wire'} />;
 }

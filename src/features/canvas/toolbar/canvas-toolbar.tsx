@@ -19,27 +19,20 @@ function Tool({ onClick, disabled, title, children, testId }: { onClick(): void;
 interface Props {
   session: BoardSession;
   canvas: CanvasApi | null;
-  /** the element holding the React Flow viewport (for pictures) */
-  canvasEl: () => HTMLElement | null;
-  fitAll(): Promise<() => void>;
   onHelp(): void;
 }
 
-export function CanvasToolbar({ session, canvas, canvasEl, fitAll, onHelp }: Props) {
+export function CanvasToolbar({ session, canvas, onHelp }: Props) {
   const [busy, setBusy] = useState(false);
   const editing = !session.readOnly;
   const picture = async (format: 'png' | 'svg') => {
-    const el = canvasEl();
-    if (!el || !canvas) return;
     setBusy(true);
-    const restore = await fitAll();
     try {
-      const url = await renderBoardImage(el, canvas.nodes(), format);
+      const url = await renderBoardImage(session.board, format);
       download(url, boardFileName(session.board.title || 'board', format));
     } catch (err) {
       toast.error(`Could not make the ${format.toUpperCase()}: ${(err as Error).message}`);
     } finally {
-      restore();
       setBusy(false);
     }
   };

@@ -2,8 +2,8 @@
  * The board workspace: presence and tools on top, the parts tray on the left (editors only), the canvas
  * in the middle, optional panels in a collapsible right column and an optional resizable bottom dock.
  */
-import { useCallback, useRef, useState, type ReactNode } from 'react';
-import { ReactFlowProvider, useReactFlow } from '@xyflow/react';
+import { useState, type ReactNode } from 'react';
+import { ReactFlowProvider } from '@xyflow/react';
 import '@xyflow/react/dist/style.css';
 import '../canvas.css';
 import type { Level } from '../../../../shared/sim';
@@ -17,6 +17,7 @@ import { PartInspector } from '../inspector/part-inspector';
 import { PartsTray } from '../tray/parts-tray';
 import { BoardCanvas, type CanvasApi } from './board-canvas';
 import { BottomDock } from './bottom-dock';
+import type { OverlayProps } from './use-flow-state';
 
 export interface BoardWorkspaceProps {
   session: BoardSession;
@@ -29,6 +30,8 @@ export interface BoardWorkspaceProps {
   onTryOut?(partId: string, field: 'on' | 'pressed', value: boolean): void;
   /** the viewer's private switch/button values */
   tryOutValues?: ReadonlyMap<string, boolean>;
+  /** a snapshot compare's marks on parts and wires */
+  marks?: OverlayProps['marks'];
   panels?: ReactNode;
   bottom?: ReactNode;
 }
@@ -41,22 +44,12 @@ export function BoardWorkspace(props: BoardWorkspaceProps) {
   );
 }
 
-function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutValues, panels, bottom }: BoardWorkspaceProps) {
+function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tryOutValues, panels, bottom }: BoardWorkspaceProps) {
   const peers = usePeers(session.provider);
   const [armed, setArmed] = useState<TrayChoice | null>(null);
   const [help, setHelp] = useState(false);
   const [panelsOpen, setPanelsOpen] = useState(true);
   const [canvas, setCanvas] = useState<CanvasApi | null>(null);
-  const canvasBox = useRef<HTMLDivElement>(null);
-  const rf = useReactFlow();
-
-  // For pictures: show every part (only visible parts are rendered), then put the view back.
-  const fitAll = useCallback(async () => {
-    const before = rf.getViewport();
-    await rf.fitView({ padding: 0.05, duration: 0 });
-    await new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r)));
-    return () => void rf.setViewport(before);
-  }, [rf]);
 
   return (
     <div className="gf-workspace flex min-h-0 min-w-0 flex-1 flex-col" data-testid="board-workspace">
@@ -64,7 +57,7 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
         <PresenceBar me={session.user} peers={peers.peers} status={session.status} />
         {session.readOnly && <span className="rounded bg-mat-700 px-2 py-0.5 text-[11px] text-slate-300" data-testid="read-only-note">viewing · read-only</span>}
         <div className="ml-auto">
-          <CanvasToolbar session={session} canvas={canvas} canvasEl={() => canvasBox.current} fitAll={fitAll} onHelp={() => setHelp((h) => !h)} />
+          <CanvasToolbar session={session} canvas={canvas} onHelp={() => setHelp((h) => !h)} />
         </div>
         {panels ? (
           <button type="button" className="h-7 rounded px-2 text-xs text-slate-300 hover:bg-mat-700" data-testid="toggle-panels"
@@ -74,9 +67,9 @@ function Workspace({ session, levels, partBadges, highlight, onTryOut, tryOutVal
       <div className="flex min-h-0 flex-1">
         {!session.readOnly && <PartsTray armed={armed} onArm={setArmed} />}
         <div className="flex min-h-0 min-w-0 flex-1 flex-col">
-          <div ref={canvasBox} className="relative min-h-0 flex-1">
+          <div className="relative min-h-0 flex-1">
             <BoardCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
-              highlight={highlight} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setCanvas} />
+              highlight={highlight} marks={marks} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setCanvas} />
             {!(panels && panelsOpen) && <PartInspector session={session} placement="float" />}
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">

@@ -6,6 +6,7 @@
 import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { applyEdgeChanges, applyNodeChanges, type EdgeChange, type NodeChange } from '@xyflow/react';
 import type { Level } from '../../../../shared/sim';
+import type { CompareMark } from '../../../../shared/render';
 import { byId, deriveEdges, deriveNodes, mergeLocal } from '../flow/derive-flow';
 import type { PartBadge, PartNode, WireEdge } from '../flow/types';
 import type { PeersView } from '../session/awareness';
@@ -16,6 +17,8 @@ export interface OverlayProps {
   partBadges?: ReadonlyMap<string, PartBadge>;
   highlight?: ReadonlySet<string>;
   tryOutValues?: ReadonlyMap<string, boolean>;
+  /** a snapshot compare's marks on parts and wires */
+  marks?: { parts: ReadonlyMap<string, CompareMark>; wires: ReadonlyMap<string, CompareMark> };
 }
 
 export function useFlowState(session: BoardSession, overlay: OverlayProps, peers: PeersView) {
@@ -25,16 +28,16 @@ export function useFlowState(session: BoardSession, overlay: OverlayProps, peers
   const derivedNodes = useMemo(() => {
     const list = deriveNodes({
       parts: board.parts, levels: overlay.levels, badges: overlay.partBadges, highlight: overlay.highlight,
-      tryOut: overlay.tryOutValues, remoteSelection: peers.selection, remoteDrag: peers.dragging, readOnly,
+      tryOut: overlay.tryOutValues, remoteSelection: peers.selection, remoteDrag: peers.dragging, readOnly, marks: overlay.marks?.parts,
     }, nodeCache.current);
     nodeCache.current = byId(list);
     return list;
-  }, [board.parts, overlay.levels, overlay.partBadges, overlay.highlight, overlay.tryOutValues, peers.selection, peers.dragging, readOnly]);
+  }, [board.parts, overlay.levels, overlay.partBadges, overlay.highlight, overlay.tryOutValues, peers.selection, peers.dragging, readOnly, overlay.marks?.parts]);
   const derivedEdges = useMemo(() => {
-    const list = deriveEdges(board.wires, overlay.levels, readOnly, edgeCache.current);
+    const list = deriveEdges(board.wires, overlay.levels, readOnly, edgeCache.current, overlay.marks?.wires);
     edgeCache.current = byId(list);
     return list;
-  }, [board.wires, overlay.levels, readOnly]);
+  }, [board.wires, overlay.levels, readOnly, overlay.marks?.wires]);
 
   const [nodes, setNodes] = useState<PartNode[]>([]);
   const [edges, setEdges] = useState<WireEdge[]>([]);
