@@ -10,9 +10,24 @@ const KEYWORDS = new Set(('always and assign automatic begin buf bufif0 bufif1 c
   'specparam strong0 strong1 supply0 supply1 table task time tran tranif0 tranif1 tri tri0 tri1 triand trior trireg unsigned ' +
   'use uwire vectored wait wand weak0 weak1 while wire wor xnor xor').split(' '));
 
-/** Hands out unique simple identifiers. */
+const SIMPLE = /^[A-Za-z_][A-Za-z0-9_$]*$/;
+
+/**
+ * Hands out unique identifiers. A user's label that is a legal identifier keeps its name; a keyword
+ * becomes an escaped identifier (IEEE Std 1364-2005 §3.7.1: a backslash, the characters, then white
+ * space — `\begin `), so no label ever takes a name from another label. Generated names (nets,
+ * instances, registers) come after the labels and give way to them.
+ */
 export class VerilogNames {
+  /** identifiers in use; an escaped identifier counts by its characters (`\cpu3 ` is `cpu3`) */
   private readonly used = new Set<string>();
+
+  /** The port name of a label: the label itself, escaped when it is a keyword, else as take(). */
+  label(label: string): string {
+    if (!SIMPLE.test(label) || this.used.has(label)) return this.take(label, 'p_');
+    this.used.add(label);
+    return KEYWORDS.has(label) ? `\\${label} ` : label;
+  }
 
   /** A unique identifier made from `raw`: other characters become `_`, keywords and leading digits get a prefix. */
   take(raw: string, prefix = 'n_'): string {

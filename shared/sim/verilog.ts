@@ -31,7 +31,7 @@ export function toVerilog(board: BoardFile, netlist: Netlist, opts: VerilogOptio
   const ports = new Map<CompiledPart, string>();
   for (const p of [...netlist.inputs, ...netlist.outputs]) {
     if (p.kind === 'const') continue;
-    ports.set(p, names.take(p.name, 'p_'));
+    ports.set(p, names.label(p.name));
   }
   // a net takes the name of its input port when an input drives it, else of its output port, else its own
   const wire: string[] = new Array(netlist.nets.length);
