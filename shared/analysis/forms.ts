@@ -5,10 +5,13 @@ import { minimiseOnes, minimiseZeros, type FunctionRows, type MinimiseOptions } 
 /** Covers with more terms than this are not written out as strings (a 20-input parity has 524,288). */
 export const MAX_FORMATTED_TERMS = 4096;
 
-/** Minimal two-level forms of one output, in the machine form of CONTRACTS §2 and as terms for display. */
+/**
+ * Minimal two-level forms of one output, in the machine form of CONTRACTS §2 and as terms for display.
+ * An output that is X or Z in every row has no forms: `unknown` is true and `sop`/`pos` are null.
+ */
 export interface OutputForms {
-  sop: string;
-  pos: string;
+  sop: string | null;
+  pos: string | null;
   /** every minimal SOP found (the first is `sop`) */
   sopAll: string[];
   posAll: string[];
@@ -18,6 +21,19 @@ export interface OutputForms {
   function?: FunctionId;
   /** why a form is not exact or not complete */
   note?: string;
+  /** true when the output is X or Z in every row: its function is unknown */
+  unknown?: true;
+}
+
+/** Forms of an output that has a 0 or a 1 in some row. */
+export type KnownForms = OutputForms & { sop: string; pos: string };
+
+/** The forms of an output that is X or Z in every row: no expression, said so. */
+export function unknownForms(): { forms: OutputForms; terms: OutputTerms } {
+  return {
+    forms: { sop: null, pos: null, sopAll: [], posAll: [], exact: true, unknown: true, note: 'the output is X or Z in every row: its function is unknown' },
+    terms: { sop: [], pos: [] },
+  };
 }
 
 /** The same forms kept as terms, for readable rendering. */
@@ -30,7 +46,7 @@ export interface OutputTerms {
  * Minimal SOP and POS of a function given per row (0, 1, or 2 = don't-care), over the named inputs
  * (first name most significant). Minimal = fewest terms, then fewest literals.
  */
-export function minimalForms(names: string[], fn: FunctionRows, opts: MinimiseOptions = {}): { forms: OutputForms; terms: OutputTerms } {
+export function minimalForms(names: string[], fn: FunctionRows, opts: MinimiseOptions = {}): { forms: KnownForms; terms: OutputTerms } {
   const n = names.length;
   const ones = minimiseOnes(n, fn, opts);
   const zeros = minimiseZeros(n, fn, opts);
@@ -39,7 +55,7 @@ export function minimalForms(names: string[], fn: FunctionRows, opts: MinimiseOp
   if (ones.covers.some(big) || zeros.covers.some(big)) notes.push(`a cover has more than ${MAX_FORMATTED_TERMS} terms; only its term count is given`);
   const sopAll = ones.covers.map((c) => (big(c) ? `(${c.length} terms)` : formatSop(sopTerms(c, names))));
   const posAll = zeros.covers.map((c) => (big(c) ? `(${c.length} terms)` : formatPos(posTerms(c, names))));
-  const forms: OutputForms = { sop: sopAll[0], pos: posAll[0], sopAll, posAll, exact: ones.exact && zeros.exact };
+  const forms: KnownForms = { sop: sopAll[0], pos: posAll[0], sopAll, posAll, exact: ones.exact && zeros.exact };
   if (n === 2) {
     const column = Array.from(fn, (v) => (v === 1 ? '1' : v === 0 ? '0' : '-')).join('');
     const id = functionIdOfColumn(column);

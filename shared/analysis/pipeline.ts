@@ -7,7 +7,7 @@
  */
 import type { Netlist } from '../sim';
 import { dontCareSets, type DontCares } from './dont-cares';
-import { minimalForms, type OutputForms, type OutputTerms } from './forms';
+import { minimalForms, unknownForms, type OutputForms, type OutputTerms } from './forms';
 import { functionMap, functionRows, type FunctionMapEntry } from './function-map';
 import type { MinimiseOptions } from './minimise';
 import { resolveSpec } from './table-spec';
@@ -77,7 +77,8 @@ export function* tableAnalysisSteps(table: TruthTable, req: AnalyzeRequest = {})
   const terms: Record<string, OutputTerms> = {};
   for (let o = 0; o < table.outputs.length; o++) {
     const name = table.outputs[o];
-    const f = minimalForms(table.inputs, functionRows(table, o, dontCares[name]), req.minimise);
+    // X or Z in every row: every row would be a don't-care and any form "minimal" — say unknown instead
+    const f = table.values[o].every((v) => v >= 2) ? unknownForms() : minimalForms(table.inputs, functionRows(table, o, dontCares[name]), req.minimise);
     forms[name] = f.forms;
     terms[name] = f.terms;
     // a big table's forms take a while per output: a yielding run may cancel in between

@@ -75,7 +75,7 @@ export const simulate: CliCommand = {
     if (values.cycles !== undefined) {
       if (!clock) throw new CliError('--cycles needs --clock LABEL');
       const n = Number(values.cycles);
-      if (!Number.isInteger(n) || n < 0 || n > MAX_CYCLES) throw new CliError(`--cycles: "${String(values.cycles)}" is not a whole number from 0 to ${MAX_CYCLES}`);
+      if (!Number.isInteger(n) || n < 1 || n > MAX_CYCLES) throw new CliError(`--cycles: "${String(values.cycles)}" must be a whole number ≥ 1 (at most ${MAX_CYCLES})`);
       cycles = n;
     } else if (clock) cycles = 1;
 

@@ -31,13 +31,14 @@ export function FormsView({ result, notation, focus, onFocus }: {
                 {focus === name ? 'Hide on board' : 'Show on board'}
               </button>
             </div>
-            {(['sop', 'pos'] as const).map((kind) => (
+            {f.unknown && <p className="mt-1.5 text-sm text-fuchsia-200" data-testid={`unknown-${name}`}>Unknown: {name} is X or Z in every row, so it has no expression.</p>}
+            {!f.unknown && (['sop', 'pos'] as const).map((kind) => (
               <div key={kind} className="mt-1.5">
                 <div className="text-[11px] uppercase tracking-wide text-slate-500">{kind === 'sop' ? 'minimal sum of products' : 'minimal product of sums'}</div>
-                <div className="text-sm text-slate-100">{t[kind].length || f[kind].length < 3 ? <ExpressionText terms={t[kind]} kind={kind} notation={notation} /> : <span className="text-slate-400">{f[kind]}</span>}</div>
+                <div className="text-sm text-slate-100">{t[kind].length || (f[kind] ?? '').length < 3 ? <ExpressionText terms={t[kind]} kind={kind} notation={notation} /> : <span className="text-slate-400">{f[kind]}</span>}</div>
                 <div className="flex items-start gap-1.5">
                   <code className="min-w-0 flex-1 break-all font-mono text-[11px] text-slate-400" data-testid={`${kind}-${name}`}>{f[kind]}</code>
-                  <button type="button" onClick={() => copy(f[kind])} className="shrink-0 rounded px-1.5 text-[11px] text-slate-300 hover:bg-mat-700" aria-label={`Copy the ${kind.toUpperCase()} of ${name}`}>Copy</button>
+                  <button type="button" onClick={() => copy(f[kind] ?? '')} className="shrink-0 rounded px-1.5 text-[11px] text-slate-300 hover:bg-mat-700" aria-label={`Copy the ${kind.toUpperCase()} of ${name}`}>Copy</button>
                 </div>
                 {(kind === 'sop' ? f.sopAll : f.posAll).length > 1 && (
                   <details className="text-[11px] text-slate-400">
@@ -48,7 +49,7 @@ export function FormsView({ result, notation, focus, onFocus }: {
               </div>
             ))}
             {!f.exact && <p className="mt-1 text-[11px] text-amber-300">Not proven minimal: {f.note}</p>}
-            {hasUnknown && <p className="mt-1 text-[11px] text-slate-400">Rows where {name} is X or Z are left free (don’t-care) in the forms.</p>}
+            {hasUnknown && !f.unknown && <p className="mt-1 text-[11px] text-slate-400">Rows where {name} is X or Z are left free (don’t-care) in the forms.</p>}
           </li>
         );
       })}
