@@ -1,12 +1,15 @@
 import type { BoardFile, Part } from '../../board';
 
-/** Fields that never change what the circuit does (position, look) or that are input values set live. */
-const NON_STRUCTURAL = new Set(['x', 'y', 'rotation', 'text', 'on', 'pressed']);
+/**
+ * Fields that never change what the circuit does (position, look, names) or that are input values set
+ * live. A label only names a signal: relabelling a lamp must not reset a counter (see `labelKey`).
+ */
+const NON_STRUCTURAL = new Set(['x', 'y', 'rotation', 'text', 'on', 'pressed', 'label']);
 
 /**
- * A key that changes only when the circuit itself changes (parts, their wiring, kinds, labels, family),
- * not when a part moves or a switch flips. Equal keys let the worker keep its simulator — and with it
- * every stored bit — and only set the new input values.
+ * A key that changes only when the circuit itself changes (parts, their wiring, kinds, family), not
+ * when a part moves, is relabelled or a switch flips. Equal keys let the worker keep its simulator — and
+ * with it every stored bit — and only set the new input values (and names).
  */
 export function structureKey(board: BoardFile): string {
   // Plain string building: this runs on every board change, and JSON with sorted keys cost ~80 ms for
@@ -20,6 +23,13 @@ export function structureKey(board: BoardFile): string {
     }
   }
   for (const w of board.wires) key += `\u0002${w.from}>${w.to}`;
+  return key;
+}
+
+/** The parts' labels, as one comparable string: when only this changes, the signals are renamed. */
+export function labelKey(board: BoardFile): string {
+  let key = '';
+  for (const part of board.parts) if (part.label !== undefined) key += `${part.id}=${part.label}\u0001`;
   return key;
 }
 

@@ -229,4 +229,35 @@ describe('LiveEngine', () => {
     h.engine.handle({ type: 'load', board: halfAdder({ a: true }), tryOut: [] });
     expect(h.last().values.s).toBe('1');
   });
+
+  it('keeps stored state when a lamp is relabelled, and names the signals by the new label', () => {
+    // 4-bit ripple counter of rising-edge D flip-flops: after k cycles Q3..Q0 = k mod 16 (common practice, no source)
+    const counter = (lamp0: string) => BoardFileSchema.parse({
+      format: 'gatefold-board', version: 1, title: 'Counter', family: 'ideal',
+      parts: [
+        { id: 'clk', kind: 'clock', label: 'CLK' },
+        ...[0, 1, 2, 3].map((i) => ({ id: `ff${i}`, kind: 'dff' })),
+        ...[0, 1, 2, 3].map((i) => ({ id: `q${i}`, kind: 'lamp', label: i === 0 ? lamp0 : `Q${i}` })),
+      ],
+      wires: [
+        { id: 'wc', from: 'clk.out', to: 'ff0.clk' },
+        ...[0, 1, 2, 3].flatMap((i) => [
+          { id: `wd${i}`, from: `ff${i}.qn`, to: `ff${i}.d` }, { id: `wq${i}`, from: `ff${i}.q`, to: `q${i}.in` },
+          ...(i < 3 ? [{ id: `wn${i}`, from: `ff${i}.qn`, to: `ff${i + 1}.clk` }] : []),
+        ]),
+      ],
+    });
+    const h = harness();
+    h.engine.handle({ type: 'load', board: counter('Q0'), tryOut: [] });
+    for (let k = 0; k < 6; k++) h.engine.handle({ type: 'clock', action: 'step' });
+    const count = () => { const v = h.last().values; return Number.parseInt(`${v.q3}${v.q2}${v.q1}${v.q0}`, 2); };
+    expect(count()).toBe(6);
+    h.engine.handle({ type: 'load', board: counter('BIT0'), tryOut: [] });
+    expect(count()).toBe(6);
+    expect(h.compiled().at(-1)!.outputs.map((p) => p.label)).toEqual(['BIT0', 'Q1', 'Q2', 'Q3']);
+    expect(h.compiled().at(-1)!.nets).toContain('BIT0');
+    h.engine.handle({ type: 'clock', action: 'step' });
+    expect(count()).toBe(7);
+    expect(h.errors()).toEqual([]);
+  });
 });

@@ -3,7 +3,7 @@ import { clockHalfPeriod } from '../clock-period';
 import { compileBoard } from '../compile';
 import { Simulator } from '../simulator';
 import type { Netlist, SettleReport, SimulatorOptions } from '../types';
-import { documentValue, structureKey } from './board-diff';
+import { documentValue, labelKey, structureKey } from './board-diff';
 import { ClockDriver, type Timers } from './clock-driver';
 
 /**
@@ -47,6 +47,7 @@ export interface LiveOptions {
  */
 export class LiveSimulation {
   private key = '';
+  private labels = '';
   private current = new Map<string, Part>();
   private tryOut = new Map<string, boolean>();
   private applied = new Map<string, boolean>();
@@ -73,13 +74,30 @@ export class LiveSimulation {
     if (tryOut) this.tryOut = new Map(tryOut);
     this.current = new Map(board.parts.map((p) => [p.id, p]));
     const key = structureKey(board);
-    if (key === this.key && this.sim) {
+    const labels = labelKey(board);
+    if (key === this.key && this.sim && this.netlist) {
+      if (labels === this.labels) {
+        this.apply(true);
+        return false;
+      }
+      // only names changed: same circuit, same Simulator (every stored bit kept), new signal names
+      this.labels = labels;
+      this.rename(this.netlist, compileBoard(board, { family: board.family }));
+      this.opts.onCompile?.(this.netlist, this.sim);
       this.apply(true);
-      return false;
+      return true;
     }
     this.key = key;
+    this.labels = labels;
     this.compile(board);
     return true;
+  }
+
+  /** Gives the running netlist the part and net names of `fresh`, a compile of the same circuit. */
+  private rename(netlist: Netlist, fresh: Netlist): void {
+    fresh.parts.forEach((p, i) => { netlist.parts[i].name = p.name; netlist.parts[i].part = p.part; });
+    fresh.nets.forEach((n, i) => { netlist.nets[i].name = n.name; });
+    netlist.problems.splice(0, netlist.problems.length, ...fresh.problems);
   }
 
   private compile(board: BoardFile): void {
