@@ -3,6 +3,7 @@ import { RequireUser, RootLayout } from './layout';
 import { BoardMembersPage } from './routes/board-members';
 import { BoardPage } from './routes/board-page';
 import { BoardsListPage } from './routes/boards-list';
+import { BuildSheetPage } from '../features/build';
 import { InvitationAcceptPage } from './routes/invitation-accept';
 import { OutboxListPage } from './routes/outbox-list';
 import { OutboxMessagePage } from './routes/outbox-message';
@@ -37,6 +38,7 @@ export const routes: RouteObject[] = [
           page('boards', <BoardsListPage />),
           page('boards/:id', <BoardPage />),
           page('boards/:id/members', <BoardMembersPage />),
+          page('boards/:id/build-sheet', <BuildSheetPage />),
           page('outbox', <OutboxListPage />),
           page('outbox/:id', <OutboxMessagePage />),
         ],

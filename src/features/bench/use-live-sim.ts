@@ -156,6 +156,8 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
       setRate: (hz: number) => send({ type: 'rate', hz }),
     },
     resetState: () => send({ type: 'reset-state' }),
+    /** power on again with the tube heaters cold for `units` time units (shared/sim warm-up) */
+    warmUp: (units: number) => send({ type: 'warm-up', units }),
     tryOut: { active: tryOut, values: tryOutValues, set: setTry, clear: clearTry },
     timing: {
       trace: traceRef.current,

@@ -5,3 +5,4 @@ export { BoardWorkspace } from './workspace/board-workspace';
 export type { BoardWorkspaceProps } from './workspace/board-workspace';
 export type { PartBadge, BadgeTone } from './flow/types';
 export { ImportBoardButton } from './io/import-board-button';
+export { importBoardFile } from './io/board-file-io';
