@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeBoard } from '../../shared/analysis';
 import { BuildError, convertBoard, type ConvertTarget } from '../../shared/build';
 import { compileBoard, Simulator, toVerilog } from '../../shared/sim';
-import type { BoardFile } from '../../shared/board';
+import { BoardFileSchema, type BoardFile } from '../../shared/board';
 import { randomCircuit } from '../helpers/random-circuit';
 import { runIverilog } from '../sim/iverilog';
 import { oneGate, tubeLogicUnit, type OneGateKind } from './boards';
@@ -71,9 +71,9 @@ describe('convertBoard: random circuits', () => {
   it('turns a ring of three NOTs into one inverter fed back (double inversions removed) that still oscillates', () => {
     // Ring oscillator: an odd number of inverters oscillates, an even number latches (CHECKS.md; Rabaey et
     // al., Digital Integrated Circuits — from memory). NOT(NOT(x)) = x, so three in a ring are one.
-    const ring = { format: 'gatefold-board', version: 1, title: 'ring', family: 'ideal', parts: [
+    const ring = BoardFileSchema.parse({ format: 'gatefold-board', version: 1, title: 'ring', family: 'ideal', parts: [
       { id: 'n0', kind: 'not', x: 0, y: 0 }, { id: 'n1', kind: 'not', x: 60, y: 0 }, { id: 'n2', kind: 'not', x: 120, y: 0 }, { id: 'y', kind: 'lamp', label: 'Y', x: 200, y: 0 },
-    ], wires: [{ id: 'w0', from: 'n0.out', to: 'n1.in0' }, { id: 'w1', from: 'n1.out', to: 'n2.in0' }, { id: 'w2', from: 'n2.out', to: 'n0.in0' }, { id: 'w3', from: 'n2.out', to: 'y.in' }] } as BoardFile;
+    ], wires: [{ id: 'w0', from: 'n0.out', to: 'n1.in0' }, { id: 'w1', from: 'n1.out', to: 'n2.in0' }, { id: 'w2', from: 'n2.out', to: 'n0.in0' }, { id: 'w3', from: 'n2.out', to: 'y.in' }] });
     const converted = convertBoard(ring, 'nor').board;
     expect(converted.parts.filter((p) => p.kind === 'nor')).toHaveLength(1);
     expect(new Simulator(compileBoard(converted)).settle().settled).toBe(false);
@@ -83,10 +83,10 @@ describe('convertBoard: random circuits', () => {
 describe('convertBoard: storage and the demo', () => {
   it('turns an SR latch into a NOR latch that sets, holds and resets', () => {
     // SR NOR latch (CHECKS.md): S,R = 10 → Q = 1; 00 hold; 01 → Q = 0.
-    const board = { format: 'gatefold-board', version: 1, title: 'sr', family: 'ideal', parts: [
+    const board = BoardFileSchema.parse({ format: 'gatefold-board', version: 1, title: 'sr', family: 'ideal', parts: [
       { id: 's', kind: 'switch', label: 'S', x: 0, y: 0 }, { id: 'r', kind: 'switch', label: 'R', x: 0, y: 60 },
       { id: 'l', kind: 'srlatch', x: 100, y: 0 }, { id: 'q', kind: 'lamp', label: 'Q', x: 200, y: 0 },
-    ], wires: [{ id: 'w0', from: 's.out', to: 'l.s' }, { id: 'w1', from: 'r.out', to: 'l.r' }, { id: 'w2', from: 'l.q', to: 'q.in' }] } as BoardFile;
+    ], wires: [{ id: 'w0', from: 's.out', to: 'l.s' }, { id: 'w1', from: 'r.out', to: 'l.r' }, { id: 'w2', from: 'l.q', to: 'q.in' }] });
     const converted = convertBoard(board, 'nor');
     expect(converted.gates).toBe(2);
     const sim = new Simulator(compileBoard(converted.board));
@@ -112,7 +112,7 @@ describe('convertBoard: storage and the demo', () => {
       // its power-on state is the gate loop's, so only loaded values are compared
       const sim = new Simulator(compileBoard(converted));
       sim.settle();
-      const step = (a: number, b: number, load: number) => {
+      const step = (a: 0 | 1, b: 0 | 1, load: 0 | 1) => {
         sim.setInput('a', a); sim.setInput('b', b); sim.setInput('load', load); sim.settle();
         return sim.outputValues().Q;
       };
@@ -121,7 +121,7 @@ describe('convertBoard: storage and the demo', () => {
   });
 
   it('refuses a board with nothing to convert', () => {
-    const board = { format: 'gatefold-board', version: 1, title: 'empty', family: 'ideal', parts: [{ id: 'a', kind: 'switch', label: 'A', x: 0, y: 0 }], wires: [] } as BoardFile;
+    const board = BoardFileSchema.parse({ format: 'gatefold-board', version: 1, title: 'empty', family: 'ideal', parts: [{ id: 'a', kind: 'switch', label: 'A', x: 0, y: 0 }], wires: [] });
     expect(() => convertBoard(board, 'nor')).toThrow(BuildError);
     expect(() => convertBoard(board, 'nor')).toThrow(/nothing to convert/);
   });
