@@ -10,3 +10,4 @@ export * from './validate';
 export * from './ydoc';
 export * from './edits';
 export * from './doc-check';
+export * from './display-name';

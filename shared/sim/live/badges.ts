@@ -39,7 +39,7 @@ export function partBadges(netlist: Netlist, report: SettleReport, family: Famil
   for (const ref of report.undrivenInputs) {
     const dot = ref.lastIndexOf('.');
     if (dot <= 0) continue;
-    const text = `Input ${ref.slice(dot + 1)} is not driven: an open input of ${family.title} reads ${family.floating}.`;
+    const text = `Input ${ref.slice(dot + 1)} is not driven (${family.title}: an open input reads ${family.floating}).`;
     add(out, ref.slice(0, dot), 'undriven', text);
   }
   return out;

@@ -105,7 +105,7 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   return (
     <>
       <SafetyCaution family={session.board.family} />
-      <PulseStyle wireIds={sim.pulsingWires} />
+      <PulseStyle wireIds={live ? sim.pulsingWires : []} lampIds={live ? sim.oscillatingOutputs : []} />
       {history.banner}
       <BoardWorkspace session={history.session} levels={live ? sim.levels : undefined} partBadges={live ? sim.partBadges : undefined} onTryOut={live ? sim.tryOut.set : undefined}
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}

@@ -1,4 +1,5 @@
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
+import { displayNames } from '../../../shared/board';
 import { familyOf } from '../../../shared/sim';
 import { ClockControls } from './clock-controls';
 import { FamilyField } from './family-field';
@@ -11,6 +12,7 @@ import type { LiveSim, LiveSimSession } from './use-live-sim';
 export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSession }) {
   const unitNs = familyOf(sim.family).timeUnitNs;
   const hasClock = sim.inputs.some((p) => p.kind === 'clock');
+  const names = useMemo(() => displayNames(session.board), [session.board]);
   return (
     <section aria-label="Bench" data-testid="bench-panel" className="space-y-3 p-3 text-sm">
       <header className="flex items-center gap-2">
@@ -23,12 +25,12 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
         {sim.inputs.length === 0 ? (
           <p className="text-xs text-slate-500">No switches, buttons, clocks or constants yet.</p>
         ) : (
-          <ul>{sim.inputs.map((p) => <InputRow key={p.partId} port={p} onSet={sim.setInput} />)}</ul>
+          <ul>{sim.inputs.map((p) => <InputRow key={p.partId} port={p} name={names.get(p.partId) ?? p.label} onSet={sim.setInput} />)}</ul>
         )}
         {sim.tryOut.active && <p className="mt-1 text-[11px] text-slate-500">You are viewing: input changes are a private try-out.</p>}
       </Block>
       <Block title="Outputs">
-        {sim.outputs.length === 0 ? <p className="text-xs text-slate-500">No lamps or probes yet.</p> : <ul>{sim.outputs.map((p) => <OutputRow key={p.partId} port={p} />)}</ul>}
+        {sim.outputs.length === 0 ? <p className="text-xs text-slate-500">No lamps or probes yet.</p> : <ul>{sim.outputs.map((p) => <OutputRow key={p.partId} port={p} name={names.get(p.partId) ?? p.label} />)}</ul>}
       </Block>
       <Block title={hasClock ? 'Clock' : 'Clock (no clock part on the board)'}>
         <ClockControls clock={sim.clock} />
@@ -38,7 +40,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
           Reset stored state
         </button>
         <div className="mt-2">
-          <SettleStatus report={sim.report} family={sim.family} />
+          <SettleStatus report={sim.report} family={sim.family} board={session.board} names={names} />
         </div>
         <dl className="mt-2 grid grid-cols-2 gap-x-2 font-mono text-[11px] text-slate-400" data-testid="bench-stats">
           <dt>sim time</dt>

@@ -3,17 +3,17 @@ import { LevelChip } from './level-chip';
 
 const btn = 'h-6 rounded border border-mat-600 bg-mat-800 px-2 text-xs hover:border-mat-500 hover:bg-mat-700 disabled:opacity-50';
 
-/** One input of the board with its value and, for switches and buttons, a control to operate it. */
-export function InputRow({ port, onSet, disabled }: { port: PortValue; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
+/** One input of the board (its readable name, the id in the tooltip) with its value and, for switches and buttons, a control to operate it. */
+export function InputRow({ port, name, onSet, disabled }: { port: PortValue; name: string; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
   const high = port.value === '1';
   return (
     <li className="flex items-center gap-2 py-0.5" data-testid={`bench-input-${port.label}`}>
-      <span className="w-16 truncate font-mono text-slate-200" title={port.partId}>{port.label}</span>
+      <span className="w-16 truncate font-mono text-slate-200" title={`id ${port.partId}`}>{name}</span>
       <span className="w-14 text-[11px] text-slate-500">{port.kind}</span>
       <LevelChip level={port.value} />
       <span className="ml-auto">
         {port.kind === 'switch' && (
-          <button type="button" className={btn} disabled={disabled} aria-pressed={high} aria-label={`Switch ${port.label}`} onClick={() => onSet(port.partId, !high)}>
+          <button type="button" className={btn} disabled={disabled} aria-pressed={high} aria-label={`Switch ${name}`} onClick={() => onSet(port.partId, !high)}>
             {high ? 'Turn off' : 'Turn on'}
           </button>
         )}
@@ -22,7 +22,7 @@ export function InputRow({ port, onSet, disabled }: { port: PortValue; onSet(par
             type="button"
             className={btn}
             disabled={disabled}
-            aria-label={`Press ${port.label}`}
+            aria-label={`Press ${name}`}
             onPointerDown={(e) => {
               e.currentTarget.setPointerCapture?.(e.pointerId);
               onSet(port.partId, true);
@@ -39,17 +39,21 @@ export function InputRow({ port, onSet, disabled }: { port: PortValue; onSet(par
   );
 }
 
-/** One output (lamp or probe) and what it reads. */
-export function OutputRow({ port }: { port: PortValue }) {
+/** One output (lamp or probe) and what it reads; on a net that does not settle, that it oscillates. */
+export function OutputRow({ port, name }: { port: PortValue; name: string }) {
   return (
-    <li className="flex items-center gap-2 py-0.5" data-testid={`bench-output-${port.label}`}>
-      <span className="w-16 truncate font-mono text-slate-200" title={port.partId}>{port.label}</span>
+    <li className="flex items-center gap-2 py-0.5" data-testid={`bench-output-${port.label}`} data-oscillating={port.oscillating ? 'true' : undefined}>
+      <span className="w-16 truncate font-mono text-slate-200" title={`id ${port.partId}`}>{name}</span>
       <span className="w-14 text-[11px] text-slate-500">{port.kind}</span>
-      <LevelChip level={port.value} />
+      {port.oscillating ? (
+        <span className="inline-flex h-5 items-center rounded border border-signal-x/60 bg-signal-x/20 px-1 font-mono text-xs text-signal-x"
+          title="this net never settles: it keeps changing">oscillating</span>
+      ) : <LevelChip level={port.value} />}
       {port.kind === 'lamp' && (
         <span
           aria-hidden="true"
-          className={port.value === '1' ? 'ml-auto h-3 w-3 rounded-full bg-signal-high shadow-[0_0_8px_#ffb347]' : 'ml-auto h-3 w-3 rounded-full border border-mat-500 bg-mat-800'}
+          className={port.oscillating ? 'ml-auto h-3 w-3 animate-pulse rounded-full bg-signal-x'
+            : port.value === '1' ? 'ml-auto h-3 w-3 rounded-full bg-signal-high shadow-[0_0_8px_#ffb347]' : 'ml-auto h-3 w-3 rounded-full border border-mat-500 bg-mat-800'}
         />
       )}
     </li>

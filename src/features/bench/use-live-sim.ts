@@ -21,6 +21,8 @@ type State = Extract<LiveUpdate, { type: 'state' }> & { keys: string[] };
 
 export interface PortValue extends LivePort {
   value: Level;
+  /** on a net that does not settle: `value` is only the level of the moment */
+  oscillating: boolean;
 }
 
 const NO_REPORT: LiveReport = { settled: true, oscillating: [], conflicts: [], undrivenInputs: [], races: [], powerOn: [] };
@@ -130,7 +132,10 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   const partBadges = useMemo(() => new Map<string, Badge>((state?.badges ?? []).map(([id, tone, text]) => [id, { tone, text }])), [state]);
   const pulsing = useMemo<ReadonlySet<string>>(() => new Set(state?.pulsing ?? []), [state]);
   const pulsingWires = useMemo(() => pulsingWireIds(session.board.wires, pulsing), [session.board.wires, pulsing]);
-  const withValue = (ports: LivePort[] | undefined): PortValue[] => (ports ?? []).map((p) => ({ ...p, value: state?.values[p.partId] ?? 'X' }));
+  const withValue = (ports: LivePort[] | undefined): PortValue[] => (ports ?? []).map((p) => ({
+    ...p, value: state?.values[p.partId] ?? 'X', oscillating: pulsing.has(`${p.partId}.in`) || pulsing.has(`${p.partId}.out`),
+  }));
+  const outputs = withValue(compiled?.outputs);
 
   return {
     ready: Boolean(compiled && state),
@@ -143,7 +148,9 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
     report: state?.report ?? NO_REPORT,
     partBadges,
     inputs: withValue(compiled?.inputs),
-    outputs: withValue(compiled?.outputs),
+    outputs,
+    /** lamps and probes on a net that does not settle */
+    oscillatingOutputs: outputs.filter((p) => p.oscillating).map((p) => p.partId),
     setInput,
     stats: { time: state?.time ?? 0, events: state?.events ?? 0, lastEvents: state?.lastEvents ?? 0 },
     clock: {

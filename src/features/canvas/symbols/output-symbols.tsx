@@ -14,8 +14,8 @@ export function LampSymbol({ h, level }: SymbolProps<LampPart>) {
     <>
       <Stub x1={0} y1={cy} x2={cx - 14} y2={cy} level={v} />
       {/* the glow: two soft halos (no blur filter, which is costly on large boards) */}
-      {lit && <circle cx={cx} cy={cy} r={21} fill={SIGNAL.high} opacity={0.12} />}
-      {lit && <circle cx={cx} cy={cy} r={17.5} fill={SIGNAL.high} opacity={0.25} />}
+      {lit && <circle cx={cx} cy={cy} r={21} fill={SIGNAL.high} opacity={0.12} className="gf-glow" />}
+      {lit && <circle cx={cx} cy={cy} r={17.5} fill={SIGNAL.high} opacity={0.25} className="gf-glow" />}
       <circle cx={cx} cy={cy} r={14} {...strokeProps} fill={lit ? SIGNAL.high : INK.fill} stroke={lit ? '#ffd08a' : INK.stroke}
         data-lit={lit ? 'true' : 'false'} className="gf-bulb" />
       {/* the filament */}
