@@ -19,7 +19,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
         <h2 className="font-semibold text-amber-300">Bench</h2>
         {!sim.ready && !sim.error && <span className="text-xs text-slate-500">starting the simulation…</span>}
       </header>
-      {sim.tryOut.active && sim.tryOut.values.size > 0 && <TryOutChip onReset={sim.tryOut.clear} />}
+      {sim.tryOut.active && (sim.tryOut.values.size > 0 || sim.tryOut.clock) && <TryOutChip onReset={sim.tryOut.clear} />}
       {sim.error && <p role="alert" className="rounded border border-rose-800 bg-rose-950/50 p-2 text-xs text-rose-200">Simulation stopped: {sim.error}</p>}
       <Block title="Inputs">
         {sim.inputs.length === 0 ? (
@@ -34,6 +34,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
       </Block>
       <Block title={hasClock ? 'Clock' : 'Clock (no clock part on the board)'}>
         <ClockControls clock={sim.clock} />
+        {sim.tryOut.active && <p className="mt-1 text-[11px] text-slate-500">You are viewing: your clock steps are a private try-out.</p>}
       </Block>
       <Block title="State">
         <button type="button" onClick={sim.resetState} className="h-7 rounded border border-mat-600 bg-mat-800 px-2.5 text-xs hover:bg-mat-700" title="Latches and flip-flops back to their power-on value; gate loops to X">

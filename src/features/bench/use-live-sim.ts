@@ -37,6 +37,8 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   const [state, setState] = useState<State | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [tryOutValues, setTryOutValues] = useState<ReadonlyMap<string, boolean>>(() => new Map());
+  // a viewer who steps or runs the clock has left the shared state too: that is a try-out as well
+  const [clockTried, setClockTried] = useState(false);
   const [chosen, setChosen] = useState<string[] | null>(null);
   const traceRef = useRef<Trace>(emptyTrace());
   const [traceVersion, setTraceVersion] = useState(0);
@@ -117,7 +119,17 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
     tryOutRef.current = new Map();
     setTryOutValues(tryOutRef.current);
     send({ type: 'clear-try-out' });
-  }, [send]);
+    if (clockTried) {
+      send({ type: 'clock', action: 'pause' });
+      send({ type: 'reset-state' });
+      setClockTried(false);
+    }
+  }, [send, clockTried]);
+  /** A clock command; for a viewer it marks the view as a try-out. */
+  const clockAction = useCallback((action: 'run' | 'pause' | 'step') => {
+    if (tryOut && action !== 'pause') setClockTried(true);
+    send({ type: 'clock', action });
+  }, [send, tryOut]);
 
   /** Sets an input from the bench: a private try-out for viewers, a document edit for editors. */
   const setInput = useCallback((partId: string, value: boolean) => {
@@ -157,15 +169,16 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
       running: state?.clock.running ?? false,
       rate: state?.clock.rate ?? 1,
       cycles: state?.clock.cycles ?? 0,
-      run: () => send({ type: 'clock', action: 'run' }),
-      pause: () => send({ type: 'clock', action: 'pause' }),
-      step: () => send({ type: 'clock', action: 'step' }),
+      run: () => clockAction('run'),
+      pause: () => clockAction('pause'),
+      step: () => clockAction('step'),
       setRate: (hz: number) => send({ type: 'rate', hz }),
     },
     resetState: () => send({ type: 'reset-state' }),
     /** power on again with the tube heaters cold for `units` time units (shared/sim warm-up) */
     warmUp: (units: number) => send({ type: 'warm-up', units }),
-    tryOut: { active: tryOut, values: tryOutValues, set: setTry, clear: clearTry },
+    /** a viewer's private changes: input values, and whether they stepped or ran the clock themselves */
+    tryOut: { active: tryOut, values: tryOutValues, clock: clockTried, set: setTry, clear: clearTry },
     timing: {
       trace: traceRef.current,
       version: traceVersion,
