@@ -3,13 +3,18 @@
  * no level is neutral grey). Memoised like the parts.
  */
 import { memo } from 'react';
-import { BaseEdge, getSmoothStepPath, type EdgeProps } from '@xyflow/react';
+import { BaseEdge, getSmoothStepPath, useInternalNode, type EdgeProps } from '@xyflow/react';
 import { levelColor } from '../lib/colors';
 import { MARK_COLORS } from '../../../../shared/render';
+import { selfLoopPath } from './self-loop-path';
 import type { WireEdge } from './types';
 
-function WireEdgeView({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<WireEdge>) {
-  const [path] = getSmoothStepPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, borderRadius: 4, offset: 12 });
+function WireEdgeView({ id, source, target, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, selected }: EdgeProps<WireEdge>) {
+  const node = useInternalNode(source);
+  // a part wired to itself: the step path would run through its body, so go around it
+  const box = source === target && node ? { ...node.internals.positionAbsolute, width: node.measured.width ?? 0, height: node.measured.height ?? 0 } : null;
+  const path = box ? selfLoopPath(sourceX, sourceY, targetX, targetY, box)
+    : getSmoothStepPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, borderRadius: 4, offset: 12 })[0];
   const level = data?.level;
   const color = levelColor(level);
   const style = {
