@@ -28,6 +28,8 @@ import { analyzeRouter } from './http/routes/analyze';
 import { buildRouter } from './http/routes/build';
 import { mountSnapshots } from './snapshots';
 import { createAnalysisRunner } from './services/analysis-runner';
+import { bringupRouter } from './http/routes/bringup';
+import { createBringupFeature } from './services/bringup';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -121,6 +123,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   app.use('/api', buildRouter());
   ctx.boardContent = exampleBoardContent(boardRegistry);
   app.use('/api', mountSnapshots(ctx));
+  app.use('/api', bringupRouter(services, createBringupFeature({ db, uploadDir: config.uploadDir, events, readBoardFile: (id) => boardRegistry.readBoardFile(id) })));
 
   app.use('/api', apiNotFound);
   const client = clientRouter(config.distDir);
