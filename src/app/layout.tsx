@@ -20,7 +20,7 @@ function UserMenu({ user }: { user: ApiUser }) {
   return (
     <div className="flex items-center gap-3">
       <span className="flex items-center gap-2 text-sm text-slate-200" data-testid="current-user">
-        <Avatar name={user.name} size="sm" />
+        <Avatar name={user.name} userId={user.id} size="sm" />
         <span className="hidden sm:inline">{user.name}</span>
         {user.isAdmin && <span className="rounded border border-mat-600 px-1 font-mono text-[10px] text-slate-400">admin</span>}
       </span>

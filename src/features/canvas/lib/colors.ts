@@ -39,11 +39,3 @@ export function levelColor(level: Level | undefined): string {
 }
 
 /** Presence colours for collaborators (chosen away from the signal colours). */
-export const PRESENCE_COLORS = ['#4cc9f0', '#80ed99', '#c77dff', '#ff7b72', '#f4d35e', '#56cfe1', '#e5989b', '#b8f2e6'];
-
-/** A stable colour for a user id. */
-export function presenceColor(userId: string): string {
-  let h = 0;
-  for (let i = 0; i < userId.length; i++) h = (h * 31 + userId.charCodeAt(i)) >>> 0;
-  return PRESENCE_COLORS[h % PRESENCE_COLORS.length];
-}

@@ -10,11 +10,13 @@ export function usePeers(provider: WebsocketProvider): PeersView {
   useEffect(() => {
     const aw = provider.awareness;
     let raf = 0;
-    const read = () => { raf = 0; setView((prev) => keepSame(prev, readPeers(aw.getStates(), aw.clientID))); };
+    const read = () => { raf = 0; setView((prev) => keepSame(prev, readPeers(aw.getStates(), aw.clientID, { meta: aw.meta, now: Date.now() }))); };
     const onChange = () => { if (!raf) raf = requestAnimationFrame(read); };
     aw.on('change', onChange);
+    // a peer whose connection dropped sends nothing: look again now and then to grey them out
+    const tick = setInterval(onChange, 5000);
     read();
-    return () => { aw.off('change', onChange); if (raf) cancelAnimationFrame(raf); };
+    return () => { aw.off('change', onChange); clearInterval(tick); if (raf) cancelAnimationFrame(raf); };
   }, [provider]);
   return view;
 }

@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import * as Y from 'yjs';
 import { Awareness } from 'y-protocols/awareness';
-import { readPeers, throttle } from './awareness';
+import { AWAY_AFTER_MS, readPeers, throttle } from './awareness';
 
 describe('readPeers', () => {
   it('reads other clients\u2019 cursors, selections and drags from real awareness states, skipping itself and malformed states', () => {
@@ -36,5 +36,14 @@ describe('throttle', () => {
     t(4);
     t.flush();
     expect(calls).toEqual([1, 3, 4]);
+  });
+
+  it('marks a peer whose state was not renewed for 20 s as away', () => {
+    const user = (id: string) => ({ user: { id, name: id, color: '#4cc9f0' }, cursor: null, selection: [] });
+    const states = new Map<number, unknown>([[1, user('me')], [2, user('fresh')], [3, user('gone')]]);
+    const now = 100_000;
+    const meta = new Map([[2, { lastUpdated: now - 1000 }], [3, { lastUpdated: now - AWAY_AFTER_MS - 1 }]]);
+    const view = readPeers(states, 1, { meta, now });
+    expect(view.peers.map((p) => [p.user.id, p.away])).toEqual([['fresh', false], ['gone', true]]);
   });
 });

@@ -22,6 +22,20 @@ export interface Peer {
   user: PresenceUser;
   cursor: { x: number; y: number } | null;
   selection: string[];
+  /** no renewal of their state for a while: their connection has dropped (they are shown greyed out) */
+  away: boolean;
+}
+
+/**
+ * A client renews its awareness state every 15 s (y-protocols' outdatedTimeout / 2) and others drop it
+ * after 30 s; a state not renewed for 20 s belongs to someone whose connection has dropped.
+ */
+export const AWAY_AFTER_MS = 20_000;
+
+/** When each client's state was last renewed (the awareness `meta`), and the time now, for `away`. */
+export interface Freshness {
+  meta: ReadonlyMap<number, { lastUpdated: number }>;
+  now: number;
 }
 
 export interface PeersView {
@@ -34,14 +48,16 @@ export interface PeersView {
 }
 
 /** What the other clients show: their cursors, selections and drags. Malformed states are skipped. */
-export function readPeers(states: ReadonlyMap<number, unknown>, localClientId: number): PeersView {
+export function readPeers(states: ReadonlyMap<number, unknown>, localClientId: number, fresh?: Freshness): PeersView {
   const view: PeersView = { peers: [], selection: new Map(), dragging: new Map() };
   for (const [clientId, raw] of states) {
     if (clientId === localClientId) continue;
     const parsed = PresenceStateSchema.safeParse(raw);
     if (!parsed.success) continue;
     const s = parsed.data;
-    view.peers.push({ clientId, user: s.user, cursor: s.cursor ?? null, selection: s.selection ?? [] });
+    const seen = fresh?.meta.get(clientId)?.lastUpdated;
+    const away = fresh !== undefined && seen !== undefined && fresh.now - seen > AWAY_AFTER_MS;
+    view.peers.push({ clientId, user: s.user, cursor: s.cursor ?? null, selection: s.selection ?? [], away });
     for (const id of s.selection ?? []) if (!view.selection.has(id)) view.selection.set(id, s.user.color);
     for (const d of s.dragging ?? []) view.dragging.set(d.id, { x: d.x, y: d.y });
   }

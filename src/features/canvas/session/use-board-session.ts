@@ -9,7 +9,7 @@ import { WebsocketProvider } from 'y-websocket';
 import type { BoardFile } from '../../../../shared/board';
 import { docToBoard } from '../../../../shared/board';
 import { createUndoManager } from './undo';
-import { presenceColor } from '../lib/colors';
+import { personColor } from '../../../lib/person-color';
 import { stabilizeBoard } from '../flow/derive-flow';
 import type { PresenceUser } from './awareness';
 
@@ -79,7 +79,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
 
   const user = useMemo<PresenceUser>(() => {
     const id = String(me?.id ?? `guest-${live.doc.clientID}`);
-    return { id, name: me?.name ?? guestName(), color: presenceColor(id) };
+    return { id, name: me?.name ?? guestName(), color: personColor(id) };
   }, [me, live]);
 
   // Who am I (for presence): the caller may say; otherwise ask the API (a guest gets 401 and stays "Guest").

@@ -15,7 +15,7 @@ export function MemberAvatars({ boardId }: { boardId: number }) {
   return (
     <div className="flex items-center" aria-label={`Members: ${names}`} title={names} data-testid="member-avatars">
       {list.slice(0, SHOWN).map((m, i) => (
-        <Avatar key={m.userId} name={m.name} size="sm" className={i > 0 ? '-ml-1.5' : undefined} />
+        <Avatar key={m.userId} name={m.name} userId={m.userId} size="sm" className={i > 0 ? '-ml-1.5' : undefined} />
       ))}
       {list.length > SHOWN && <span className="ml-1.5 font-mono text-xs text-slate-400">+{list.length - SHOWN}</span>}
     </div>

@@ -21,7 +21,7 @@ export function MemberListPanel({ boardId, currentUserId }: { boardId: number; c
         <ul className="flex flex-col gap-2" data-testid="member-list">
           {members.data.members.map((m) => (
             <li key={m.userId} className="flex items-center gap-2.5">
-              <Avatar name={m.name} />
+              <Avatar name={m.name} userId={m.userId} />
               <div className="min-w-0 flex-1">
                 <div className="truncate text-sm text-slate-100">
                   {m.name}

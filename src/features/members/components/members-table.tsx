@@ -33,7 +33,7 @@ export function MembersTable({ boardId, members, myRole, myUserId, onLeft }: Pro
         header: 'Name',
         cell: (c) => (
           <span className="flex items-center gap-2">
-            <Avatar name={c.getValue()} size="sm" />
+            <Avatar name={c.getValue()} userId={c.row.original.userId} size="sm" />
             <span>{c.getValue()}</span>
             {c.row.original.userId === myUserId && <span className="text-xs text-slate-500">(you)</span>}
           </span>
