@@ -62,7 +62,7 @@ export function boardFileRouter(services: Services, boards: Pick<BoardRegistry, 
         const key = p.id ?? p.path;
         if (!(key in fields)) fields[key] = p.message;
       }
-      throw badRequest('invalid_board', `The board file has ${parsed.problems.length} problem(s): ${parsed.problems[0].message}`, fields);
+      throw badRequest('invalid_board', `The board file has ${parsed.problems.length === 1 ? 'a problem' : `${parsed.problems.length} problems`}: ${parsed.problems[0].message}`, fields);
     }
     const file = canonicalBoard(parsed.board);
     const title = file.title.trim().slice(0, 200) || 'Imported board';

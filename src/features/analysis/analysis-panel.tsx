@@ -7,6 +7,7 @@ import { PortPicker } from './port-picker';
 import { toCsv, toTsv } from './table-export';
 import { TruthTableView } from './truth-table-view';
 import type { Analysis } from './use-analysis';
+import { plural } from '../../lib/plural';
 
 function download(name: string, text: string, type: string) {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -36,7 +37,7 @@ export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Analysis</h2>
         <span className="text-xs text-slate-500" data-testid="analysis-status">
-          {status === 'running' ? 'computing…' : status === 'cancelled' ? 'cancelled' : status === 'done' && result ? `${result.rowCount} rows in ${Math.round(result.ms)} ms` : ''}
+          {status === 'running' ? 'computing…' : status === 'cancelled' ? 'cancelled' : status === 'done' && result ? `${plural(result.rowCount, 'row')} in ${Math.round(result.ms)} ms` : ''}
         </span>
         {status === 'cancelled' && <Button size="sm" variant="ghost" onClick={analysis.rerun}>Run again</Button>}
       </header>

@@ -9,7 +9,7 @@ export function FunctionMapView({ result, select }: { result: AnalysisResult; se
     <div className="overflow-x-auto rounded border border-mat-700" data-testid="function-map">
       <table className="w-full border-collapse text-xs">
         <caption className="px-2 py-1 text-left text-slate-400">
-          Function map: {select.join(', ')} select; data {data.length ? data.join(', ') : '(none)'}{data.length === 2 ? ` (A = ${data[0]}, B = ${data[1]})` : ''}
+          Function map: {select.join(', ')} select; data {data.length ? data.join(', ') : '(none)'}{data.length === 2 && (data[0] !== 'A' || data[1] !== 'B') ? ` (A = ${data[0]}, B = ${data[1]})` : ''}
         </caption>
         <thead className="bg-mat-800 text-slate-300">
           <tr>

@@ -1,5 +1,6 @@
 import { MAX_TABLE_INPUTS } from '../../../shared/analysis';
 import type { PortChoice } from './protocol';
+import { plural } from '../../lib/plural';
 
 function Checks({ legend, ports, chosen, onChange, testId }: { legend: string; ports: PortChoice[]; chosen: string[]; onChange(next: string[]): void; testId: string }) {
   // a newly ticked port goes last; the order (first = most significant) is kept otherwise
@@ -46,7 +47,7 @@ export function PortPicker({ inputs, outputs, chosenInputs, chosenOutputs, selec
   const selectable = chosenInputs.map((n) => inputs.find((p) => p.name === n)).filter((p): p is PortChoice => p !== undefined);
   return (
     <div className="space-y-1.5">
-      <Checks legend={`Inputs (${chosenInputs.length}, ${2 ** chosenInputs.length} rows)`} ports={inputs} chosen={chosenInputs} onChange={onInputs} testId="pick-inputs" />
+      <Checks legend={`Inputs (${chosenInputs.length}, ${plural(2 ** chosenInputs.length, 'row')})`} ports={inputs} chosen={chosenInputs} onChange={onInputs} testId="pick-inputs" />
       <Order chosen={chosenInputs} onChange={onInputs} />
       {chosenInputs.length > MAX_TABLE_INPUTS && <p role="alert" className="text-xs text-rose-300">At most {MAX_TABLE_INPUTS} inputs (about a million rows).</p>}
       <Checks legend="Outputs" ports={outputs} chosen={chosenOutputs} onChange={onOutputs} testId="pick-outputs" />

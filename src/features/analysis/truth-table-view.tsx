@@ -4,6 +4,7 @@ import { useVirtualizer } from '@tanstack/react-virtual';
 import { CODE_CHARS } from '../../../shared/analysis';
 import { cn } from '../../lib/cn';
 import type { AnalysisResult } from './protocol';
+import { plural } from '../../lib/plural';
 
 // 16 px rows keep a million-row table (16.8 M px) under every browser's tallest element
 const ROW_PX = 16;
@@ -59,7 +60,7 @@ export function TruthTableView({ result, dontCares, onToggle }: {
   return (
     <div ref={scrollRef} className="max-h-72 overflow-auto rounded border border-mat-700" data-testid="truth-table" aria-rowcount={result.rowCount + 1}>
       <table className="w-full border-collapse font-mono text-xs">
-        <caption className="sr-only">Truth table, {result.rowCount} rows</caption>
+        <caption className="sr-only">Truth table, {plural(result.rowCount, 'row')}</caption>
         <thead className="sticky top-0 bg-mat-800">
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>

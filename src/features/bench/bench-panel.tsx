@@ -7,6 +7,7 @@ import { InputRow, OutputRow } from './port-rows';
 import { SettleStatus } from './settle-status';
 import { TryOutChip } from './try-out-chip';
 import type { LiveSim, LiveSimSession } from './use-live-sim';
+import { plural } from '../../lib/plural';
 
 /** The bench: every input and output with its value, the clock, stored state, settle status and family. */
 export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSession }) {
@@ -49,7 +50,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
           <dt>events</dt>
           <dd>{sim.stats.events}</dd>
           <dt>last settle</dt>
-          <dd>{sim.stats.lastEvents} events</dd>
+          <dd>{plural(sim.stats.lastEvents, 'event')}</dd>
         </dl>
       </Block>
       <Block title="Family">

@@ -32,8 +32,10 @@ export function downloadBoardFile(board: BoardFile): void {
 function importError(status: number, body: unknown): ApiError {
   const err = (body as { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null)?.error;
   const fields = err?.fields ?? {};
-  const details = Object.values(fields).filter((v) => typeof v === 'string');
-  const message = [err?.message ?? `The server answered ${status}`, ...details.slice(0, 6)].join(' — ');
+  const head = err?.message ?? `The server answered ${status}`;
+  // the server's message may already quote a problem: each problem is said once
+  const details = Object.values(fields).filter((v) => typeof v === 'string' && !head.includes(v));
+  const message = [head, ...details.slice(0, 6)].join(' — ');
   return new ApiError(status, err?.code ?? `http_${status}`, message, fields);
 }
 

@@ -112,7 +112,8 @@ export function useCanvasCommands(deps: Deps) {
   useEffect(() => {
     let pasteFallback: ReturnType<typeof setTimeout> | null = null;
     const onKey = (e: KeyboardEvent) => {
-      if (isEditable(e.target)) return;
+      // keys inside a modal dialog are the dialog's (Esc must close it, Delete must not delete parts)
+      if (isEditable(e.target) || document.querySelector('dialog[open]')) return;
       const command = commandOf(e);
       if (!command) return;
       if (command === 'copy') {
