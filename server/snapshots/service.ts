@@ -119,19 +119,22 @@ export function createSnapshotsService({ db, registry, boards, retention, onTake
     return snapshotsDb.deleteSnapshots(db, boardId, drop);
   };
 
-  const take = async (boardId: number, o: TakeOptions): Promise<ApiSnapshot> => {
-    const { state, board } = await current(boardId);
+  /** Stores a captured state as a snapshot (the board file is decoded from the state when not given). */
+  const store = async (boardId: number, captured: { state: Uint8Array; board?: BoardFile }, o: TakeOptions): Promise<ApiSnapshot> => {
+    const board = captured.board ?? boardOfState(captured.state);
     const createdAt = nowIso();
     const detail = board.parts.length > THUMB_DETAIL_LIMIT ? 'outline' : 'full';
     const id = await snapshotsDb.insertSnapshot(db, {
       boardId, name: (o.name ?? defaultName(o.kind, createdAt)).slice(0, 120), authorId: o.authorId, createdAt, kind: o.kind,
-      partCount: board.parts.length, wireCount: board.wires.length, state,
+      partCount: board.parts.length, wireCount: board.wires.length, state: captured.state,
       thumbnailSvg: renderBoardSvg(board, { maxSize: THUMB_SIZE, detail, margin: 20 }).svg, source: o.source,
     });
     onTaken?.(boardId);
     if (o.kind === 'automatic') await thin(boardId);
     return toApi(await row(boardId, id));
   };
+
+  const take = async (boardId: number, o: TakeOptions): Promise<ApiSnapshot> => store(boardId, await current(boardId), o);
 
   return {
     async list(boardId) {
@@ -157,14 +160,18 @@ export function createSnapshotsService({ db, registry, boards, retention, onTake
     async restore(boardId, id, userId) {
       const restored = toApi(await row(boardId, id));
       const target = await boardOf(boardId, id);
-      const beforeRestore = await take(boardId, { kind: 'before-restore', name: `Before restoring “${restored.name}”`, authorId: userId });
+      // The before-restore snapshot holds the board as it is now: its state is captured before the
+      // change and stored right after it, so drawing its picture and writing it do not delay the screens.
+      const room = registry.rooms.get(boardId);
+      const before = room ? { state: Y.encodeStateAsUpdate(room.doc), board: docToBoard(room.doc) } : await current(boardId);
       // One ordinary change computed against the live document (replaceWithBoard): every connected
       // screen receives it as an edit and later edits merge; the stored state is never swapped.
       await registry.writeBoardFile(boardId, target, userId);
       const user = await findUserById(db, userId);
       const notice: RestoreNotice = { snapshotId: id, snapshotName: restored.name, byUserId: userId, byName: user?.name ?? 'The owner', at: nowIso() };
-      const room = registry.rooms.get(boardId);
-      if (room) room.doc.transact(() => metaMap(room.doc).set(RESTORE_NOTICE_KEY, notice), new ServerOrigin(userId, 'restore-notice'));
+      const live = registry.rooms.get(boardId);
+      if (live) live.doc.transact(() => metaMap(live.doc).set(RESTORE_NOTICE_KEY, notice), new ServerOrigin(userId, 'restore-notice'));
+      const beforeRestore = await store(boardId, before, { kind: 'before-restore', name: `Before restoring “${restored.name}”`, authorId: userId });
       return { restored, beforeRestore };
     },
     async compare(boardId, id) {
