@@ -3,6 +3,7 @@
  * board through `POST /api/boards/import` (the server checks it and names the bad ids in its errors).
  */
 import type { BoardFile } from '../../../../shared/board';
+import { compileBoard, toVerilog } from '../../../../shared/sim';
 import { ApiError } from '../../../lib/api-client';
 
 /** A file name from a board title (letters, digits, dashes). */
@@ -26,6 +27,15 @@ export function download(data: Blob | string, fileName: string): void {
 /** Downloads the board file (the same JSON as the export route: `JSON.stringify` of the board). */
 export function downloadBoardFile(board: BoardFile): void {
   download(new Blob([JSON.stringify(board, null, 2) + '\n'], { type: 'application/json' }), boardFileName(board.title));
+}
+
+/**
+ * Downloads the board as structural Verilog (IEEE Std 1364), `<title>.v`: the same text as the command
+ * line's `export-verilog` (shared/sim toVerilog).
+ */
+export function downloadVerilog(board: BoardFile): void {
+  const text = toVerilog(board, compileBoard(board));
+  download(new Blob([text], { type: 'text/plain' }), boardFileName(board.title || 'board', 'v'));
 }
 
 /** The server's error for a refused import, with the problems it listed (they name the bad ids). */

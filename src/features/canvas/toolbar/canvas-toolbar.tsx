@@ -1,7 +1,7 @@
-/** The canvas toolbar: undo / redo of your own edits, rotate, duplicate, delete, file and picture export, help. */
+/** The canvas toolbar: undo / redo of your own edits, rotate, duplicate, delete, file, picture and Verilog export, help. */
 import { useState, type ReactNode } from 'react';
 import { toast } from 'sonner';
-import { download, boardFileName, downloadBoardFile } from '../io/board-file-io';
+import { download, boardFileName, downloadBoardFile, downloadVerilog } from '../io/board-file-io';
 import { renderBoardImage } from '../io/export-image';
 import { ImportBoardButton } from '../io/import-board-button';
 import type { BoardSession } from '../session/use-board-session';
@@ -52,6 +52,9 @@ export function CanvasToolbar({ session, canvas, onHelp }: Props) {
       <Tool testId="tool-export-file" title="Download the board file (.gatefold.json)" onClick={() => downloadBoardFile(session.board)}>⤓ File</Tool>
       <Tool testId="tool-export-png" title="Download a PNG picture of the board" disabled={busy} onClick={() => void picture('png')}>PNG</Tool>
       <Tool testId="tool-export-svg" title="Download an SVG picture of the board" disabled={busy} onClick={() => void picture('svg')}>SVG</Tool>
+      <Tool testId="tool-export-verilog" title="Download the board as structural Verilog (.v)" onClick={() => {
+        try { downloadVerilog(session.board); } catch (err) { toast.error(`Could not write the Verilog: ${(err as Error).message}`); }
+      }}>Verilog</Tool>
       {/* importing makes a new board of your own, so viewers may do it too (a guest without an account gets the server's 401) */}
       <ImportBoardButton label="⤒ Import" className="h-7 rounded px-2 text-xs text-slate-200 hover:bg-mat-700 disabled:opacity-40" />
       <span className="mx-1 h-4 w-px bg-mat-600" />
