@@ -28,10 +28,13 @@ export interface AnalyzeResult {
 export function analyzeJson(run: Pick<AnalysisRun, 'table' | 'forms' | 'functionMap'>): AnalyzeResult {
   const { table } = run;
   const k = table.inputs.length;
-  const rows = Array.from({ length: table.rowCount }, (_, r) => ({
-    in: k ? r.toString(2).padStart(k, '0') : '',
-    out: table.values.map((v) => CODE_CHARS[v[r]]).join(''),
-  }));
+  const rows: AnalyzeResult['rows'] = new Array(table.rowCount);
+  const { values } = table;
+  for (let r = 0; r < table.rowCount; r++) {
+    let out = '';
+    for (let o = 0; o < values.length; o++) out += CODE_CHARS[values[o][r]];
+    rows[r] = { in: k ? r.toString(2).padStart(k, '0') : '', out };
+  }
   const outputsInfo: Record<string, OutputInfo> = {};
   table.outputs.forEach((name, o) => { outputsInfo[name] = { ...run.forms[name], sequential: table.sequential[o] }; });
   return {

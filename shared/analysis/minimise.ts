@@ -34,16 +34,16 @@ export interface MinimiseOptions {
 /** Minimal sum-of-products covers of the rows marked 1 (rows marked 2 may go either way). */
 export function minimiseOnes(n: number, fn: FunctionRows, opts: MinimiseOptions = {}): MinimalCovers {
   const limit = opts.exactLimit ?? EXACT_INPUT_LIMIT;
+  const order = (cover: Cube[]) => [...cover].sort((a, b) => compareCubes(a, b, n));
+  if (!fn.includes(1)) return { covers: [[]], exact: true, truncated: false };
+  if (n > limit) {
+    return { covers: [order(expandCover(n, fn))], exact: false, truncated: false, note: `more than ${limit} inputs: heuristic cover, not proven minimal` };
+  }
   const care: number[] = [];
   const onDc: number[] = [];
   for (let m = 0; m < fn.length; m++) {
     if (fn[m] === 1) care.push(m);
     if (fn[m] !== 0) onDc.push(m);
-  }
-  const order = (cover: Cube[]) => [...cover].sort((a, b) => compareCubes(a, b, n));
-  if (!care.length) return { covers: [[]], exact: true, truncated: false };
-  if (n > limit) {
-    return { covers: [order(expandCover(n, fn))], exact: false, truncated: false, note: `more than ${limit} inputs: heuristic cover, not proven minimal` };
   }
   const primes = primeImplicants(n, onDc);
   if (primes.length * care.length > 5e7) {
