@@ -1,92 +1,82 @@
 /**
- * Truth-table speed: the levelised bit-parallel path against row-by-row event simulation on the same
- * 16-input, 1,000-gate combinational circuit, and the time of a 20-input (1,048,576-row) table.
+ * Analysis speed. Truth tables: the compiled bit-parallel program against the four-valued planes, the
+ * row-by-row event simulator and Icarus Verilog on the same board. Scaling: `analyze` on rings of gates
+ * and shift registers of six-NAND flip-flops, each size against the previous one (the goal: at most
+ * ×2.2 per doubling). Heavy rows (`npm run bench analysis`): the 8,000-gate sizes and exact minimisation
+ * of random functions.
  */
-import type { BenchRow } from './run';
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import type { BenchOptions, BenchRow } from './run';
 import { compileBoard, Simulator } from '../shared/sim';
-import { randomCircuit } from '../tests/helpers/random-circuit';
-import { enumerateTable, minimalForms, resolveSpec } from '../shared/analysis';
-import { minimiseOnes, minimiseZeros } from '../shared/analysis';
+import { analyzeBoard, CODE_CHARS, enumerateTable, resolveSpec } from '../shared/analysis';
+import { board16, board20, icarusTable, median } from './boards';
+import { ringBoard, shiftRegisterBoard } from './scaling-boards';
+import { minimisationRows } from './minimise-rows';
 
-/** mulberry32 (common practice, no source): the same functions on every run. */
-function seeded(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const ROOT = fileURLToPath(new URL('..', import.meta.url));
 
-/** Minimises `count` random n-input functions of the given density; proven counts and times. */
-function randomMinimisation(n: number, count: number, density: number): { proven: number; forms: number; totalMs: number; worstMs: number } {
-  let proven = 0;
-  let totalMs = 0;
-  let worstMs = 0;
-  for (let k = 0; k < count; k++) {
-    const rnd = seeded(1000 * n + k);
-    const fn = Uint8Array.from({ length: 1 << n }, () => (rnd() < density ? 1 : 0));
-    for (const run of [minimiseOnes, minimiseZeros]) {
-      const t0 = performance.now();
-      if (run(n, fn).exact) proven++;
-      const ms = performance.now() - t0;
-      totalMs += ms;
-      worstMs = Math.max(worstMs, ms);
-    }
-  }
-  return { proven, forms: 2 * count, totalMs, worstMs };
-}
-
-export default async function analysisBench(): Promise<BenchRow[]> {
-  const rows: BenchRow[] = [];
-  const board = randomCircuit({ seed: 7, inputs: 16, gates: 1000, outputs: 8 });
+function tableRows(): BenchRow[] {
+  const board = board16();
   const netlist = compileBoard(board);
   const spec = resolveSpec(netlist);
-  let t0 = performance.now();
-  enumerateTable(netlist, spec);
-  const cold = performance.now() - t0;
-  // the figure is the warm run (compiled code), as when the panel recomputes after an edit
-  t0 = performance.now();
+  const cold = (JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', 'bench/cold-table.ts'], { cwd: ROOT, encoding: 'utf8' })) as { ms: number }).ms;
   const table = enumerateTable(netlist, spec);
-  const fast = performance.now() - t0;
+  const warm = median(Array.from({ length: 21 }, () => { const t = performance.now(); enumerateTable(netlist, spec); return performance.now() - t; }));
+  const four = median(Array.from({ length: 9 }, () => { const t = performance.now(); enumerateTable(netlist, spec, { fourValued: true }); return performance.now() - t; }));
 
-  // the reference: one settle per row, inputs changed from the previous row (no power-on reset)
+  // the event simulator, one settle per row from the previous row's state, timed on 4,096 rows and scaled
   const sample = 4096;
   const sim = new Simulator(netlist);
-  let mismatches = 0;
-  t0 = performance.now();
+  let simMismatches = 0;
+  let t0 = performance.now();
   for (let r = 0; r < sample; r++) {
     spec.inputs.forEach((p, i) => sim.setInput(p.id, ((r >>> (15 - i)) & 1) as 0 | 1));
     sim.settle();
-    spec.outputs.forEach((o, i) => { if (sim.level(o.inputs[0]) !== '01XZ'[table.values[i][r]]) mismatches++; });
+    spec.outputs.forEach((o, i) => { if (sim.level(o.inputs[0]) !== CODE_CHARS[table.values[i][r]]) simMismatches++; });
   }
-  const slowSample = performance.now() - t0;
-  const slow = (slowSample * table.rowCount) / sample;
-  rows.push({ name: '16 inputs × 1,000 gates: bit-parallel table', value: fast, unit: 'ms', note: `65,536 rows, 8 outputs; first run ${cold.toFixed(0)} ms; event simulation ${slow.toFixed(0)} ms (ratio ${(slow / fast).toFixed(1)}x; timed on the first ${sample} rows and scaled; ${mismatches} mismatches)` });
+  const event = ((performance.now() - t0) * table.rowCount) / sample;
+  const icarus = icarusTable(board);
+  const ivMismatches = icarus.lines.filter((line, r) => line !== table.values.map((v) => CODE_CHARS[v[r]]).join('')).length + Math.abs(icarus.lines.length - table.rowCount);
 
-  const wide = randomCircuit({ seed: 11, inputs: 20, gates: 300, outputs: 8 });
+  const wide = board20();
   const wideNet = compileBoard(wide);
+  const wideSpec = resolveSpec(wideNet);
+  enumerateTable(wideNet, wideSpec);
+  const wideMs = median(Array.from({ length: 5 }, () => { const t = performance.now(); enumerateTable(wideNet, wideSpec); return performance.now() - t; }));
   t0 = performance.now();
-  enumerateTable(wideNet, resolveSpec(wideNet));
-  rows.push({ name: '20 inputs × 300 gates: bit-parallel table', value: performance.now() - t0, unit: 'ms', note: '1,048,576 rows, 8 outputs' });
+  enumerateTable(wideNet, wideSpec, { fourValued: true });
+  const wideFour = performance.now() - t0;
+  return [
+    { name: '16 inputs × 1,000 gates: table, warm', value: warm, unit: 'ms', goal: { max: 5 }, reference: { name: 'Icarus Verilog (compile + enumerate)', value: icarus.ms },
+      note: `65,536 rows, 8 outputs; median of 21; ${ivMismatches} rows differ from Icarus; event simulation ${event.toFixed(0)} ms (${simMismatches} mismatches; 4,096 rows timed, scaled); four-valued planes ${four.toFixed(1)} ms` },
+    { name: '16 inputs × 1,000 gates: table, cold', value: cold, unit: 'ms', goal: { max: 15 }, reference: { name: 'warm', value: warm }, note: 'first table in a fresh process (levelise, compile the program, enumerate)' },
+    { name: '20 inputs × 300 gates: table, warm', value: wideMs, unit: 'ms', goal: { max: 40 }, reference: { name: 'four-valued planes', value: wideFour }, note: '1,048,576 rows, 8 outputs; median of 5' },
+  ];
+}
 
-  // minimisation of a 10-input output
-  const small = randomCircuit({ seed: 3, inputs: 10, gates: 60, outputs: 1 });
-  const smallNet = compileBoard(small);
-  const smallTable = enumerateTable(smallNet, resolveSpec(smallNet));
-  t0 = performance.now();
-  const { forms } = minimalForms(smallTable.inputs, smallTable.values[0]);
-  rows.push({ name: '10-input output: minimal SOP and POS', value: performance.now() - t0, unit: 'ms', note: `${forms.exact ? 'exact' : 'not proven minimal'}, SOP of ${forms.sop.split(' | ').length} terms` });
+/** `analyze` (compile, levelise, table, forms) in this process; the median of `runs`. */
+function analyzeMs(board: ReturnType<typeof ringBoard>, runs: number): number {
+  return median(Array.from({ length: runs }, () => { const t = performance.now(); analyzeBoard(board); return performance.now() - t; }));
+}
 
-  // dense random functions (density 0.5, seeded): the hard case for the exact cover search. Before the
-  // two-phase bitset search (one budget for proving and listing ties): 11 of 100 8-input forms and 0 of
-  // 40 10-input forms proven, in 9.5–22 s and 1.8–8 s (measured 2026-12-01 on the shared, busy 2-core machine).
-  for (const [n, count] of [[8, 50], [10, 20]] as const) {
-    const r = randomMinimisation(n, count, 0.5);
-    rows.push({ name: `${count} random ${n}-input functions: proven minimal`, value: r.proven, unit: `of ${r.forms} forms`, note: 'SOP and POS each; density 0.5, seeded' });
-    rows.push({ name: `${count} random ${n}-input functions: exact SOP and POS`, value: r.totalMs / count, unit: 'ms per function', note: `worst form ${r.worstMs.toFixed(0)} ms; total ${(r.totalMs / 1000).toFixed(1)} s` });
+function scalingRows(full: boolean): BenchRow[] {
+  const sizes = full ? [1000, 2000, 4000, 8000] : [1000, 2000, 4000];
+  const rows: BenchRow[] = [];
+  for (const [what, make] of [['ring of gates', ringBoard], ['shift register of six-NAND flip-flops', shiftRegisterBoard]] as const) {
+    analyzeMs(make(500), 3); // warm the code once, so the ratios compare sizes, not compilation
+    let prev: number | undefined;
+    for (const n of sizes) {
+      const ms = analyzeMs(make(n), 3);
+      rows.push({ name: `analyze, ${what}: ${n.toLocaleString('en')} gates`, value: ms, unit: 'ms',
+        ...(prev !== undefined ? { goal: { max: 2.2, on: 'ratio' as const }, reference: { name: `${(n / 2).toLocaleString('en')} gates`, value: prev } } : {}),
+        note: 'in process, median of 3; the outputs come from the event simulator (loops)' });
+      prev = ms;
+    }
   }
   return rows;
+}
+
+export default async function analysisBench(opts: BenchOptions): Promise<BenchRow[]> {
+  return [...tableRows(), ...scalingRows(opts.full), ...(opts.full ? minimisationRows() : [])];
 }

@@ -1,0 +1,49 @@
+/**
+ * Exact minimisation of seeded random functions (heavy rows of `npm run bench analysis`): how many SOP
+ * and POS forms the search proves minimal, and the time per form. Work budgets are counted in word
+ * operations, so "proven" does not depend on the machine's load; the times do.
+ */
+import type { BenchRow } from './run';
+import { minimiseOnes, minimiseZeros, type FunctionRows } from '../shared/analysis';
+import { mulberry32 } from '../shared/sim';
+
+/** n-input functions: each row 1 with probability `ones`, else don't-care with probability `dc`, else 0. */
+function randomFunctions(n: number, count: number, ones: number, dc = 0): FunctionRows[] {
+  return Array.from({ length: count }, (_, k) => {
+    const rnd = mulberry32(1000 * n + k);
+    return Uint8Array.from({ length: 1 << n }, () => { const x = rnd(); return x < ones ? 1 : x < ones + dc ? 2 : 0; });
+  });
+}
+
+function minimiseAll(n: number, fns: FunctionRows[]): { proven: number; forms: number; times: number[] } {
+  let proven = 0;
+  const times: number[] = [];
+  for (const fn of fns) {
+    for (const run of [minimiseOnes, minimiseZeros]) {
+      const t0 = performance.now();
+      if (run(n, fn).exact) proven++;
+      times.push(performance.now() - t0);
+    }
+  }
+  return { proven, forms: 2 * fns.length, times };
+}
+
+export function minimisationRows(): BenchRow[] {
+  const rows: BenchRow[] = [];
+  const cases = [
+    { n: 8, count: 50, ones: 0.5, dc: 0, proveGoal: 100, formMs: 2000, what: 'density 0.5' },
+    { n: 10, count: 20, ones: 0.5, dc: 0, proveGoal: 38, formMs: 2000, what: 'density 0.5' },
+    // a sparse on-set with some don't-cares, as textbook exercises have (our choice of density)
+    { n: 12, count: 5, ones: 0.1, dc: 0.05, proveGoal: 10, formMs: 10_000, what: '10 % ones, 5 % don\'t-cares' },
+  ];
+  for (const c of cases) {
+    const r = minimiseAll(c.n, randomFunctions(c.n, c.count, c.ones, c.dc));
+    const worst = Math.max(...r.times);
+    const mean = r.times.reduce((a, b) => a + b, 0) / r.times.length;
+    rows.push({ name: `${c.count} random ${c.n}-input functions: forms proven minimal`, value: r.proven, unit: `of ${r.forms}`, goal: { min: c.proveGoal },
+      note: `SOP and POS each; ${c.what}; seeded` });
+    rows.push({ name: `${c.count} random ${c.n}-input functions: slowest form`, value: worst, unit: 'ms', goal: { max: c.formMs },
+      note: `mean ${mean.toFixed(0)} ms per form; total ${(r.times.reduce((a, b) => a + b, 0) / 1000).toFixed(1)} s` });
+  }
+  return rows;
+}
