@@ -6,7 +6,8 @@ import tailwindcss from '@tailwindcss/vite';
 // Vite dev server proxies /api and /collab to the Express server on port 3000.
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 2000 },
+  // no bundler timing report: `npm start` builds with --logLevel warn and should print warnings only
+  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 2000, rolldownOptions: { checks: { bundlerTimings: false } } },
   worker: { format: 'es' },
   server: {
     port: 5173,

@@ -50,9 +50,9 @@ export async function startServer(config: AppConfig): Promise<RunningServer> {
 }
 
 /** Listens and stops gracefully on SIGTERM/SIGINT. Used by `npm start` (start.ts) and `tsx server/index.ts`. */
-export async function runMain(config: AppConfig): Promise<RunningServer> {
+export async function runMain(config: AppConfig, announce: (running: RunningServer) => void = (r) => console.log(`Gatefold listening on ${r.url}`)): Promise<RunningServer> {
   const running = await startServer(config);
-  console.log(`Gatefold listening on ${running.url}`);
+  announce(running);
   const stop = (signal: string) => {
     console.log(`${signal}: shutting down`);
     const timer = setTimeout(() => process.exit(1), 10000);

@@ -2,7 +2,8 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { loadConfig } from './config';
-import { runMain } from './index';
+import { runMain, type RunningServer } from './index';
+import { startBanner } from './start-banner';
 
 const ROOT = resolve(import.meta.dirname, '..');
 
@@ -22,15 +23,18 @@ function buildClientIfNeeded(distDir: string): void {
   const built = existsSync(index) ? statSync(index).mtimeMs : 0;
   const sources = Math.max(...['src', 'shared', 'index.html'].map((p) => newestMtime(resolve(ROOT, p))));
   if (built && built >= sources) return;
-  console.log(built ? 'client sources changed: building the client…' : 'no client build yet: building the client…');
-  const r = spawnSync(resolve(ROOT, 'node_modules/.bin/vite'), ['build'], { cwd: ROOT, stdio: 'inherit' });
+  const started = Date.now();
+  console.log(built ? 'Client sources changed: building the client…' : 'First start: building the client…');
+  // quiet: only warnings and errors (the bundler's timing checks are off in vite.config.ts)
+  const r = spawnSync(resolve(ROOT, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: ROOT, stdio: 'inherit' });
   if (r.status !== 0) console.error('warning: the client build failed; the API still runs, the pages may be missing or old');
+  else console.log(`Client built in ${Math.round((Date.now() - started) / 1000)} s.`);
 }
 
 try {
   const config = loadConfig();
   buildClientIfNeeded(config.distDir);
-  await runMain({ ...config, seedDemo: true });
+  await runMain({ ...config, seedDemo: true }, (running: RunningServer) => console.log(startBanner(running.url, config).join('\n')));
 } catch (err) {
   console.error(`error: ${(err as Error).message}`);
   process.exit(1);
