@@ -75,21 +75,31 @@ interface Engine {
 
 /** Ranks the suspects for the observations. */
 export function diagnose(board: BoardFile, observed: Observation[], opts: DiagnoseOptions = {}): DiagnoseResult {
+  return prepareDiagnosis(board, opts)(observed);
+}
+
+/**
+ * The work of a diagnosis that does not depend on the observations (suspects, their faulty boards, their
+ * readings on the comparison settings), done once; the returned function ranks suspects for observations.
+ */
+export function prepareDiagnosis(board: BoardFile, opts: DiagnoseOptions = {}): (observed: Observation[]) => DiagnoseResult {
   const netlist = compileBoard(board);
   const inputs = handInputs(netlist);
   const outputs = readOutputs(netlist, opts.outputs);
   if (!outputs.length) throw new BringupError('the board has no lamp or probe to read', 'outputs');
-  checkObservations(observed, inputs.length, outputs.length);
   const faults = faultList(netlist);
   const suspects: Suspect[] = [
     ...faults.map((f, i) => ({ name: f.name, parts: [f.part], fault: i })),
     ...swapCandidates(netlist).map((s) => ({ name: `swap ${s.part}.${s.a}/${s.part}.${s.b}`, parts: [s.part], board: withSwappedPins(board, netlist, s.part, s.a, s.b) })),
   ];
   const random = mulberry32(opts.seed ?? 7);
+  const prepared = isSequentialBoard(netlist)
+    ? sequentialEngine(board, netlist, suspects, inputs, outputs, random)
+    : combinationalEngine(board, suspects, random, opts);
+  return (observed) => {
+  checkObservations(observed, inputs.length, outputs.length);
   const obsSteps = observed.map((o) => Array.from(o.in, Number));
-  const engine = isSequentialBoard(netlist)
-    ? sequentialEngine(board, netlist, suspects, inputs, outputs, obsSteps, random)
-    : combinationalEngine(board, suspects, obsSteps, observed, random, opts);
+  const engine = prepared(obsSteps, observed);
 
   const of = observed.length;
   const explains = (preds: string[]) => preds.reduce((a, p, k) => a + (matches(p, observed[k].out) ? 1 : 0), 0);
@@ -121,6 +131,7 @@ export function diagnose(board: BoardFile, observed: Observation[], opts: Diagno
     faultFree: { explains: explains(engine.observed[0]), of },
     inputs: inputs.map((i) => i.label), outputs: outputs.map((o) => o.label),
   };
+  };
 }
 
 function allSettings(n: number): number[][] {
@@ -139,7 +150,9 @@ function pickNext(choices: number[][], predsOf: (k: number) => string[], weights
   return b && { in: b.in, groups: b.groups };
 }
 
-function combinationalEngine(board: BoardFile, suspects: Suspect[], obsSteps: number[][], observed: Observation[], random: () => number, opts: DiagnoseOptions): Engine {
+type PreparedEngine = (obsSteps: number[][], observed: Observation[]) => Engine;
+
+function combinationalEngine(board: BoardFile, suspects: Suspect[], random: () => number, opts: DiagnoseOptions): PreparedEngine {
   const model = buildModel(board, opts.outputs);
   const faults = faultList(model.netlist);
   const sites = faultSites(model, faults);
@@ -152,25 +165,27 @@ function combinationalEngine(board: BoardFile, suspects: Suspect[], obsSteps: nu
   const onChecks = predict(checks);
   const choices = n <= 12 ? checks : checks.slice(0, 512);
   const onChoices = n <= 12 ? onChecks : predict(choices);
-  return {
+  return (obsSteps, observed) => ({
     observed: predict(obsSteps),
     checks: [onChecks],
     next: (top, weights) => pickNext(choices, (k) => top.map((i) => onChoices[i + 1][k]), weights, new Set(observed.map((o) => o.in))),
-  };
+  });
 }
 
-function sequentialEngine(board: BoardFile, netlist: Netlist, suspects: Suspect[], inputs: ReturnType<typeof handInputs>, outputs: ReturnType<typeof readOutputs>, obsSteps: number[][], random: () => number): Engine {
+function sequentialEngine(board: BoardFile, netlist: Netlist, suspects: Suspect[], inputs: ReturnType<typeof handInputs>, outputs: ReturnType<typeof readOutputs>, random: () => number): PreparedEngine {
   const faults = faultList(netlist);
   const boards = [board, ...suspects.map((s) => s.board ?? withStuckPin(board, netlist, faults[s.fault!].part, faults[s.fault!].pin, faults[s.fault!].value))];
+  const netlists = boards.map((b) => compileBoard(b));
   const n = inputs.length;
-  const predict = (steps: number[][]) => boards.map((b) => runSteps(b, inputs, outputs, steps));
+  const predict = (steps: number[][]) => netlists.map((b) => runSteps(b, inputs, outputs, steps));
   const walks = Array.from({ length: 4 }, () => randomWalk(n, 64, random));
+  const checks = walks.map(predict);
   const choices = allSettings(Math.min(n, 8));
-  return {
+  return (obsSteps) => ({
     observed: predict(obsSteps),
-    checks: walks.map(predict),
-    next: (top, weights) => pickNext(choices, (k) => top.map((i) => runSteps(boards[i + 1], inputs, outputs, [...obsSteps, choices[k]]).at(-1)!), weights, new Set()),
-  };
+    checks,
+    next: (top, weights) => pickNext(choices, (k) => top.map((i) => runSteps(netlists[i + 1], inputs, outputs, [...obsSteps, choices[k]]).at(-1)!), weights, new Set()),
+  });
 }
 
 function safeModel(board: BoardFile, outputs?: string[]): Model | undefined {

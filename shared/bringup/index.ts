@@ -11,7 +11,7 @@
  * power-on on the event simulator of shared/sim (sequential.ts).
  */
 export { testVectors, boardOf, detectionTable, EXACT_INPUTS, EXHAUSTIVE_INPUTS, type TestVectorOptions } from './generate';
-export { diagnose, swapCandidates, type DiagnoseOptions } from './diagnose';
+export { diagnose, prepareDiagnosis, swapCandidates, type DiagnoseOptions } from './diagnose';
 export { faultList, faultName, collapseClasses, collapseCount } from './faults';
 export { buildModel, handInputs, readOutputs, isSequentialBoard, type Model } from './model';
 export { FaultSimulator, faultSites, packVectors, type Site } from './fsim';

@@ -12,8 +12,8 @@ import type { ModelInput, ModelOutput } from './model';
 import type { Fault, TestVector } from './types';
 
 /** Lamp readings (one string per step, a character per output) of the board over the steps. */
-export function runSteps(board: BoardFile, inputs: ModelInput[], outputs: ModelOutput[], steps: number[][]): string[] {
-  const netlist = compileBoard(board);
+export function runSteps(board: BoardFile | Netlist, inputs: ModelInput[], outputs: ModelOutput[], steps: number[][]): string[] {
+  const netlist = 'nets' in board ? board : compileBoard(board);
   const sim = new Simulator(netlist);
   const out: string[] = [];
   for (const step of steps) {
