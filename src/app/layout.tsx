@@ -9,7 +9,7 @@ import { Wordmark } from '../components/ui/wordmark';
 import { meQueryOptions, useSignOut } from '../features/auth';
 import { cn } from '../lib/cn';
 import { notifyError } from '../lib/notify';
-import { signInPath } from '../lib/safe-next';
+import { safeNext, signInPath } from '../lib/safe-next';
 
 function navClass({ isActive }: { isActive: boolean }) {
   return cn('rounded px-2.5 py-1 text-sm transition-colors', isActive ? 'bg-mat-800 text-amber-300' : 'text-slate-300 hover:text-slate-100');
@@ -40,6 +40,11 @@ function UserMenu({ user }: { user: ApiUser }) {
 function TopBar() {
   const me = useQuery(meQueryOptions);
   const user = me.data ?? null;
+  const location = useLocation();
+  // from any page but the account pages, signing in or up comes back to it (an invitation, a board link)
+  const onAccountPage = /^\/(signin|signup|reset)/.test(location.pathname);
+  const next = onAccountPage ? new URLSearchParams(location.search).get('next') : location.pathname + location.search;
+  const accountLink = (base: '/signin' | '/signup') => (next && next !== '/' ? signInPath(safeNext(next), base) : base);
   return (
     <header className="flex h-11 shrink-0 items-center justify-between gap-4 border-b border-mat-700 bg-mat-900/95 px-4">
       <div className="flex items-center gap-5">
@@ -63,10 +68,10 @@ function TopBar() {
         <UserMenu user={user} />
       ) : me.isPending ? null : (
         <nav aria-label="Account" className="flex items-center gap-1">
-          <NavLink to="/signin" className={navClass}>
+          <NavLink to={accountLink('/signin')} className={navClass}>
             Sign in
           </NavLink>
-          <NavLink to="/signup" className={navClass}>
+          <NavLink to={accountLink('/signup')} className={navClass}>
             Sign up
           </NavLink>
         </nav>

@@ -63,7 +63,7 @@ export function BoardMembersPage() {
             <h2 id="pending-heading" className="text-sm font-semibold uppercase tracking-wide text-slate-400">
               Pending invitations
             </h2>
-            <InvitationsList invitations={members.data!.invitations} />
+            <InvitationsList boardId={b.id} invitations={members.data!.invitations} />
           </section>
         )}
       </div>

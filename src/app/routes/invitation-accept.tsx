@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useNavigate, useParams } from 'react-router-dom';
+import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { LoadingState } from '../../components/ui/spinner';
 import { meQueryOptions } from '../../features/auth';
@@ -10,6 +10,8 @@ import { PageTitle } from '../../components/ui/page-title';
 
 export function InvitationAcceptPage() {
   const { token = '' } = useParams();
+  // `?accept=1`: back from "Create an account" on this invitation, so join at once
+  const [params] = useSearchParams();
   const invitation = useQuery(invitationQueryOptions(token));
   const me = useQuery(meQueryOptions);
   const navigate = useNavigate();
@@ -28,7 +30,8 @@ export function InvitationAcceptPage() {
         <ErrorState error={invitation.error} onRetry={() => invitation.refetch()} />
       );
   else if (me.isError) body = <ErrorState error={me.error} onRetry={() => me.refetch()} />;
-  else body = <InvitationCard token={token} invitation={invitation.data} user={me.data} onAccepted={(id) => navigate(`/boards/${id}`, { replace: true })} />;
+  else body = <InvitationCard token={token} invitation={invitation.data} user={me.data} autoAccept={params.get('accept') === '1'}
+    onAccepted={(id) => navigate(`/boards/${id}`, { replace: true })} />;
 
   return (
     <PageColumn width="narrow">

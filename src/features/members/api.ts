@@ -56,6 +56,15 @@ export function useRemoveMember(boardId: number) {
   });
 }
 
+/** Owners: withdraw an invitation nobody has accepted yet (its link stops working). */
+export function useRevokeInvitation(boardId: number) {
+  const refresh = useInvalidateBoard(boardId);
+  return useMutation({
+    mutationFn: (invitationId: number) => api.delete(`/api/boards/${boardId}/invitations/${invitationId}`),
+    onSuccess: refresh,
+  });
+}
+
 export function useAcceptInvitation(token: string) {
   const qc = useQueryClient();
   return useMutation({

@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import type { ApiInvitationInfo, ApiUser } from '../../../../shared/api';
 import { Button } from '../../../components/ui/button';
@@ -12,13 +13,30 @@ interface Props {
   invitation: ApiInvitationInfo;
   user: ApiUser | null;
   onAccepted: (boardId: number) => void;
+  /** accept at once when signed in (the account was just created from this invitation) */
+  autoAccept?: boolean;
 }
 
 /** Who invited you to which board, and the way in: sign in or up first, then accept. */
-export function InvitationCard({ token, invitation, user, onAccepted }: Props) {
+export function InvitationCard({ token, invitation, user, onAccepted, autoAccept = false }: Props) {
   const accept = useAcceptInvitation(token);
   const here = `/invitations/${encodeURIComponent(token)}`;
   const otherAddress = user && user.email.toLowerCase() !== invitation.email.toLowerCase();
+  const doAccept = () =>
+    accept.mutate(undefined, {
+      onSuccess: (board) => {
+        notifySuccess(`You joined “${board.title}”`);
+        onAccepted(board.id);
+      },
+      onError: (err) => notifyError(err, 'Could not accept the invitation'),
+    });
+  // Someone who created their account from this invitation came to join: no second click (once only).
+  const autoStarted = useRef(false);
+  useEffect(() => {
+    if (!autoAccept || !user || otherAddress || autoStarted.current) return;
+    autoStarted.current = true;
+    doAccept();
+  });
 
   return (
     <Card>
@@ -44,24 +62,16 @@ export function InvitationCard({ token, invitation, user, onAccepted }: Props) {
             <Button
               variant="primary"
               busy={accept.isPending}
-              onClick={() =>
-                accept.mutate(undefined, {
-                  onSuccess: (board) => {
-                    notifySuccess(`You joined “${board.title}”`);
-                    onAccepted(board.id);
-                  },
-                  onError: (err) => notifyError(err, 'Could not accept the invitation'),
-                })
-              }
+              onClick={doAccept}
             >
               Accept invitation
             </Button>
           </>
         ) : (
           <div className="flex flex-col gap-3">
-            <p className="text-sm text-slate-400">Sign in, or create an account, to accept. You will come back here.</p>
+            <p className="text-sm text-slate-400">Sign in, or create an account, to accept. You will come back here (a new account joins the board at once).</p>
             <div className="flex flex-wrap gap-2">
-              <Link to={`${signInPath(here, '/signup')}&email=${encodeURIComponent(invitation.email)}`} className="inline-flex h-9 items-center rounded-md bg-amber-glow px-4 text-sm font-semibold text-mat-950 hover:bg-amber-300">
+              <Link to={`${signInPath(`${here}?accept=1`, '/signup')}&email=${encodeURIComponent(invitation.email)}`} className="inline-flex h-9 items-center rounded-md bg-amber-glow px-4 text-sm font-semibold text-mat-950 hover:bg-amber-300">
                 Create an account
               </Link>
               <Link to={signInPath(here)} className="inline-flex h-9 items-center rounded-md border border-mat-600 bg-mat-800 px-4 text-sm text-slate-100 hover:bg-mat-700">
