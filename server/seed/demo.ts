@@ -47,9 +47,9 @@ export const DEMO_BOARDS: DemoBoard[] = [
 
 /**
  * Each demo board's history: named snapshots of its earlier stages, oldest first (a stage lists the
- * part ids it had; the last stage without a list is the board as it is now).
+ * part ids it had; the last stage without a list is the board as it is now). A board without an entry has no history.
  */
-export const DEMO_HISTORY: Record<DemoBoardSlug, Array<{ name: string; parts?: string[] }>> = {
+export const DEMO_HISTORY: Partial<Record<DemoBoardSlug, Array<{ name: string; parts?: string[] }>>> = {
   'half-adder': [{ name: 'Inputs and the sum gate', parts: ['a', 'b', 'g1', 's'] }, { name: 'Carry added' }],
   'mux-logic-unit': [{ name: 'Four gate functions side by side', parts: ['a', 'b', 'g_and', 'g_or', 'g_xor', 'g_not'] }, { name: 'Multiplexer picks the function' }],
   'debounced-clock': [
