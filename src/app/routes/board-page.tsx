@@ -16,6 +16,7 @@ import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import { AnalysisPanel, useAnalysis } from '../../features/analysis';
 import { BuildPanel, useBuildSheet } from '../../features/build';
+import { BringupPanel, useBringup } from '../../features/bringup';
 import { useBoardHistory } from '../../features/snapshots';
 import type { ApiBoard } from '../../../shared/api';
 import { PageTitle } from '../../components/ui/page-title';
@@ -96,7 +97,8 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
   const build = useBuildSheet(session.board);
-  const highlight = build.highlight ?? analysis.highlight;
+  const bringup = useBringup(board.id, board.role, session.board);
+  const highlight = bringup.highlight ?? build.highlight ?? analysis.highlight;
   // preview and compare show a snapshot read-only on the canvas, without the live levels
   const history = useBoardHistory(board.id, board.role, session);
   const live = !history.viewing;
@@ -109,7 +111,7 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
       {history.banner}
       <BoardWorkspace session={history.session} levels={live ? sim.levels : undefined} partBadges={live ? sim.partBadges : undefined} onTryOut={live ? sim.tryOut.set : undefined}
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
-        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} />{history.panel}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
+        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
         bottom={<TimingStrip {...sim.timing} />} />
     </>
   );
