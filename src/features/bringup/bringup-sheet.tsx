@@ -20,7 +20,7 @@ export function BringupSheet({ board, result, preview = false }: { board: BoardF
         {result.vectors.length} steps · detects {result.detected} of {result.faults} single stuck-at faults
         {result.undetectable.length ? ` (${result.undetectable.length} cannot be detected)` : ''} · {result.minimal ? 'fewest possible steps (proved)' : 'not proved to be the fewest steps'} · printed {new Date().toLocaleDateString()}
       </p>
-      {caution && <p className="gf-sheet-caution">⚠ {caution} Follow your local electrical codes and qualified practice.</p>}
+      {caution && <p className="gf-sheet-caution">⚠ {caution}{/electrical codes/i.test(caution) ? '' : ' Follow your local electrical codes and qualified practice.'}</p>}
       <p className="gf-sheet-how">
         {result.sequential
           ? 'This board stores state: power it on with the first step’s switches already set, then take the steps in order. A new sequence starts again from power-on.'
