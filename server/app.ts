@@ -30,6 +30,9 @@ import { mountSnapshots } from './snapshots';
 import { createAnalysisRunner } from './services/analysis-runner';
 import { bringupRouter } from './http/routes/bringup';
 import { createBringupFeature } from './services/bringup';
+import { createShareLinksService, type ShareLinksService } from './services/share-links';
+import { shareLinksRouter } from './http/routes/share-links';
+import { linkAudience } from './boards-live/share-guests';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -43,6 +46,8 @@ export interface AppContext {
   mail: Mailer;
   /** The open board rooms and the way to every board's content (server/boards-live), one per app. */
   boardRegistry: BoardRegistry;
+  /** Share links (class mode): the routes use them, and the sockets let guests in with them. */
+  shareLinks: ShareLinksService;
   /** Fills a new demo board's document (the example files). */
   boardContent?: BoardContentSeeder;
   /** Async shutdown work of features, run (last registered first) before the mail catcher and Knex close. */
@@ -72,6 +77,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   const services = createServices(db, config, events, mail, boardRegistry);
   const sessionMiddleware = createSessionMiddleware(config, store);
   const limits = createRateLimits(config);
+  const shareLinks = createShareLinksService(db, events, (boardId, linkId) => linkAudience(boardRegistry, boardId, linkId));
 
   const app = express();
   app.disable('x-powered-by');
@@ -87,6 +93,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
 
   app.use('/api', healthRouter(config.version));
   app.use('/api', authRouter(services, config, limits));
+  app.use('/api', shareLinksRouter(services, shareLinks, config, boardRegistry)); // before the boards routes: a guest's two reads
   app.use('/api', boardsRouter(services));
   app.use('/api', membersRouter(services, config, limits));
   app.use('/api', invitationsRouter(services));
@@ -105,7 +112,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   };
   let closing: Promise<void> | undefined;
   const ctx: AppContext = {
-    app, db, config, sessionMiddleware, services, events, mail, boardRegistry, onClose, closeFeatures,
+    app, db, config, sessionMiddleware, services, events, mail, boardRegistry, shareLinks, onClose, closeFeatures,
     close: () =>
       (closing ??= (async () => {
         await closeFeatures();

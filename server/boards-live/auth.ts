@@ -47,17 +47,46 @@ function sessionCheck(store: Store | undefined, sessionId: string, userId: numbe
     });
 }
 
+/** A guest's socket lives as long as its link (revoked or expired: closed at the next check). */
+function linkCheck(ctx: SocketContext, linkId: number): SessionCheck {
+  return async () => {
+    try {
+      return (await ctx.shareLinks!.live(linkId)) !== null;
+    } catch {
+      return true; // a store error is not proof that the link ended
+    }
+  };
+}
+
+/**
+ * A guest's way in: `?share=<token>` of the upgrade URL, or the guest session a share link's join
+ * page gave (CONTRACTS §4). Either must name this board's live link; the role is always viewer.
+ */
+async function guestPeer(ctx: SocketContext, r: Request, boardId: number): Promise<{ peer: Peer; sessionAlive: SessionCheck } | null> {
+  if (!ctx.shareLinks) return null;
+  const token = new URL(r.url ?? '', 'http://upgrade.invalid').searchParams.get('share');
+  const guest = r.session?.guest;
+  const link = token ? await ctx.shareLinks.resolve(token) : guest?.boardId === boardId ? await ctx.shareLinks.live(guest.linkId) : null;
+  if (!link || link.boardId !== boardId) return null;
+  const peer: Peer = { userId: r.session?.userId ?? null, role: 'viewer', linkId: link.linkId, sessionId: r.sessionID };
+  return { peer, sessionAlive: linkCheck(ctx, link.linkId) };
+}
+
 /**
  * Decides who may join the board's room: a signed-in member, with their role and session (whose
- * end closes the socket). Throws CollabError `not_signed_in` (→ 401) or `forbidden` / `bad_origin` (→ 403).
+ * end closes the socket) — a member who also brings a share link keeps their own role — or a guest
+ * of a share link, as viewer, for as long as the link lives. Throws CollabError `not_signed_in`
+ * (→ 401) or `forbidden` / `bad_origin` (→ 403).
  */
 export async function authorizeUpgrade(ctx: SocketContext, req: IncomingMessage, boardId: number): Promise<{ peer: Peer; sessionAlive: SessionCheck }> {
   if (!originAllowed(ctx, req)) throw new CollabError('bad_origin', `origin ${req.headers.origin} is not allowed`);
   await loadSession(ctx, req);
   const r = req as Request;
   const userId = r.session?.userId;
+  const role = userId ? await ctx.services.authz.roleOf(boardId, userId) : null;
+  if (userId && role) return { peer: { userId, role, sessionId: r.sessionID }, sessionAlive: sessionCheck(r.sessionStore, r.sessionID, userId) };
+  const guest = await guestPeer(ctx, r, boardId);
+  if (guest) return guest;
   if (!userId) throw new CollabError('not_signed_in', 'sign in first');
-  const role = await ctx.services.authz.roleOf(boardId, userId);
-  if (!role) throw new CollabError('forbidden', `user ${userId} is not a member of board ${boardId}`);
-  return { peer: { userId, role, sessionId: r.sessionID }, sessionAlive: sessionCheck(r.sessionStore, r.sessionID, userId) };
+  throw new CollabError('forbidden', `user ${userId} is not a member of board ${boardId}`);
 }

@@ -5,6 +5,7 @@ import type { BoardRole } from '../../shared/api';
 import { authorizeUpgrade, boardIdOfPath, type SessionCheck } from './auth';
 import type { BoardRegistry } from './registry';
 import type { Room } from './room';
+import { closeLinkGuests } from './share-guests';
 import { CLOSE, CollabError, type CollabOptions, type Peer, type SocketContext } from './types';
 
 /** The running websocket side. */
@@ -130,11 +131,13 @@ export function attachBoardSockets(server: Server, ctx: SocketContext): SocketsH
   const onMembership = (change: { boardId: number; userId: number; role: BoardRole | null }) => applyMembership(registry, change);
   const onDeleted = ({ boardId }: { boardId: number }) => registry.discardBoard(boardId);
   const onSessionsEnded = (ended: { userId: number; sessionIds?: string[] }) => endSessions(registry, ended);
+  const onLinkRevoked = (revoked: { boardId: number; linkId: number }) => closeLinkGuests(registry, revoked);
 
   server.on('upgrade', onUpgrade);
   ctx.events.on('membership-changed', onMembership);
   ctx.events.on('board-deleted', onDeleted);
   ctx.events.on('sessions-ended', onSessionsEnded);
+  ctx.events.on('share-link-revoked', onLinkRevoked);
 
   let closed: Promise<void> | undefined;
   const close = () =>
@@ -143,6 +146,7 @@ export function attachBoardSockets(server: Server, ctx: SocketContext): SocketsH
       ctx.events.off('membership-changed', onMembership);
       ctx.events.off('board-deleted', onDeleted);
       ctx.events.off('sessions-ended', onSessionsEnded);
+      ctx.events.off('share-link-revoked', onLinkRevoked);
       await registry.close();
       for (const ws of wss.clients) ws.terminate();
       await new Promise<void>((resolve) => wss.close(() => resolve()));

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { BoardRole } from '../../shared/api';
 import type { AuthzService } from '../services/authz';
+import type { ShareLinksService } from '../services/share-links';
 import type { AppEvents } from '../services/events';
 import type { BoardRegistry } from './registry';
 
@@ -55,12 +56,17 @@ export interface SocketContext {
   onClose: (() => Promise<void>)[];
   services: { authz: Pick<AuthzService, 'roleOf'> };
   boardRegistry: BoardRegistry;
+  /** share links: guests join with `?share=<token>` or their guest session (absent: members only) */
+  shareLinks?: Pick<ShareLinksService, 'resolve' | 'live'>;
 }
 
 /** Who is on the other end of a socket. */
 export interface Peer {
-  userId: number;
+  /** null for a guest without an account */
+  userId: number | null;
   role: BoardRole;
+  /** the share link a guest came through (its revocation closes the socket) */
+  linkId?: number;
   /** the session the socket was opened with (its sockets close when it ends) */
   sessionId?: string;
 }

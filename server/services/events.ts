@@ -9,6 +9,8 @@ export interface AppEventMap {
   'board-deleted': [{ boardId: number }];
   /** Sessions of a user ended (sign-out: that session; password reset: every session, no `sessionIds`). */
   'sessions-ended': [{ userId: number; sessionIds?: string[] }];
+  /** A share link was revoked: the guests who came through it leave at once. */
+  'share-link-revoked': [{ boardId: number; linkId: number }];
 }
 
 export type AppEvents = EventEmitter<AppEventMap>;

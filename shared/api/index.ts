@@ -1,2 +1,3 @@
 export * from './schemas';
 export * from './types';
+export * from './share-links';
