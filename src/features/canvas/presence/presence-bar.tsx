@@ -8,6 +8,7 @@ const STATUS: Record<ConnectionStatus, { text: string; dot: string; hint: string
   live: { text: 'live', dot: 'bg-emerald-400', hint: 'Edits are shared as you make them' },
   reconnecting: { text: 'reconnecting', dot: 'bg-amber-400 animate-pulse', hint: 'Connection lost; your edits are kept and sent when it is back' },
   offline: { text: 'offline', dot: 'bg-rose-500', hint: 'You are offline; your edits are kept and sent when you reconnect' },
+  refused: { text: 'stopped', dot: 'bg-rose-500', hint: 'The server stopped this live session' },
 };
 
 function Disc({ user, you, away }: { user: PresenceUser; you?: boolean; away?: boolean }) {
@@ -21,7 +22,7 @@ function Disc({ user, you, away }: { user: PresenceUser; you?: boolean; away?: b
   );
 }
 
-export function PresenceBar({ me, peers, status }: { me: PresenceUser; peers: Peer[]; status: ConnectionStatus }) {
+export function PresenceBar({ me, peers, status, refusal }: { me: PresenceUser; peers: Peer[]; status: ConnectionStatus; refusal?: string | null }) {
   // One disc per person even when they have the board open in two tabs; away only when every tab is.
   // While this tab is not live, nobody can be seen: every other disc is greyed.
   const people = new Map<string, { user: PresenceUser; away: boolean }>();
@@ -43,6 +44,9 @@ export function PresenceBar({ me, peers, status }: { me: PresenceUser; peers: Pe
       <span className="flex items-center gap-1.5 text-xs text-slate-300" title={s.hint} data-testid="connection-status" data-status={status}>
         <span className={`h-2 w-2 rounded-full ${s.dot}`} />{s.text}
       </span>
+      {status === 'refused' && refusal && (
+        <span role="alert" className="max-w-md text-xs text-rose-300" data-testid="connection-refusal">{refusal}</span>
+      )}
     </div>
   );
 }

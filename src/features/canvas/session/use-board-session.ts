@@ -14,7 +14,21 @@ import { stabilizeBoard } from '../flow/derive-flow';
 import type { PresenceUser } from './awareness';
 
 export type BoardRole = 'owner' | 'editor' | 'viewer';
-export type ConnectionStatus = 'connecting' | 'live' | 'reconnecting' | 'offline';
+export type ConnectionStatus = 'connecting' | 'live' | 'reconnecting' | 'offline' | 'refused';
+
+/**
+ * Close codes after which reconnecting cannot help (docs/guarantees.md): the server refused what this
+ * screen sent, or the session behind it ended. Reconnecting would resend the same refused change in a
+ * loop, so the session stops and says why.
+ */
+const REFUSALS: Record<number, string> = {
+  4400: 'The server refused your last change (it would make the board invalid). Reload the board to continue.',
+  4401: 'Your session has ended. Sign in again to keep editing.',
+  4413: 'The board has reached its size limit; your last change was not kept. Reload the board to continue.',
+  4414: 'Too many changes arrived out of order; reload the board to continue.',
+  4415: 'Presence data too large; reload the board to continue.',
+  4429: 'Too many presence updates from this screen; reload the board to continue.',
+};
 
 export interface BoardSession {
   boardId: string;
@@ -25,6 +39,8 @@ export interface BoardSession {
   role: BoardRole;
   readOnly: boolean;
   status: ConnectionStatus;
+  /** why the server stopped this session ('refused' status), in words for the user */
+  refusal: string | null;
   synced: boolean;
   /** derived from the doc, updated at most once per animation frame, same object until something changes */
   board: BoardFile;
@@ -73,6 +89,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
   const [board, setBoard] = useState<BoardFile>(EMPTY_BOARD);
   const [status, setStatus] = useState<ConnectionStatus>('connecting');
   const [synced, setSynced] = useState(false);
+  const [refusal, setRefusal] = useState<string | null>(null);
   const [stacks, setStacks] = useState({ canUndo: false, canRedo: false });
   const [me, setMe] = useState<{ id: string | number; name: string } | null>(options.user ?? null);
   const everConnected = useRef(false);
@@ -112,17 +129,26 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
     };
     const onUpdate = () => { if (!raf) raf = requestAnimationFrame(publish); };
     const onStatus = ({ status: s }: { status: 'connected' | 'disconnected' | 'connecting' }) => {
+      if (!provider.shouldConnect) return; // stopped after a refusal: keep saying why
       if (s === 'connected') { everConnected.current = true; setStatus('live'); }
       else if (!navigator.onLine) setStatus('offline');
       else setStatus(everConnected.current ? 'reconnecting' : 'connecting');
     };
+    const onClose = (event: CloseEvent | null) => {
+      const why = event ? REFUSALS[event.code] : undefined;
+      if (!why) return;
+      provider.disconnect(); // no automatic reconnect: it would resend what was refused
+      setRefusal(event?.reason ? `${why} (${event.reason})` : why);
+      setStatus('refused');
+    };
     const onSync = (isSynced: boolean) => { setSynced(isSynced); if (isSynced) onUpdate(); };
     const onStacks = () => setStacks({ canUndo: undo.canUndo(), canRedo: undo.canRedo() });
-    const onOffline = () => setStatus('offline');
-    const onOnline = () => setStatus(provider.wsconnected ? 'live' : 'reconnecting');
+    const onOffline = () => provider.shouldConnect && setStatus('offline');
+    const onOnline = () => provider.shouldConnect && setStatus(provider.wsconnected ? 'live' : 'reconnecting');
     doc.on('update', onUpdate);
     provider.on('status', onStatus);
     provider.on('sync', onSync);
+    provider.on('connection-close', onClose);
     undo.on('stack-item-added', onStacks);
     undo.on('stack-item-popped', onStacks);
     undo.on('stack-cleared', onStacks);
@@ -137,6 +163,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
       doc.off('update', onUpdate);
       provider.off('status', onStatus);
       provider.off('sync', onSync);
+      provider.off('connection-close', onClose);
       undo.off('stack-item-added', onStacks);
       undo.off('stack-item-popped', onStacks);
       undo.off('stack-cleared', onStacks);
@@ -160,6 +187,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
     role,
     readOnly,
     status,
+    refusal,
     synced,
     board,
     user,
@@ -167,5 +195,5 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
     redo: () => { if (!readOnly) live.undo.redo(); },
     canUndo: !readOnly && stacks.canUndo,
     canRedo: !readOnly && stacks.canRedo,
-  }), [boardId, live, role, readOnly, status, synced, board, user, stacks]);
+  }), [boardId, live, role, readOnly, status, refusal, synced, board, user, stacks]);
 }

@@ -54,7 +54,7 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
   return (
     <div className="gf-workspace flex min-h-0 min-w-0 flex-1 flex-col" data-testid="board-workspace">
       <div className="flex h-10 shrink-0 items-center gap-3 border-b border-mat-700 bg-mat-900 px-3">
-        <PresenceBar me={session.user} peers={peers.peers} status={session.status} />
+        <PresenceBar me={session.user} peers={peers.peers} status={session.status} refusal={session.refusal} />
         {session.readOnly && <span className="rounded bg-mat-700 px-2 py-0.5 text-[11px] text-slate-300" data-testid="read-only-note">viewing · read-only</span>}
         <div className="ml-auto">
           <CanvasToolbar session={session} canvas={canvas} onHelp={() => setHelp((h) => !h)} />
