@@ -116,7 +116,7 @@ export function renderBoardSvg(board: BoardFile, options: BoardSvgOptions = {}):
 
   for (const { part, x, y, w, h } of placed.values()) {
     const s = placedShape(part);
-    out.push(`<g transform="translate(${num(x)} ${num(y)})">`);
+    out.push(`<g data-part="${xmlEscape(part.id)}" transform="translate(${num(x)} ${num(y)})">`);
     if (outline) {
       out.push(`<rect width="${w}" height="${h}" rx="4" fill="${theme.fill}" stroke="${theme.stroke}" stroke-width="2"/>`);
     } else if (part.kind === 'note') {

@@ -287,7 +287,9 @@ test('board files and pictures: import into a new board (errors name the bad ids
   expect(svg.suggestedFilename()).toBe('half-adder.svg');
   const svgText = await streamText(await svg.createReadStream());
   expect(svgText).toContain('<svg');
-  expect(svgText).toContain('data-testid="part-g1"');
+  // real vector drawing from the shared renderer: each part a group of shapes, no HTML inside
+  expect(svgText).toContain('data-part="g1"');
+  expect(svgText).not.toContain('foreignObject');
 });
 
 async function streamBytes(stream: NodeJS.ReadableStream): Promise<Buffer> {
