@@ -20,6 +20,12 @@ export interface FeedbackLoops {
   /** nets read by the loop's gates from outside the loop (each once): entryNet[entryStart[k] … entryStart[k + 1]) */
   entryStart: Int32Array;
   entryNet: Int32Array;
+  /**
+   * the loops whose resolution a net's level can change (those it belongs to or enters), in loop order:
+   * netLoop[netLoopStart[n] … netLoopStart[n + 1]); the simulator re-checks only these after a change
+   */
+  netLoopStart: Int32Array;
+  netLoop: Int32Array;
 }
 
 /** net → net adjacency (CSR) through the combinational parts marked in `gate`. */
@@ -109,21 +115,37 @@ export function findFeedbackLoops(lay: SimLayout, gate: Uint8Array, nNets: numbe
     }
     entryStart[k + 1] = entries.length;
   });
-  return { count: loops.length, loopStart, loopNet, entryStart, entryNet: Int32Array.from(entries) };
+  const entryNet = Int32Array.from(entries);
+  const { start: netLoopStart, items: netLoop } = netToLoops(nNets, loops.length, loopStart, loopNet, entryStart, entryNet);
+  return { count: loops.length, loopStart, loopNet, entryStart, entryNet, netLoopStart, netLoop };
+}
+
+/** Inverts loop → nets (members and entries) into net → loops (CSR, each list in loop order). */
+function netToLoops(nNets: number, count: number, loopStart: Int32Array, loopNet: Int32Array, entryStart: Int32Array, entryNet: Int32Array): { start: Int32Array; items: Int32Array } {
+  const start = new Int32Array(nNets + 1);
+  // a member net is never an entry of its own loop, so no loop is listed twice for a net
+  const each = (visit: (net: number, k: number) => void) => {
+    for (let k = 0; k < count; k++) {
+      for (let i = loopStart[k]; i < loopStart[k + 1]; i++) visit(loopNet[i], k);
+      for (let i = entryStart[k]; i < entryStart[k + 1]; i++) visit(entryNet[i], k);
+    }
+  };
+  each((net) => { start[net + 1]++; });
+  for (let i = 0; i < nNets; i++) start[i + 1] += start[i];
+  const items = new Int32Array(start[nNets]);
+  const fill = start.slice(0, nNets);
+  each((net, k) => { items[fill[net]++] = k; });
+  return { start, items };
 }
 
 /**
- * One round of power-on resolution: for every loop whose entering nets all read 0 or 1 (so its X feeds
- * only itself), the lowest net of the loop for which `isX` holds (at X, no change pending). `known(net)`
- * says whether a net reads 0 or 1 (an undriven net reads the family's floating value).
+ * Whether loop k's X sustains itself — every net entering it reads 0 or 1 (`known`) — and if so the
+ * first net of the loop (driver file order) for which `isX` holds (at X, no change pending); −1 otherwise.
  */
-export function selfSustainedX(loops: FeedbackLoops, isX: (net: number) => boolean, known: (net: number) => boolean, out: number[]): void {
-  for (let k = 0; k < loops.count; k++) {
-    let first = -1;
-    for (let i = loops.loopStart[k]; i < loops.loopStart[k + 1] && first < 0; i++) if (isX(loops.loopNet[i])) first = loops.loopNet[i];
-    if (first < 0) continue;
-    let fed = true;
-    for (let i = loops.entryStart[k]; i < loops.entryStart[k + 1] && fed; i++) fed = known(loops.entryNet[i]);
-    if (fed) out.push(first);
-  }
+export function sustainedXNet(loops: FeedbackLoops, k: number, isX: (net: number) => boolean, known: (net: number) => boolean): number {
+  let first = -1;
+  for (let i = loops.loopStart[k]; i < loops.loopStart[k + 1] && first < 0; i++) if (isX(loops.loopNet[i])) first = loops.loopNet[i];
+  if (first < 0) return -1;
+  for (let i = loops.entryStart[k]; i < loops.entryStart[k + 1]; i++) if (!known(loops.entryNet[i])) return -1;
+  return first;
 }

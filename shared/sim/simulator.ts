@@ -14,7 +14,7 @@ import { evaluatePart, stateSize } from './parts';
 import { isRisingEdge } from './parts/flip-flop';
 import { initialSourceLevel, sourceOutputs } from './parts/sources';
 import { Bouncer } from './bounce';
-import { findFeedbackLoops, selfSustainedX, type FeedbackLoops } from './loops';
+import { findFeedbackLoops, sustainedXNet, type FeedbackLoops } from './loops';
 import type { SimLayout } from './layout';
 import type { ChangeListener, CompiledPart, Netlist, SettleReport, SimStats, SimulatorOptions } from './types';
 
@@ -69,6 +69,19 @@ export class Simulator {
   /** true from power-on until the end of the next settle: that settle may resolve X loops */
   private powerOnPending = false;
   private readonly forced: number[] = [];
+  /** per net: 1 while it is listed in `forced` */
+  private readonly forcedMark: Uint8Array;
+  /**
+   * Worklist of the power-on rounds: after a settle's first round has checked every loop, a later round
+   * re-checks only the loops of which a net or an entering net has changed level, or a net's driver has
+   * gained or lost a pending change, since that check; no other loop's answer can have changed. Without
+   * it a chain of loops that resolve one after the other (a shift register) costs rounds × nets.
+   */
+  private watchLoops = false;
+  private loopMark: Uint8Array = new Uint8Array(0);
+  private loopQueue: Int32Array = new Int32Array(0);
+  private loopQueued = 0;
+  private readonly picked: number[] = [];
   /** per driver slot: 1 when its level was chosen at power-on, so an X evaluation keeps that level */
   private readonly hold: Uint8Array;
   private holding = false;
@@ -110,6 +123,7 @@ export class Simulator {
     this.slotPend = new Uint8Array(nSlots);
     this.slotPendTime = new Float64Array(nSlots);
     this.hold = new Uint8Array(nSlots);
+    this.forcedMark = new Uint8Array(nNets);
     this.state = new Uint8Array(lay.nState);
     this.evaluates = Uint8Array.from(this.parts, (p) => (!isInputKind(p.kind) && p.outputs.length > 0 ? 1 : 0));
     this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
@@ -262,7 +276,19 @@ export class Simulator {
     this.setNetRaw(net, v);
     this.stats.events++;
     if (this.observing && !this.seen[net]) { this.seen[net] = 1; this.seenList[this.seenCount++] = net; }
+    if (this.watchLoops) this.touchLoops(net);
     for (let k = this.fanStart[net]; k < this.fanStart[net + 1]; k++) this.markDirty(this.fanPart[k]);
+  }
+
+  /** Queues the loops whose power-on answer a change at `net` may alter (see watchLoops). */
+  private touchLoops(net: number): void {
+    const loops = this.loops!;
+    for (let i = loops.netLoopStart[net]; i < loops.netLoopStart[net + 1]; i++) {
+      const k = loops.netLoop[i];
+      if (this.loopMark[k]) continue;
+      this.loopMark[k] = 1;
+      this.loopQueue[this.loopQueued++] = k;
+    }
   }
 
   private markDirty(p: number): void {
@@ -277,6 +303,7 @@ export class Simulator {
     this.slotPend[s] = NONE;
     this.slotVal[s] = v;
     const net = this.slotNet[s];
+    if (this.watchLoops) this.touchLoops(net);
     if (this.netDrivers[net] === s) this.setNet(net, v);
   }
 
@@ -323,6 +350,7 @@ export class Simulator {
     if (pend !== NONE) {
       if (pend === v) return;
       this.slotPend[s] = NONE; // inertial: the earlier change is swallowed
+      if (this.watchLoops) this.touchLoops(this.slotNet[s]);
     }
     if (v === this.slotVal[s]) return;
     const d = v === L1 ? this.rise[p] : v === L0 ? this.fall[p] : Math.min(this.rise[p], this.fall[p]);
@@ -330,6 +358,7 @@ export class Simulator {
     this.slotPend[s] = v;
     this.slotPendTime[s] = t;
     this.wheel.push(t, s);
+    if (this.watchLoops) this.touchLoops(this.slotNet[s]);
   }
 
   private nextTime(): number {
@@ -359,6 +388,7 @@ export class Simulator {
     let settled = true;
     const resolving = this.powerOnPending;
     this.powerOnPending = false;
+    for (const net of this.forced) this.forcedMark[net] = 0;
     this.forced.length = 0;
     this.holding = resolving;
     // each round forces at least one net (and a chosen level holds); the bound only guards odd boards
@@ -381,6 +411,11 @@ export class Simulator {
       this.advance(t);
     }
     if (this.holding) { this.holding = false; this.hold.fill(0); }
+    if (this.watchLoops) {
+      this.watchLoops = false;
+      for (let i = 0; i < this.loopQueued; i++) this.loopMark[this.loopQueue[i]] = 0;
+      this.loopQueued = 0;
+    }
     const oscillating: string[] = [];
     if (this.observing) {
       for (let i = 0; i < this.seenCount; i++) { const net = this.seenList[i]; this.seen[net] = 0; if (!settled) oscillating.push(this.netlist.nets[net].name); }
@@ -400,23 +435,42 @@ export class Simulator {
    * One power-on round: in every gate loop whose X sustains itself (all nets entering it read 0 or 1),
    * X net whose driver is listed first powers on low — scheduled as an ordinary change, so delays
    * apply — and holds that level against X for the rest of the settle. Returns the number of nets forced.
+   * The first round of a settle checks every loop; later ones only the loops queued by touchLoops.
    */
   private resolveLoops(): number {
-    let anyX = false;
-    for (let net = 0; net < this.netVal.length && !anyX; net++) anyX = this.netVal[net] === LX && this.netDrivers[net] >= 0;
-    if (!anyX) return 0;
     if (!this.loops) {
+      let anyX = false;
+      for (let net = 0; net < this.netVal.length && !anyX; net++) anyX = this.netVal[net] === LX && this.netDrivers[net] >= 0;
+      if (!anyX) return 0;
       const gate = Uint8Array.from(this.parts, (p, i) => (this.evaluates[i] && stateSize(p.kind) === 0 ? 1 : 0));
       this.loops = findFeedbackLoops(this.layout, gate, this.netVal.length);
+      this.loopMark = new Uint8Array(this.loops.count);
+      this.loopQueue = new Int32Array(this.loops.count);
     }
-    const picked: number[] = [];
-    selfSustainedX(this.loops, (net) => this.netVal[net] === LX && this.slotPend[this.netDrivers[net]] === NONE,
-      (net) => { const v = this.read(net); return v === L0 || v === L1; }, picked);
+    const loops = this.loops;
+    const isX = (net: number) => this.netVal[net] === LX && this.slotPend[this.netDrivers[net]] === NONE;
+    const known = (net: number) => { const v = this.read(net); return v === L0 || v === L1; };
+    const picked = this.picked;
+    picked.length = 0;
+    if (!this.watchLoops) {
+      for (let k = 0; k < loops.count; k++) { const net = sustainedXNet(loops, k, isX, known); if (net >= 0) picked.push(net); }
+      this.watchLoops = true;
+    } else {
+      // in loop order, as a full round would pick them (the order of the scheduled changes matters)
+      const queue = this.loopQueue.subarray(0, this.loopQueued).sort();
+      for (let i = 0; i < queue.length; i++) {
+        const k = queue[i];
+        this.loopMark[k] = 0;
+        const net = sustainedXNet(loops, k, isX, known);
+        if (net >= 0) picked.push(net);
+      }
+      this.loopQueued = 0;
+    }
     for (const net of picked) {
       const s = this.netDrivers[net];
       this.schedule(s, L0, this.layout.slotPart[s]);
       this.hold[s] = 1;
-      if (!this.forced.includes(net)) this.forced.push(net);
+      if (!this.forcedMark[net]) { this.forcedMark[net] = 1; this.forced.push(net); }
     }
     return picked.length;
   }
