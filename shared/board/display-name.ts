@@ -11,7 +11,7 @@ import type { PartKind } from './kinds';
 const SHORT: Record<PartKind, string> = {
   switch: 'Switch', button: 'Button', clock: 'Clock', const: 'Constant', lamp: 'Lamp', probe: 'Probe',
   buffer: 'Buffer', not: 'NOT', and: 'AND', or: 'OR', nand: 'NAND', nor: 'NOR', xor: 'XOR', xnor: 'XNOR',
-  srlatch: 'SR latch', dlatch: 'D latch', dff: 'D flip-flop', mux2: 'Mux2', mux4: 'Mux4', note: 'Note',
+  srlatch: 'SR latch', dlatch: 'D latch', dff: 'D flip-flop', mux2: 'Mux2', mux4: 'Mux4', note: 'Note', port: 'Port', module: 'Module',
 };
 
 /** Every part's readable name, by id: its label, or its kind and number ("NAND 3"). */

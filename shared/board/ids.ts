@@ -11,7 +11,7 @@ import { partsMap, wiresMap } from './ydoc';
 const ID_PREFIX: Record<PartKind, string> = {
   switch: 'sw', button: 'btn', clock: 'clk', const: 'k', lamp: 'lamp', probe: 'probe',
   buffer: 'g', not: 'g', and: 'g', or: 'g', nand: 'g', nor: 'g', xor: 'g', xnor: 'g',
-  srlatch: 'ff', dlatch: 'ff', dff: 'ff', mux2: 'mux', mux4: 'mux', note: 'note',
+  srlatch: 'ff', dlatch: 'ff', dff: 'ff', mux2: 'mux', mux4: 'mux', note: 'note', port: 'p', module: 'u',
 };
 
 /** A short tag of this document's client, so that two users adding a part at once never pick one id. */

@@ -11,3 +11,7 @@ export * from './ydoc';
 export * from './edits';
 export * from './doc-check';
 export * from './display-name';
+export * from './modules';
+export * from './flatten';
+export * from './extract-module';
+export * from './sim-log';

@@ -10,6 +10,7 @@ export const PART_KINDS = [
   'srlatch', 'dlatch', 'dff',
   'mux2', 'mux4',
   'note',
+  'port', 'module',
 ] as const;
 export type PartKind = (typeof PART_KINDS)[number];
 
@@ -76,6 +77,10 @@ export function pinsOf(kind: PartKind, inputs = 2): PinSet {
       return { inputs: ['sel0', 'sel1', 'd0', 'd1', 'd2', 'd3'], outputs: ['out'] };
     case 'note':
       return { inputs: [], outputs: [] };
+    case 'port': // a port `in` (the default here); pinsOfPart reads `dir`
+      return { inputs: [], outputs: ['out'] };
+    case 'module': // an instance: its pins are its module's port labels (pinsOfPart with the board's modules)
+      return { inputs: [], outputs: [] };
     default: {
       const never: never = kind;
       throw new Error(`unknown part kind ${String(never)}`);
@@ -91,4 +96,5 @@ export const KIND_TITLES: Record<PartKind, string> = {
   srlatch: 'SR latch', dlatch: 'D latch', dff: 'D flip-flop (rising edge)',
   mux2: '2:1 multiplexer', mux4: '4:1 multiplexer',
   note: 'Text note',
+  port: 'Port', module: 'Module instance',
 };

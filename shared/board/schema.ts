@@ -33,6 +33,10 @@ export const PartSchema = z.discriminatedUnion('kind', [
   z.object({ ...common, kind: z.literal('mux2') }),
   z.object({ ...common, kind: z.literal('mux4') }),
   z.object({ ...common, kind: z.literal('note'), text: z.string().max(4000).default('') }),
+  // only inside a module (docs/decisions/004-modules.md): `in` drives the inside, `out` reads it
+  z.object({ ...common, kind: z.literal('port'), dir: z.enum(['in', 'out']) }),
+  // an instance of the board's module `module`; its pins are that module's port labels
+  z.object({ ...common, kind: z.literal('module'), module: z.string().min(1).max(64) }),
 ]);
 export type Part = z.infer<typeof PartSchema>;
 
@@ -47,6 +51,23 @@ export const FAMILY_IDS = ['ideal', 'tube-drl-nor', 'relay', 'rtl', 'dtl', 'ttl-
 export const FamilySchema = z.enum(FAMILY_IDS);
 export type FamilyId = z.infer<typeof FamilySchema>;
 
+/** Where a module was copied from: a team-library entry and its version. */
+export const ModuleOriginSchema = z.object({
+  library: z.string().min(1).max(64),
+  version: z.number().int().min(1),
+});
+export type ModuleOrigin = z.infer<typeof ModuleOriginSchema>;
+
+/** A module (CONTRACTS §1): a circuit whose `port` parts are the pins of its instances. */
+export const ModuleSchema = z.object({
+  id: z.string().min(1, 'module id is empty').max(64),
+  title: z.string().max(200).default(''),
+  parts: z.array(PartSchema).max(20000),
+  wires: z.array(WireSchema).max(50000),
+  origin: ModuleOriginSchema.optional(),
+});
+export type Module = z.infer<typeof ModuleSchema>;
+
 export const BoardFileSchema = z.object({
   format: z.literal('gatefold-board'),
   version: z.literal(1),
@@ -54,6 +75,8 @@ export const BoardFileSchema = z.object({
   family: FamilySchema.default('ideal'),
   parts: z.array(PartSchema).max(20000),
   wires: z.array(WireSchema).max(50000),
+  /** present only when the board has modules, so a flat board's file is unchanged */
+  modules: z.array(ModuleSchema).max(500).optional(),
 });
 export type BoardFile = z.infer<typeof BoardFileSchema>;
 /** A piece of a board (what the clipboard holds). */
@@ -61,5 +84,7 @@ export const FragmentSchema = z.object({
   format: z.literal('gatefold-fragment'),
   parts: z.array(PartSchema),
   wires: z.array(WireSchema),
+  /** modules used by the fragment's instances (and the modules they use) */
+  modules: z.array(ModuleSchema).optional(),
 });
 export type Fragment = z.infer<typeof FragmentSchema>;

@@ -1,4 +1,6 @@
-import { BoardFileSchema, type BoardFile, type Part } from './schema';
+import { BoardFileSchema, type BoardFile, type Part, type Wire } from './schema';
+import { checkModuleGraph, checkModuleParts, modulePinTable } from './modules';
+import type { ModulePins } from './pins';
 import { PART_KINDS, type PartKind } from './kinds';
 import { isNamedKind, LABEL_RE, labelProblem } from './labels';
 import { allPins, splitPinRef } from './pins';
@@ -47,40 +49,76 @@ export function parseBoardFile(raw: unknown): ParseResult {
   return problems.length ? { ok: false, problems } : { ok: true, board: shaped.data };
 }
 
-/** Semantic checks of an already well-shaped board. */
+/** Semantic checks of an already well-shaped board, its modules included. */
 export function checkBoard(board: BoardFile): BoardProblem[] {
+  const modules = board.modules ?? [];
+  const pins = modulePinTable(modules);
   const problems: BoardProblem[] = [];
+  // the hierarchy first: a cycle or a missing module explains the rest
+  for (const p of checkModuleGraph(modules, board.parts)) {
+    const mi = modules.findIndex((m) => m.id === p.module);
+    problems.push({ id: p.id ?? p.module, path: mi >= 0 ? `modules[${mi}]` : 'parts', message: p.message });
+  }
+  // then each module's ports (a clash explains the wires to a pin that is not there)
+  modules.forEach((m, mi) => {
+    for (const p of checkModuleParts(m.id, m.parts)) {
+      const i = m.parts.findIndex((part) => part.id === p.id);
+      problems.push({ id: p.id, path: `modules[${mi}].parts[${i}]`, message: p.message });
+    }
+  });
+  problems.push(...checkScope(board.parts, board.wires, pins, null, modules.length > 0));
+  modules.forEach((m, mi) => problems.push(...checkScope(m.parts, m.wires, pins, { id: m.id, index: mi }, true)));
+  return problems;
+}
+
+/**
+ * Checks of one part list with its wires: the top level (`inModule` null) or a module's inside. Labels of
+ * inputs and outputs are unique per list; in a board with modules no part id may hold a `/`, which
+ * separates the path of a part inside an instance (`u3/g2`).
+ */
+function checkScope(
+  list: readonly Part[], wires: readonly Wire[], modulePins: ModulePins, inModule: { id: string; index: number } | null, paths: boolean,
+): BoardProblem[] {
+  const problems: BoardProblem[] = [];
+  const at = inModule ? `modules[${inModule.index}].` : '';
+  const where = inModule ? `module "${inModule.id}": ` : '';
   const parts = new Map<string, Part>();
-  board.parts.forEach((part, i) => {
-    if (parts.has(part.id)) problems.push({ id: part.id, path: `parts[${i}].id`, message: `duplicate part id "${part.id}"` });
+  list.forEach((part, i) => {
+    if (parts.has(part.id)) problems.push({ id: part.id, path: `${at}parts[${i}].id`, message: `${where}duplicate part id "${part.id}"` });
     parts.set(part.id, part);
+    if (paths && part.id.includes('/')) problems.push({ id: part.id, path: `${at}parts[${i}].id`, message: `${where}part id "${part.id}" may not contain "/" (it separates paths inside instances)` });
+    if (!inModule && part.kind === 'port') problems.push({ id: part.id, path: `parts[${i}].kind`, message: `${part.id}: a port belongs inside a module` });
   });
   const labels = new Map<string, string>();
-  board.parts.forEach((part, i) => {
+  list.forEach((part, i) => {
     if (!isNamedKind(part.kind)) return;
     const label = part.label;
     if (label === undefined || label === '') return;
     const problem = labelProblem(label, labels);
-    if (problem) problems.push({ id: part.id, path: `parts[${i}].label`, message: `${part.id}: ${problem}` });
+    if (problem) problems.push({ id: part.id, path: `${at}parts[${i}].label`, message: `${where}${part.id}: ${problem}` });
     else labels.set(label, part.id);
   });
   const wireIds = new Set<string>();
-  board.wires.forEach((wire, i) => {
-    if (wireIds.has(wire.id)) problems.push({ id: wire.id, path: `wires[${i}].id`, message: `duplicate wire id "${wire.id}"` });
+  wires.forEach((wire, i) => {
+    if (wireIds.has(wire.id)) problems.push({ id: wire.id, path: `${at}wires[${i}].id`, message: `${where}duplicate wire id "${wire.id}"` });
     wireIds.add(wire.id);
     for (const end of ['from', 'to'] as const) {
+      const path = `${at}wires[${i}].${end}`;
       const ref = splitPinRef(wire[end]);
       if (!ref) {
-        problems.push({ id: wire.id, path: `wires[${i}].${end}`, message: `${wire.id}: "${wire[end]}" is not of the form part.pin` });
+        problems.push({ id: wire.id, path, message: `${where}${wire.id}: "${wire[end]}" is not of the form part.pin` });
         continue;
       }
       const part = parts.get(ref.part);
       if (!part) {
-        problems.push({ id: wire.id, path: `wires[${i}].${end}`, message: `${wire.id}: wire to missing part "${ref.part}"` });
+        problems.push({ id: wire.id, path, message: `${where}${wire.id}: wire to missing part "${ref.part}"` });
         continue;
       }
-      if (!allPins(part).includes(ref.pin)) {
-        problems.push({ id: wire.id, path: `wires[${i}].${end}`, message: `${wire.id}: part "${part.id}" (${part.kind}) has no pin "${ref.pin}"` });
+      // an instance of a missing module is reported once, as such, not at every wire to it
+      if (part.kind === 'module' && !modulePins.has(part.module)) continue;
+      if (!allPins(part, modulePins).includes(ref.pin)) {
+        const what = part.kind === 'module' ? `instance of module "${part.module}"` : part.kind;
+        problems.push({ id: wire.id, path, message: `${where}${wire.id}: part "${part.id}" (${what}) has no pin "${ref.pin}"` });
       }
     }
   });

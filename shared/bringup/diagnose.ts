@@ -9,7 +9,7 @@
  * single fault equally likely, a larger class is likelier). The next vector is the setting whose
  * predicted lamps split the best-ranked suspects into the most groups (ties: the smallest largest group).
  */
-import { isGateKind, type BoardFile } from '../board';
+import { flattenBoard, isGateKind, type BoardFile } from '../board';
 import { compileBoard, mulberry32, type Netlist } from '../sim';
 import { faultList } from './faults';
 import { FaultSimulator, faultSites, packVectors, bit } from './fsim';
@@ -82,7 +82,9 @@ export function diagnose(board: BoardFile, observed: Observation[], opts: Diagno
  * The work of a diagnosis that does not depend on the observations (suspects, their faulty boards, their
  * readings on the comparison settings), done once; the returned function ranks suspects for observations.
  */
-export function prepareDiagnosis(board: BoardFile, opts: DiagnoseOptions = {}): (observed: Observation[]) => DiagnoseResult {
+export function prepareDiagnosis(hierarchical: BoardFile, opts: DiagnoseOptions = {}): (observed: Observation[]) => DiagnoseResult {
+  // suspects inside instances are named by path (u3/g2); the faulty boards are flat ones
+  const board = flattenBoard(hierarchical);
   const netlist = compileBoard(board);
   const inputs = handInputs(netlist);
   const outputs = readOutputs(netlist, opts.outputs);

@@ -7,7 +7,7 @@
  * else by PODEM (an exhausted search proves it). The candidates that detected something are then
  * reduced to a small cover. Sequential boards: see sequential.ts.
  */
-import { parseBoardFile, type BoardFile } from '../board';
+import { flattenBoard, parseBoardFile, type BoardFile } from '../board';
 import { compileBoard, mulberry32 } from '../sim';
 import { minimumCover, reduceRows } from './cover';
 import { collapseCount, faultList } from './faults';
@@ -64,7 +64,9 @@ export function detectionTable(model: Model, sites: Site[], faultIds: number[], 
 }
 
 /** The test vectors of a board. */
-export function testVectors(board: BoardFile, opts: TestVectorOptions = {}): TestVectorsResult {
+export function testVectors(hierarchical: BoardFile, opts: TestVectorOptions = {}): TestVectorsResult {
+  // faults and rewritten boards name parts inside instances by path (u3/g2), so work on the flat board
+  const board = flattenBoard(hierarchical);
   const netlist = compileBoard(board);
   if (isSequentialBoard(netlist)) return sequentialVectors(board, opts);
   const model = buildModel(board, opts.outputs);

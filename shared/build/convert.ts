@@ -8,7 +8,7 @@
  * Storage parts become their gate circuits (NOR latch, four-NAND D latch, six-NAND D flip-flop), whose
  * power-on state is then that of a gate loop (decision 002), not the part's `init`.
  */
-import { isInputKind, isOutputKind, type BoardFile, type Part } from '../board';
+import { flattenBoard, isInputKind, isOutputKind, type BoardFile, type Part } from '../board';
 import { decompose, type Lit, type SignalDef } from './decompose';
 import { BuildError } from './values';
 
@@ -38,7 +38,9 @@ const GRID = 20;
 const snap = (n: number) => Math.round(n / GRID) * GRID;
 
 /** Converts a board to `target` gates only (see the module comment). */
-export function convertBoard(board: BoardFile, target: ConvertTarget, opts: ConvertOptions = {}): ConvertResult {
+export function convertBoard(hierarchical: BoardFile, target: ConvertTarget, opts: ConvertOptions = {}): ConvertResult {
+  // the converted board is flat: one gate kind throughout, the instances' insides in place
+  const board = flattenBoard(hierarchical);
   if (target !== 'nor' && target !== 'nand') throw new BuildError(`unknown target "${String(target)}" (nor or nand)`, { to: String(target) });
   const logicParts = board.parts.filter((p) => !isInputKind(p.kind) && !isOutputKind(p.kind) && p.kind !== 'note');
   if (!logicParts.length) throw new BuildError('nothing to convert: the board has no gates, multiplexers or storage parts', { parts: 'no logic' });

@@ -130,6 +130,7 @@ export function decompose(board: BoardFile): Decomposed {
         break;
       }
       case 'lamp': case 'probe': case 'note':
+      case 'port': case 'module': // flattened away before (compileBoard)
         break;
       default: {
         const never: never = part.kind;

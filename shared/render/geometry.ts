@@ -4,7 +4,7 @@
  * wherever the shape allows, so that parts placed on the grid give straight wires. The canvas and the
  * board picture (board-svg.ts) both draw from here.
  */
-import { pinsOf, type PartKind } from '../board';
+import { pinsOf, pinsOfPart, type ModulePins, type PartKind, type PinSet } from '../board';
 import type { Part } from '../board';
 
 export const GRID = 20;
@@ -79,6 +79,10 @@ export function shapeOf(kind: PartKind, inputs = 2): PartShape {
       };
     case 'note':
       return { w: 160, h: 60, pins: [] };
+    case 'port': // a port `in` (placedShape reads `dir`): a tag that drives the module's inside
+      return { w: 80, h: 40, pins: column(p.outputs, 80, 'right', true) };
+    case 'module': // an instance without its module's pins (placedShape gives them)
+      return instanceShape(p);
     default: {
       const never: never = kind;
       throw new Error(`unknown part kind ${String(never)}`);
@@ -121,9 +125,33 @@ export function rotationTransform(w: number, h: number, rotation: Rotation): str
   }
 }
 
-/** Shape of a placed part with its rotation applied: the box and the pins as they sit on the canvas. */
-export function placedShape(part: Part): PartShape & { rotation: Rotation; baseW: number; baseH: number } {
-  const base = part.kind === 'note' ? noteShape(part.text) : shapeOf(part.kind, 'inputs' in part ? part.inputs : 2);
+/**
+ * An instance of a module: a box with a title band, its inputs down the left and its outputs down the
+ * right, one grid step apart (docs/decisions/004-modules.md).
+ */
+export function instanceShape(pins: PinSet): PartShape {
+  const rows = Math.max(1, pins.inputs.length, pins.outputs.length);
+  return {
+    w: 140, h: 2 * GRID + rows * GRID,
+    pins: [...column(pins.inputs, 0, 'left', false, 2 * GRID), ...column(pins.outputs, 140, 'right', true, 2 * GRID)],
+  };
+}
+
+function baseShape(part: Part, modules?: ModulePins): PartShape {
+  switch (part.kind) {
+    case 'note': return noteShape(part.text);
+    case 'port': return part.dir === 'out' ? { w: 80, h: 40, pins: column(['in'], 0, 'left', false) } : shapeOf('port');
+    case 'module': return instanceShape(pinsOfPart(part, modules));
+    default: return shapeOf(part.kind, 'inputs' in part ? part.inputs : 2);
+  }
+}
+
+/**
+ * Shape of a placed part with its rotation applied: the box and the pins as they sit on the canvas.
+ * An instance needs `modules` (its module's pins) to show its pins.
+ */
+export function placedShape(part: Part, modules?: ModulePins): PartShape & { rotation: Rotation; baseW: number; baseH: number } {
+  const base = baseShape(part, modules);
   const rotation = (part.rotation ?? 0) as Rotation;
   const turned = rotation === 90 || rotation === 270;
   return {

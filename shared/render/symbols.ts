@@ -129,6 +129,15 @@ export function symbolSvg(part: Part, w: number, h: number, t: RenderTheme): str
     }
     case 'note':
       return '';
+    case 'port': {
+      // a tag pointing the way the signal flows: into the module (in) or out of it (out)
+      const into = part.dir !== 'out';
+      const d = into ? `M2 4 H${w - 30} L${w - 18} ${h / 2} L${w - 30} ${h - 4} H2 Z` : `M18 4 H${w - 2} V${h - 4} H18 L6 ${h / 2} Z`;
+      return (into ? line(w - 18, h / 2, w, h / 2, t.wire) : line(0, h / 2, 6, h / 2, t.wire)) + body(d, t)
+        + text(into ? 8 : 24, h / 2 + 4, part.label ?? '', 11, t.text);
+    }
+    case 'module':
+      return text(w / 2, 14, part.label || part.module, 10, t.text, 'middle') + body(`M20 20 H${w - 20} V${h - 2} H20 Z`, t);
     default: {
       const never: never = part;
       throw new Error(`no symbol for ${String((never as Part).kind)}`);

@@ -2,7 +2,7 @@
  * Board → netlist: nets as unions of joined pins (union-find), their drivers and readers, and the driver
  * analysis (undriven nets, conflicting drivers).
  */
-import { isInputKind, isOutputKind, pinsOfPart, signalName, splitPinRef, type BoardFile, type FamilyId, type Part } from '../board';
+import { flattenBoard, isInputKind, isOutputKind, pinsOfPart, signalName, splitPinRef, type BoardFile, type FamilyId, type Part } from '../board';
 import { familyDelays } from './families';
 import type { CompiledPart, NetInfo, NetProblem, Netlist, PinRef } from './types';
 
@@ -32,8 +32,11 @@ export function partPins(part: Part): { inputs: string[]; outputs: string[] } {
 /**
  * Compiles a board into a netlist. Wires to unknown parts or pins are skipped here (parseBoardFile
  * reports them); every pin belongs to exactly one net, an unconnected pin to a net of its own.
+ * A board with modules is flattened first (flattenBoard): the netlist's parts and `board` are the flat
+ * ones, with path ids such as `u3/g2`.
  */
-export function compileBoard(board: BoardFile, opts: CompileOptions = {}): Netlist {
+export function compileBoard(hierarchical: BoardFile, opts: CompileOptions = {}): Netlist {
+  const board = flattenBoard(hierarchical);
   const family = opts.family ?? board.family ?? 'ideal';
   const delays = familyDelays(family);
   // Slot per pin: part p's pins are slots base[p] … base[p] + count − 1 (inputs first).

@@ -109,6 +109,7 @@ function partLines(p: CompiledPart, wire: string[], ports: Map<CompiledPart, str
       return r;
     }
     case 'note':
+    case 'port': case 'module': // flattened away by compileBoard
       return [];
     default: {
       const never: never = p.kind;

@@ -23,6 +23,18 @@ export function structureKey(board: BoardFile): string {
     }
   }
   for (const w of board.wires) key += `\u0002${w.from}>${w.to}`;
+  // a module's inside is part of the circuit; its ports' labels are its instances' pin names
+  for (const m of board.modules ?? []) {
+    key += `\u0003${m.id}`;
+    for (const part of m.parts) {
+      if (part.kind === 'note' || part.kind === 'lamp' || part.kind === 'probe') continue;
+      key += '\u0001';
+      for (const field in part) {
+        if (!NON_STRUCTURAL.has(field) || (part.kind === 'port' && field === 'label')) key += `${field}=${String((part as Record<string, unknown>)[field])};`;
+      }
+    }
+    for (const w of m.wires) key += `\u0002${w.from}>${w.to}`;
+  }
   return key;
 }
 

@@ -32,6 +32,7 @@ export function inspectorFields(kind: PartKind): InspectorField[] {
     case 'srlatch': case 'dlatch': case 'dff': return [POWER_ON];
     case 'note': return [{ field: 'text', control: 'text', title: 'Text' }];
     case 'switch': case 'lamp': case 'probe': case 'buffer': case 'not': case 'mux2': case 'mux4': return [];
+    case 'port': case 'module': return []; // a port's label is its pin name; an instance is edited by opening it
     default: {
       const never: never = kind;
       throw new Error(`unknown part kind ${String(never)}`);
@@ -43,6 +44,9 @@ export function inspectorFields(kind: PartKind): InspectorField[] {
 export function operatedFields(kind: PartKind): string[] {
   if (kind === 'switch') return ['on'];
   if (kind === 'button') return ['pressed'];
+  // a port's direction and an instance's module are set by the module edits (make module, place instance)
+  if (kind === 'port') return ['dir'];
+  if (kind === 'module') return ['module'];
   return [];
 }
 

@@ -50,6 +50,8 @@ export function newPart(choice: TrayChoice, x: number, y: number, parts: readonl
     case 'mux2':
     case 'mux4': return { ...base, kind };
     case 'note': return { ...base, kind, text: 'Note' };
+    case 'port': return { ...base, kind, dir: 'in' };
+    case 'module': throw new Error('an instance is placed from the board\'s modules (placeInstance)');
     default: {
       const never: never = kind;
       throw new Error(`cannot place ${String(never)}`);

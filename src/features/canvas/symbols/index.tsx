@@ -5,6 +5,7 @@ import { BufferSymbol, GateSymbol } from './gate-symbols';
 import { ButtonSymbol, ClockSymbol, ConstSymbol, SwitchSymbol } from './input-symbols';
 import { LampSymbol, ProbeSymbol } from './output-symbols';
 import { MuxSymbol, StorageSymbol } from './storage-symbols';
+import { InstanceSymbol, PortSymbol } from '../modules/module-symbols';
 
 /** SVG content of a part in its unrotated box; `shown` is the switch/button state to draw. */
 export function PartSymbol(props: SymbolProps & { shown: boolean }) {
@@ -30,6 +31,8 @@ export function PartSymbol(props: SymbolProps & { shown: boolean }) {
     case 'mux2':
     case 'mux4': return <MuxSymbol {...props} part={part} />;
     case 'note': return null; // drawn as HTML text by the node
+    case 'port': return <PortSymbol {...props} part={part} />;
+    case 'module': return <InstanceSymbol {...props} part={part} />;
     default: {
       const never: never = part;
       throw new Error(`no symbol for ${String((never as Part).kind)}`);

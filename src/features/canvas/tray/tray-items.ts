@@ -5,7 +5,7 @@ import type { TrayChoice } from '../lib/new-part';
 export interface TrayItem extends TrayChoice {
   key: string;
   title: string;
-  group: 'Inputs' | 'Outputs' | 'Gates' | 'Storage' | 'Blocks' | 'Annotation';
+  group: 'Inputs' | 'Outputs' | 'Gates' | 'Storage' | 'Blocks' | 'Modules' | 'Annotation';
   /** gates offer an input-count choice */
   multiInput: boolean;
   keywords: string;
@@ -31,6 +31,7 @@ export const TRAY_ITEMS: TrayItem[] = [
   item('dff', 'Storage', 'd flip-flop flipflop edge register storage memory'),
   item('mux2', 'Blocks', 'multiplexer mux 2:1 select'),
   item('mux4', 'Blocks', 'multiplexer mux 4:1 select'),
+  item('port', 'Modules', 'port module pin input output'),
   item('note', 'Annotation', 'text note comment'),
 ];
 
