@@ -17,6 +17,12 @@ import { splitPinRef } from './pins';
 import { BoardFileSchema, FamilySchema, PartSchema, WireSchema, type Part } from './schema';
 import { PART_FIELDS, metaMap, partsMap, pinExists, readPart, wiresMap } from './ydoc';
 import { repairBoard } from './edits-bulk';
+import { SIMLOG_ROOT, checkSimLog } from './sim-log';
+
+/** The room's simulation record (sim-log.ts), a root of its own with its own check. */
+function simLogProblems(doc: Y.Doc): DocProblem[] {
+  return checkSimLog(doc).map((message) => ({ kind: 'shape' as const, where: 'root' as const, key: SIMLOG_ROOT, message }));
+}
 
 /** One problem of a document; `key` is the part or wire id (the map key), or the meta key. */
 export interface DocProblem {
@@ -153,6 +159,10 @@ export function touchedBy(tr: Y.Transaction, into: DocTouched = emptyTouched()):
 export function checkDocChanges(doc: Y.Doc, touched: DocTouched): DocProblem[] {
   const problems: DocProblem[] = [];
   for (const name of touched.strays) {
+    if (name === SIMLOG_ROOT) {
+      problems.push(...simLogProblems(doc));
+      continue;
+    }
     problems.push({ kind: 'shape', where: 'root', key: name, message: `content outside the board's parts, wires and meta (${shownKey(name)})` });
   }
   const parts = partsMap(doc);
@@ -176,6 +186,10 @@ function hasContent(type: Y.AbstractType<any>): boolean {
 export function checkDoc(doc: Y.Doc): DocProblem[] {
   const problems: DocProblem[] = [];
   for (const [name, type] of doc.share) {
+    if (name === SIMLOG_ROOT) {
+      problems.push(...simLogProblems(doc));
+      continue;
+    }
     const root = ROOTS.includes(name as (typeof ROOTS)[number]);
     if ((!root && hasContent(type)) || (root && type._start !== null)) {
       problems.push({ kind: 'shape', where: 'root', key: name, message: `content outside the board's parts, wires and meta (${shownKey(name)})` });

@@ -20,3 +20,5 @@ export { TraceRecorder, type TraceBatch } from './trace-recorder';
 export { structureKey, documentValue, inputSignature } from './board-diff';
 export { partBadges, type Badge, type BadgeTone } from './badges';
 export type { LiveCommand, LiveUpdate, LivePort, LiveReport } from './messages';
+export { RoomRun, type RoomClock } from './room-run';
+export { stateChanges, type StateChange } from './state-changes';

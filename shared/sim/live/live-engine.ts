@@ -8,6 +8,9 @@ import type { Timers } from './clock-driver';
 import { LiveSimulation, type LiveOptions } from './live-simulation';
 import type { LivePort, LiveCommand, LiveUpdate } from './messages';
 import { TraceRecorder } from './trace-recorder';
+import { RoomRun } from './room-run';
+import { stateChanges, type StateChange } from './state-changes';
+import type { SimLogEntry } from '../../board';
 
 /**
  * Level codes of every pin in the order of the `compiled.keys` (each part's input pins, then its output
@@ -33,6 +36,8 @@ export function packLevels(netlist: Netlist, sim: Simulator): Uint8Array {
 
 /** Wall time one clock tick may spend simulating. */
 const RUN_BUDGET_MS = 40;
+/** How often the screen driving the room's clock hands its due cycles to the record. */
+const DUE_EVERY_MS = 250;
 
 /**
  * A live simulation spoken to in messages (`LiveCommand` in, `LiveUpdate` out) — what the bench's worker
@@ -43,6 +48,15 @@ export class LiveEngine {
   private readonly recorder = new TraceRecorder();
   private unsubscribe: (() => void) | undefined;
   readonly live: LiveSimulation;
+  readonly room: RoomRun;
+  /** this screen's document client id once it joined the room's run */
+  private me: number | null = null;
+  private following = true;
+  private entries: readonly SimLogEntry[] = [];
+  private dueHalves = 0;
+  private dueAt = 0;
+  /** what the last structural edit did to stored state */
+  private changes: StateChange[] = [];
 
   constructor(private readonly post: (msg: LiveUpdate, transfer?: Transferable[]) => void, timers: Timers, opts: Omit<LiveOptions, 'onCompile' | 'onRisingEdge'> = {}) {
     this.live = new LiveSimulation(timers, {
@@ -50,9 +64,42 @@ export class LiveEngine {
       onCompile: (netlist) => this.compiled(netlist),
       onRisingEdge: (time) => this.recorder.edge(time),
     }, (n) => {
+      if (this.inRoom) return this.owe(n);
       this.live.halfCycles(n, RUN_BUDGET_MS);
       this.flush();
     });
+    this.room = new RoomRun(this.live);
+  }
+
+  /** Following the room's run (not in a private try-out of the clock). */
+  private get inRoom(): boolean {
+    return this.me !== null && this.following;
+  }
+
+  /** The room's clock runs on this screen: gather due half-cycles and hand whole cycles to the page now and then. */
+  private owe(halves: number): void {
+    this.dueHalves += halves;
+    const now = this.live.clock.now();
+    const cycles = Math.floor(this.dueHalves / 2);
+    if (cycles < 1 || now - this.dueAt < DUE_EVERY_MS) return;
+    this.dueAt = now;
+    this.dueHalves -= 2 * cycles;
+    this.post({ type: 'due', cycles });
+  }
+
+  /** Runs the local clock driver exactly when this screen drives the room's running clock. */
+  private drive(): void {
+    if (!this.inRoom) return;
+    const { running, driver, rate } = this.room.clock;
+    const clock = this.live.clock;
+    if (running && driver === this.me) {
+      if (clock.rate !== rate) clock.setRate(rate);
+      if (!clock.running) {
+        this.dueHalves = 0;
+        this.dueAt = clock.now();
+        clock.run();
+      }
+    } else if (clock.running) clock.pause();
   }
 
   handle(msg: LiveCommand): void {
@@ -66,8 +113,33 @@ export class LiveEngine {
   private dispatch(msg: LiveCommand): void {
     const live = this.live;
     switch (msg.type) {
-      case 'load':
+      case 'load': {
+        const before = live.sim && live.netlist ? { sim: live.sim, netlist: live.netlist } : null;
         if (live.load(msg.board, msg.tryOut)) this.attach();
+        // A new circuit replays the room's run, so its stored state is what every screen (and a late
+        // joiner) gets for this circuit; what that changed is reported.
+        if (this.inRoom && live.sim && live.netlist && live.sim !== before?.sim && this.entries.length) {
+          this.room.replay(this.entries);
+          if (before) this.changes = stateChanges(before, { sim: live.sim, netlist: live.netlist });
+        }
+        break;
+      }
+      case 'room': {
+        const back = msg.following && !this.following;
+        this.me = msg.me;
+        this.following = msg.following;
+        if (!msg.following) break;
+        if (back) live.clock.pause();
+        if (live.sim && (back || this.entries.length)) this.room.replay(this.entries);
+        this.drive();
+        break;
+      }
+      case 'room-log':
+        this.entries = msg.entries;
+        if (this.inRoom && live.sim) {
+          this.room.sync(msg.entries);
+          this.drive();
+        }
         break;
       case 'set-input':
         live.setTryOut([[msg.partId, msg.value]]);
@@ -153,7 +225,8 @@ export class LiveEngine {
         time: this.recorder.base + sim.time,
         events: sim.stats.events,
         lastEvents: report.events,
-        clock: { running: clock.running, rate: clock.rate, cycles: clock.cycles },
+        clock: this.inRoom ? { running: this.room.clock.running, rate: this.room.clock.rate, cycles: this.room.clock.cycles } : { running: clock.running, rate: clock.rate, cycles: clock.cycles },
+        ...(this.me !== null ? { room: { following: this.following, replays: this.room.replays, changes: this.changes } } : {}),
         badges,
         pulsing,
         ...this.recorder.take(),

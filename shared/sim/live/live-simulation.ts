@@ -50,6 +50,8 @@ export class LiveSimulation {
   private labels = '';
   private current = new Map<string, Part>();
   private tryOut = new Map<string, boolean>();
+  /** the room's input values (its simulation record, room-run.ts), under the try-out and over the document's */
+  private shared = new Map<string, boolean>();
   private applied = new Map<string, boolean>();
   private driven = new Set<string>();
   private unsettled = false;
@@ -126,6 +128,24 @@ export class LiveSimulation {
   setTryOut(values: Iterable<[string, boolean]>, gap = true): boolean {
     for (const [id, v] of values) this.tryOut.set(id, v);
     return this.apply(gap);
+  }
+
+  /**
+   * The room's input values: `replace` starts over with exactly `values` (a reset of the room's run),
+   * otherwise they are added. Applied half a period after the last change unless `gap` is false.
+   */
+  setShared(values: Iterable<[string, boolean]>, { replace = false, gap = true } = {}): boolean {
+    if (replace) this.shared.clear();
+    for (const [id, v] of values) this.shared.set(id, v);
+    return this.apply(gap);
+  }
+
+  /** Power-on again as the room's run does at a reset: clock low and uncounted, `inputs`, stored state to power-on. */
+  powerOnWith(inputs: Iterable<[string, boolean]>): void {
+    if (!this.sim) return;
+    this.clock.restart();
+    this.setShared(inputs, { replace: true, gap: false });
+    this.resetState();
   }
 
   /** Forgets every try-out value. */
@@ -208,7 +228,7 @@ export class LiveSimulation {
     if (this.driven.has(part.id) && this.clock.cycles > 0) return this.clock.phase;
     if (part.kind === 'clock') return false;
     if (part.kind === 'const') return part.value === 1;
-    return this.tryOut.get(part.id) ?? documentValue(part) ?? false;
+    return this.tryOut.get(part.id) ?? this.shared.get(part.id) ?? documentValue(part) ?? false;
   }
 
   /**

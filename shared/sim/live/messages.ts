@@ -2,8 +2,9 @@
  * What a live simulation is told and what it reports, as unions on `type` — plain data, so the page can
  * send them to a worker (the bench) and tests can drive the engine directly.
  */
-import type { BoardFile, FamilyId } from '../../board';
+import type { BoardFile, FamilyId, SimLogEntry } from '../../board';
 import type { Level } from '../levels';
+import type { StateChange } from './state-changes';
 
 /** Commands to a live simulation. */
 export type LiveCommand =
@@ -20,6 +21,14 @@ export type LiveCommand =
   | { type: 'reset-state' }
   /** power-on again with the tube heaters cold for `units` time units (gate outputs high), then let them warm */
   | { type: 'warm-up'; units: number }
+  /**
+   * Join the room's run (decision 005): `me` is this screen's document client id (the screen that
+   * appended a `run` drives the clock); `following` false while a viewer tries the clock privately —
+   * back to true replays the room's record.
+   */
+  | { type: 'room'; me: number; following: boolean }
+  /** the room's simulation record, whole, in the room's order (shared/board sim-log.ts) */
+  | { type: 'room-log'; entries: SimLogEntry[] }
   /** signals (net names) the timing strip records from now on; rows already recorded keep their history */
   | { type: 'subscribe'; signals: string[] }
   /** forget the recording so far and record the same signals from now on */
@@ -71,6 +80,8 @@ export type LiveUpdate =
       /** events of the last settle */
       lastEvents: number;
       clock: { running: boolean; rate: number; cycles: number };
+      /** in a room: following its run (else a private try-out of the clock), and what the last edit did to stored state */
+      room?: { following: boolean; replays: number; changes: StateChange[] };
       /** new timing-strip changes since the last state: [signal index, time, level code] triples */
       trace: number[];
       /** rising clock edges since the last state */
@@ -82,4 +93,6 @@ export type LiveUpdate =
       /** set when the rows changed (another choice of signals, a signal gone): rows that stay keep their history */
       traceReset?: { signals: string[]; at: number; fresh?: boolean };
     }
+  /** this screen drives the room's running clock: `cycles` full cycles are due (the page appends them to the record) */
+  | { type: 'due'; cycles: number }
   | { type: 'error'; message: string };

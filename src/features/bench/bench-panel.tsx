@@ -6,6 +6,7 @@ import { FamilyField } from './family-field';
 import { InputRow, OutputRow } from './port-rows';
 import { SettleStatus } from './settle-status';
 import { TryOutChip } from './try-out-chip';
+import { StateChanges } from './state-changes';
 import type { LiveSim, LiveSimSession } from './use-live-sim';
 import { plural } from '../../lib/plural';
 
@@ -41,6 +42,7 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
         <button type="button" onClick={sim.resetState} className="h-7 rounded border border-mat-600 bg-mat-800 px-2.5 text-xs hover:bg-mat-700" title="Latches and flip-flops back to their power-on value; gate loops to X">
           Reset stored state
         </button>
+        <StateChanges changes={sim.room.changes} />
         <div className="mt-2">
           <SettleStatus report={sim.report} family={sim.family} board={session.board} names={names} />
         </div>

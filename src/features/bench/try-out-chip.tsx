@@ -7,7 +7,7 @@ export function TryOutChip({ onReset }: { onReset(): void }) {
     <p data-testid="try-out-chip" className="inline-flex items-center gap-2 rounded-full border border-amber-500/60 bg-amber-500/10 px-3 py-1 text-xs text-amber-200">
       Try-out — only you see this
       <span aria-hidden="true">·</span>
-      <button type="button" onClick={onReset} className="font-semibold underline hover:text-amber-100">Reset</button>
+      <button type="button" onClick={onReset} className="font-semibold underline hover:text-amber-100">Reset: back to live</button>
     </p>
   );
 }

@@ -1,11 +1,12 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type * as Y from 'yjs';
 import type { BoardFile } from '../../../shared/board';
-import { setPartField } from '../../../shared/board';
+import { inputValuesOf, setPartField } from '../../../shared/board';
 import { emptyTrace, type Trace, type SignalChoice } from '../timing';
 import { decodeLevels, type Badge, type Level, type LiveCommand, type LivePort, type LiveReport, type LiveUpdate } from '../../../shared/sim';
 import { pulsingWireIds } from './pulse-style';
 import { applyTrace } from './trace-store';
+import { useRoomRun } from './use-room-run';
 
 /** What the hook needs of a board session (the canvas's `BoardSession` fits). */
 export interface LiveSimSession {
@@ -46,6 +47,11 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   const tryOutRef = useRef(tryOutValues);
 
   const send = useCallback((msg: LiveCommand) => worker.current?.postMessage(msg), []);
+  // The room's run: editors write the clock, resets and inputs into the room's record; viewers follow it
+  // unless they tried the clock themselves.
+  const room = useRoomRun(session.doc, session.origin, { editor: !tryOut, following: !clockTried, send });
+  const dueRef = useRef((cycles: number) => { if (!tryOut) room.append([{ kind: 'cycles', n: cycles }]); });
+  dueRef.current = (cycles: number) => { if (!tryOut) room.append([{ kind: 'cycles', n: cycles }]); };
 
   useEffect(() => {
     const w = new Worker(new URL('./sim-worker.ts', import.meta.url), { type: 'module' });
@@ -67,6 +73,9 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
           setState({ ...msg, keys });
           break;
         }
+        case 'due':
+          dueRef.current(msg.cycles);
+          break;
         case 'error':
           setError(msg.message);
           break;
@@ -119,17 +128,19 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
     tryOutRef.current = new Map();
     setTryOutValues(tryOutRef.current);
     send({ type: 'clear-try-out' });
-    if (clockTried) {
-      send({ type: 'clock', action: 'pause' });
-      send({ type: 'reset-state' });
-      setClockTried(false);
-    }
+    // back to live: following the room's run again replays its record
+    if (clockTried) setClockTried(false);
   }, [send, clockTried]);
   /** A clock command; for a viewer it marks the view as a try-out. */
   const clockAction = useCallback((action: 'run' | 'pause' | 'step') => {
-    if (tryOut && action !== 'pause') setClockTried(true);
+    if (!tryOut) {
+      const rate = state?.clock.rate ?? 1;
+      room.append([action === 'run' ? { kind: 'run', rate, by: session.doc.clientID } : { kind: action }]);
+      return;
+    }
+    if (action !== 'pause') setClockTried(true);
     send({ type: 'clock', action });
-  }, [send, tryOut]);
+  }, [send, tryOut, room, state?.clock.rate, session.doc]);
 
   /** Sets an input from the bench: a private try-out for viewers, a document edit for editors. */
   const setInput = useCallback((partId: string, value: boolean) => {
@@ -172,9 +183,15 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
       run: () => clockAction('run'),
       pause: () => clockAction('pause'),
       step: () => clockAction('step'),
-      setRate: (hz: number) => send({ type: 'rate', hz }),
+      setRate: (hz: number) => (tryOut && clockTried ? send({ type: 'rate', hz }) : tryOut ? undefined : room.append([{ kind: 'rate', hz }])),
     },
-    resetState: () => send({ type: 'reset-state' }),
+    resetState: () => {
+      if (!tryOut) return room.append([{ kind: 'reset', inputs: inputValuesOf(session.doc) }]);
+      setClockTried(true); // a viewer's reset is theirs alone
+      send({ type: 'reset-state' });
+    },
+    /** in the room's run: following it, and which stored states the last edit changed (and why) */
+    room: state?.room ?? { following: true, replays: 0, changes: [] },
     /** power on again with the tube heaters cold for `units` time units (shared/sim warm-up) */
     warmUp: (units: number) => send({ type: 'warm-up', units }),
     /** a viewer's private changes: input values, and whether they stepped or ran the clock themselves */
