@@ -35,7 +35,8 @@ export interface BoardStore {
   load(boardId: number): Promise<StoredBoard>;
   /**
    * Appends updates after the stored ones, all or nothing, and marks the board changed now (lists
-   * sort it first). Seqs are the caller's: a room numbers its own; others ask `lastSeq` under the lock.
+   * sort it first). The store numbers them after the highest stored seq, in the given order (several
+   * servers may append to one board); a caller's `seq` is its own count and may be lower.
    */
   append(boardId: number, updates: NewBoardUpdate[]): Promise<void>;
   /** The highest stored seq (0 when none). */

@@ -1,4 +1,4 @@
-import type { Db } from './knex';
+import { isPostgres, type Db } from './knex';
 
 export interface MemberRow {
   user_id: number;
@@ -19,7 +19,7 @@ export async function listMembers(db: Db, boardId: number): Promise<MemberRow[]>
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.board_id', boardId)
     .select('m.user_id', 'u.email', 'u.name', 'm.role')
-    .orderByRaw("case m.role when 'owner' then 0 when 'editor' then 1 else 2 end, u.name collate nocase, u.id");
+    .orderByRaw(`case m.role when 'owner' then 0 when 'editor' then 1 else 2 end, ${isPostgres(db) ? 'lower(u.name)' : 'u.name collate nocase'}, u.id`);
 }
 
 export async function findMember(db: Db, boardId: number, userId: number): Promise<MemberRow | undefined> {

@@ -1,7 +1,7 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
-import type { Db } from './knex';
+import { isPostgres, type Db } from './knex';
 
-/** Sessions live in the same SQLite file, table `sessions` (the store creates it). */
+/** Sessions live in the same database (SQLite file or PostgreSQL), table `sessions` (the store creates it); every server shares them. */
 export function createSessionStore(db: Db): ConnectSessionKnexStore {
   return new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 10 * 60 * 1000 });
 }
@@ -14,7 +14,10 @@ export function stopSessionStore(store: ConnectSessionKnexStore): void {
 
 /** Signs a user out everywhere (after a password reset), except the session `keepSid`. */
 export async function deleteSessionsOfUser(db: Db, userId: number, keepSid?: string): Promise<number> {
-  const q = db('sessions').whereRaw("json_extract(sess, '$.userId') = ?", [userId]);
+  // connect-session-knex stores `sess` as json on PostgreSQL and as text on SQLite
+  const q = isPostgres(db)
+    ? db('sessions').whereRaw("(sess->>'userId') = ?", [String(userId)])
+    : db('sessions').whereRaw("json_extract(sess, '$.userId') = ?", [userId]);
   if (keepSid) q.whereNot('sid', keepSid);
   return q.del();
 }

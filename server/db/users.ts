@@ -1,4 +1,4 @@
-import type { Db } from './knex';
+import { isPostgres, isUniqueViolation, type Db } from './knex';
 
 /** A row of `users`, with the password hash (never sent to a client). */
 export interface UserRow {
@@ -27,9 +27,16 @@ export async function insertUser(
   db: Db,
   u: { email: string; name: string; passwordHash: string; isAdmin: boolean; createdAt: string },
 ): Promise<number> {
-  const [row] = await db('users')
-    .insert({ email: u.email, name: u.name, password_hash: u.passwordHash, is_admin: u.isAdmin, created_at: u.createdAt })
-    .returning('id');
+  let row: unknown;
+  try {
+    [row] = await db('users')
+      .insert({ email: u.email, name: u.name, password_hash: u.passwordHash, is_admin: u.isAdmin, created_at: u.createdAt })
+      .returning('id');
+  } catch (err) {
+    // callers recognise a taken e-mail by SQLite's wording; PostgreSQL's (code 23505) is made the same here
+    if (isPostgres(db) && isUniqueViolation(err)) throw new Error('UNIQUE constraint failed: users.email', { cause: err });
+    throw err;
+  }
   return typeof row === 'object' ? (row as { id: number }).id : (row as number);
 }
 

@@ -115,10 +115,11 @@ describe('reset tokens are never stored or shown readable', () => {
 
   it('masks reset links stored before the change (migration)', async () => {
     const live = 'http://gatefold.test/reset/abcdefghijklmnopqrstuvwxyz0123456789ABCDEFG';
-    const [id] = await t.ctx.db('mail_messages').insert({
+    const [inserted] = await t.ctx.db('mail_messages').insert({
       from_addr: 'a', to_addr: 'b', subject: 'Reset your Gatefold password', date: new Date().toISOString(),
       text: `Choose a new password: ${live}`, html: `<a href="${live}">x</a>`, received_at: new Date().toISOString(),
-    });
+    }).returning('id');
+    const id = typeof inserted === 'object' ? (inserted as { id: number }).id : inserted; // PostgreSQL: a row, SQLite: the id
     await maskStoredResetLinks(t.ctx.db);
     const row = await t.ctx.db('mail_messages').where({ id }).first();
     expect(row.text).toBe('Choose a new password: http://gatefold.test/reset/hidden-see-server-console');

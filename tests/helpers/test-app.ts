@@ -7,6 +7,7 @@ import { loadConfig, type AppConfig } from '../../server/config';
 import { startServer } from '../../server/index';
 import type { ApiMail } from '../../shared/api';
 import type { CaughtMail } from '../../server/services/mail-catcher';
+import { createTestDatabase, dropTestDatabase } from './test-database';
 
 /** The origin test agents send, and the PUBLIC_URL the test app links to in e-mails. */
 export const TEST_ORIGIN = 'http://gatefold.test';
@@ -71,7 +72,9 @@ export function tokenFromMail(mail: Pick<ApiMail, 'text'>, prefix: 'invitations'
  * with the real SMTP catcher. Call `close()` in afterAll/afterEach: it closes the app and removes the dir.
  */
 export async function createTestApp(overrides: TestAppOverrides = {}): Promise<TestApp> {
-  const { config, dir } = testConfig(overrides);
+  // on PostgreSQL (project api-postgres) each app gets its own fresh database
+  const databaseUrl = 'databaseUrl' in overrides ? overrides.databaseUrl : await createTestDatabase();
+  const { config, dir } = testConfig({ databaseUrl, ...overrides });
   const ctx = await createApp(config);
   const deliveries = collectDeliveries(ctx);
   const request = () => supertest.agent(ctx.app).set('Origin', TEST_ORIGIN);
@@ -102,6 +105,7 @@ export async function createTestApp(overrides: TestAppOverrides = {}): Promise<T
     },
     async close() {
       await ctx.close();
+      if (databaseUrl !== overrides.databaseUrl) await dropTestDatabase(databaseUrl);
       rmSync(dir, { recursive: true, force: true });
     },
   };
@@ -141,7 +145,8 @@ export interface TestServer {
  * e-mailed links point at `url`. Pass `seedDemo: true` for the demo data.
  */
 export async function startTestServer(overrides: TestAppOverrides = {}): Promise<TestServer> {
-  const { config, dir } = testConfig({ publicUrl: undefined, ...overrides });
+  const databaseUrl = 'databaseUrl' in overrides ? overrides.databaseUrl : await createTestDatabase();
+  const { config, dir } = testConfig({ publicUrl: undefined, databaseUrl, ...overrides });
   const running = await startServer(config);
   return {
     url: running.url,
@@ -149,6 +154,7 @@ export async function startTestServer(overrides: TestAppOverrides = {}): Promise
     deliveries: collectDeliveries(running.ctx),
     async close() {
       await running.close();
+      if (databaseUrl !== overrides.databaseUrl) await dropTestDatabase(databaseUrl);
       rmSync(dir, { recursive: true, force: true });
     },
   };
