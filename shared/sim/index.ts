@@ -27,5 +27,5 @@ export {
   LiveSimulation, LiveEngine, halfPeriod, packLevels, ClockDriver, MAX_RATE, MIN_RATE, TraceRecorder, structureKey,
   documentValue, inputSignature, partBadges,
   type LiveOptions, type Timers, type TraceBatch, type Badge, type BadgeTone, type LiveCommand, type LiveUpdate,
-  type LivePort, type LiveReport,
+  type LivePort, type LiveReport, RoomRun, stateChanges, type RoomClock, type StateChange,
 } from './live';
