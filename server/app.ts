@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import express, { type Express, type RequestHandler } from 'express';
 import type { AppConfig } from './config';
-import { openDb, type Db } from './db/knex';
+import { isPostgres, openDatabase, type Db } from './db/knex';
 import { migrateLatest } from './db/migrate';
 import { createSessionStore, stopSessionStore } from './db/session-store';
 import { countUsers } from './db/users';
@@ -30,6 +30,7 @@ import { mountSnapshots } from './snapshots';
 import { createAnalysisRunner } from './services/analysis-runner';
 import { bringupRouter } from './http/routes/bringup';
 import { createBringupFeature } from './services/bringup';
+import { attachRooms, boardStoreFor, openScaleOut, type ScaleOut } from './scale-out';
 import { createShareLinksService, type ShareLinksService } from './services/share-links';
 import { shareLinksRouter } from './http/routes/share-links';
 import { linkAudience } from './boards-live/share-guests';
@@ -46,6 +47,10 @@ export interface AppContext {
   mail: Mailer;
   /** The open board rooms and the way to every board's content (server/boards-live), one per app. */
   boardRegistry: BoardRegistry;
+  /** Several servers (REDIS_URL): the board fan-out, relayed events, shared rate limits; undefined on one server. */
+  scaleOut?: ScaleOut;
+  /** Set by the SIGTERM drain: /api/ready answers 503 from then on. */
+  draining: boolean;
   /** Share links (class mode): the routes use them, and the sockets let guests in with them. */
   shareLinks: ShareLinksService;
   /** Fills a new demo board's document (the example files). */
@@ -61,22 +66,26 @@ export interface AppContext {
 /** Builds the app (migrated database, mail, sessions, routes) without listening. */
 export async function createApp(config: AppConfig): Promise<AppContext> {
   mkdirSync(config.uploadDir, { recursive: true });
-  const db = openDb(config.databaseFile);
+  const db = openDatabase(config);
   let mail: Mailer | undefined;
+  const events = createEvents();
+  let scaleOut: ScaleOut | undefined;
   try {
     await migrateLatest(db);
+    scaleOut = await openScaleOut(config, events);
     mail = await createMailer(config, db);
   } catch (err) {
+    await scaleOut?.close();
     await db.destroy();
     throw err;
   }
   const store = createSessionStore(db);
   await store.ready;
-  const events = createEvents();
-  const boardRegistry = new BoardRegistry({ store: createKnexBoardStore(db), options: config.collab, logErrors: config.logErrors });
+  const boardRegistry = new BoardRegistry({ store: boardStoreFor(createKnexBoardStore(db), scaleOut), options: config.collab, logErrors: config.logErrors, fanout: scaleOut?.fanout });
+  attachRooms(scaleOut, boardRegistry);
   const services = createServices(db, config, events, mail, boardRegistry);
   const sessionMiddleware = createSessionMiddleware(config, store);
-  const limits = createRateLimits(config);
+  const limits = createRateLimits(config, scaleOut?.rateLimitStore);
   const shareLinks = createShareLinksService(db, events, (boardId, linkId) => linkAudience(boardRegistry, boardId, linkId));
 
   const app = express();
@@ -91,7 +100,11 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   app.use('/api', sessionMiddleware);
   app.use('/api', originCheck(config));
 
-  app.use('/api', healthRouter(config.version));
+  app.use('/api', healthRouter(config.version, {
+    database: { dialect: isPostgres(db) ? 'postgres' : 'sqlite', ping: () => db.raw('select 1').then(() => true) },
+    redis: scaleOut,
+    draining: () => ctx.draining,
+  }));
   app.use('/api', authRouter(services, config, limits));
   app.use('/api', shareLinksRouter(services, shareLinks, config, boardRegistry)); // before the boards routes: a guest's two reads
   app.use('/api', boardsRouter(services));
@@ -112,10 +125,12 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   };
   let closing: Promise<void> | undefined;
   const ctx: AppContext = {
-    app, db, config, sessionMiddleware, services, events, mail, boardRegistry, shareLinks, onClose, closeFeatures,
+    app, db, config, sessionMiddleware, services, events, mail, boardRegistry, shareLinks, scaleOut, draining: false, onClose, closeFeatures,
     close: () =>
       (closing ??= (async () => {
         await closeFeatures();
+        // after the rooms stored everything: their last confirmations go out, then Redis closes
+        await scaleOut?.close();
         stopSessionStore(store);
         await mail.close();
         await db.destroy();

@@ -5,6 +5,9 @@ import { createApp, type AppContext } from './app';
 import { loadConfig, type AppConfig } from './config';
 import { attachBoardSockets } from './boards-live';
 
+/** WebSocket close code 1012 (service restart, RFC 6455 registry): reconnect, here or elsewhere. */
+export const SERVICE_RESTART = 1012;
+
 export interface RunningServer {
   server: http.Server;
   url: string;
@@ -38,7 +41,12 @@ export async function startServer(config: AppConfig): Promise<RunningServer> {
   let closing: Promise<void> | undefined;
   const close = () =>
     (closing ??= (async () => {
+      // The drain: stop accepting, tell the load balancer (/api/ready answers 503), send every board
+      // socket elsewhere (1012 "service restart": the client reconnects, through the proxy, to another
+      // server), then the rooms store everything and close.
+      ctx.draining = true;
       const stopped = new Promise<void>((resolve) => server.close(() => resolve()));
+      for (const room of ctx.boardRegistry.rooms.values()) room.closeAll(SERVICE_RESTART, 'server restarting: reconnect');
       await ctx.closeFeatures(); // rooms flush and close their sockets first
       server.closeIdleConnections();
       const force = setTimeout(() => server.closeAllConnections(), 3000);

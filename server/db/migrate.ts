@@ -31,6 +31,16 @@ class DirectorySource implements Knex.MigrationSource<string> {
 
 /** Brings the schema up to date; returns the names of the migrations that ran. */
 export async function migrateLatest(db: Db): Promise<string[]> {
-  const [, ran] = (await db.migrate.latest({ migrationSource: new DirectorySource() })) as [number, string[]];
-  return ran;
+  // Several servers starting at once on one PostgreSQL: one migrates, the others find Knex's migration
+  // lock taken and wait for it, then find nothing left to do.
+  for (let attempt = 0; ; attempt++) {
+    try {
+      const [, ran] = (await db.migrate.latest({ migrationSource: new DirectorySource() })) as [number, string[]];
+      return ran;
+    } catch (err) {
+      // (on an empty database two may also race to create the migration tables themselves)
+      if (attempt >= 120 || !/already locked|already exists|duplicate key/i.test(String((err as Error).message))) throw err;
+      await new Promise((r) => setTimeout(r, 500));
+    }
+  }
 }

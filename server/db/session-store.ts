@@ -3,7 +3,13 @@ import { isPostgres, type Db } from './knex';
 
 /** Sessions live in the same database (SQLite file or PostgreSQL), table `sessions` (the store creates it); every server shares them. */
 export function createSessionStore(db: Db): ConnectSessionKnexStore {
-  return new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 10 * 60 * 1000 });
+  const store = new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 10 * 60 * 1000 });
+  // Several servers starting at once on one PostgreSQL may all try to create the table: the ones that
+  // lose the race find it there (and leave the periodic clean-up to the others).
+  store.ready = store.ready.catch(async (err: unknown) => {
+    if (!(await db.schema.hasTable('sessions'))) throw err;
+  });
+  return store;
 }
 
 /** Stops the store's periodic clean-up so the process can exit and Knex can close. */

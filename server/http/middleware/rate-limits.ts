@@ -1,4 +1,4 @@
-import { rateLimit, type Options } from 'express-rate-limit';
+import { rateLimit, type Options, type Store } from 'express-rate-limit';
 import type { Request, RequestHandler } from 'express';
 import type { AppConfig } from '../../config';
 import { HttpError } from '../errors';
@@ -15,7 +15,7 @@ function minutes(ms: number): string {
  * address (`req.ip`: the socket's address unless TRUST_PROXY says which proxies to believe) unless
  * `key` says otherwise.
  */
-function limiter(p: { windowMs: number; limit: number; what: string; skipSuccessfulRequests?: boolean; skipFailedRequests?: boolean; key?: Key }): RequestHandler {
+function limiter(p: { windowMs: number; limit: number; what: string; skipSuccessfulRequests?: boolean; skipFailedRequests?: boolean; key?: Key; store?: Store }): RequestHandler {
   return rateLimit({
     windowMs: p.windowMs,
     limit: p.limit,
@@ -26,6 +26,7 @@ function limiter(p: { windowMs: number; limit: number; what: string; skipSuccess
     // X-Forwarded-For from a client is expected noise: only TRUST_PROXY decides whether it is read
     validate: { xForwardedForHeader: false },
     ...(p.key ? { keyGenerator: p.key } : {}),
+    ...(p.store ? { store: p.store } : {}),
     handler: (_req, _res, next) => {
       next(new HttpError(429, 'too_many_attempts', `Too many ${p.what}; wait ${minutes(p.windowMs)} and try again`));
     },
@@ -45,16 +46,18 @@ const userKey = (req: Request) => `user:${String(req.session?.userId ?? 'none')}
  * The limits of the password-guessing, account-creation and mail-sending routes (sizes from config).
  * Sign-in is limited twice, and only failures count: strictly per account (guessing one password) and
  * generously per address (spraying many accounts), so a classroom behind one address keeps signing in.
+ * `shared(name)` gives a store every server shares (Redis, with several servers); default: in memory.
  */
-export function createRateLimits(config: AppConfig) {
+export function createRateLimits(config: AppConfig, shared?: (name: string) => Store) {
   const { windowMs } = config.rateLimit;
   const rl = config.rateLimit;
+  const store = (name: string) => shared?.(name);
   return {
-    loginPerAccount: limiter({ windowMs, limit: rl.login, what: 'failed sign-ins for this account', skipSuccessfulRequests: true, key: accountKey }),
-    loginPerAddress: limiter({ windowMs, limit: rl.loginPerAddress, what: 'failed sign-ins from your address', skipSuccessfulRequests: true }),
-    signup: limiter({ windowMs, limit: rl.signup, what: 'sign-ups from your address' }),
-    resetRequest: limiter({ windowMs, limit: rl.resetRequest, what: 'reset requests' }),
-    invitations: limiter({ windowMs: rl.invitationsWindowMs, limit: rl.invitations, what: 'members added or invited', skipFailedRequests: true, key: userKey }),
+    loginPerAccount: limiter({ windowMs, limit: rl.login, what: 'failed sign-ins for this account', skipSuccessfulRequests: true, key: accountKey, store: store('login-account') }),
+    loginPerAddress: limiter({ windowMs, limit: rl.loginPerAddress, what: 'failed sign-ins from your address', skipSuccessfulRequests: true, store: store('login-address') }),
+    signup: limiter({ windowMs, limit: rl.signup, what: 'sign-ups from your address', store: store('signup') }),
+    resetRequest: limiter({ windowMs, limit: rl.resetRequest, what: 'reset requests', store: store('reset') }),
+    invitations: limiter({ windowMs: rl.invitationsWindowMs, limit: rl.invitations, what: 'members added or invited', skipFailedRequests: true, key: userKey, store: store('invitations') }),
   };
 }
 
