@@ -9,8 +9,8 @@ import type { CliIo } from './commands/types';
 
 async function main(argv: string[]): Promise<number> {
   const [name, ...args] = argv;
-  const command = name ? COMMANDS[name] : undefined;
-  if (!command) {
+  const load = name && Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined;
+  if (!load) {
     const known = Object.keys(COMMANDS).sort().join(', ');
     throw new CliError(name ? `unknown command "${name}" (commands: ${known})` : `no command given (commands: ${known})`);
   }
@@ -19,7 +19,7 @@ async function main(argv: string[]): Promise<number> {
   const out: (string | Iterable<string>)[] = [];
   const files: [string, string][] = [];
   const io: CliIo = { stdout: (text) => { out.push(text); }, writeFile: (path, text) => { files.push([path, text]); } };
-  await command.run(args, io);
+  await (await load()).run(args, io);
   for (const [path, text] of files) {
     try {
       writeFileSync(path, text);
