@@ -12,6 +12,7 @@ import { ResetRequestPage } from './routes/reset-request';
 import { NotFoundPage, RouteError } from './routes/route-error';
 import { SignInPage } from './routes/sign-in';
 import { SignUpPage } from './routes/sign-up';
+import { SharePage } from './routes/share-page';
 
 // Every route carries its own error boundary, so a failure in one page keeps the top bar and the
 // rest of the app usable.
@@ -31,6 +32,7 @@ export const routes: RouteObject[] = [
       page('reset', <ResetRequestPage />),
       page('reset/:token', <ResetPasswordPage />),
       page('invitations/:token', <InvitationAcceptPage />),
+      page('s/:token', <SharePage />),
       {
         element: <RequireUser />,
         errorElement,
