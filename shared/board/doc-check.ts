@@ -15,13 +15,20 @@ import { PART_KINDS } from './kinds';
 import { isNamedKind, LABEL_RE } from './labels';
 import { splitPinRef } from './pins';
 import { BoardFileSchema, FamilySchema, PartSchema, WireSchema, type Part } from './schema';
-import { PART_FIELDS, metaMap, partsMap, pinExists, readPart, wiresMap } from './ydoc';
+import { PART_FIELDS, docModulePins, metaMap, partsMap, pinExists, readPart, wiresMap } from './ydoc';
 import { repairBoard } from './edits-bulk';
 import { SIMLOG_ROOT, checkSimLog } from './sim-log';
+import { MODULES_ROOT, checkModulesRoot } from './module-doc-check';
 
 /** The room's simulation record (sim-log.ts), a root of its own with its own check. */
 function simLogProblems(doc: Y.Doc): DocProblem[] {
   return checkSimLog(doc).map((message) => ({ kind: 'shape' as const, where: 'root' as const, key: SIMLOG_ROOT, message }));
+}
+
+/** The board's modules (module-doc-check.ts), a root of its own checked with the same entry checks. */
+function modulesProblems(doc: Y.Doc): DocProblem[] {
+  return checkModulesRoot(doc, { part: checkPartEntry, wire: checkWireEntry })
+    .map((message) => ({ kind: 'shape' as const, where: 'root' as const, key: MODULES_ROOT, message }));
 }
 
 /** One problem of a document; `key` is the part or wire id (the map key), or the meta key. */
@@ -163,6 +170,10 @@ export function checkDocChanges(doc: Y.Doc, touched: DocTouched): DocProblem[] {
       problems.push(...simLogProblems(doc));
       continue;
     }
+    if (name === MODULES_ROOT) {
+      problems.push(...modulesProblems(doc));
+      continue;
+    }
     problems.push({ kind: 'shape', where: 'root', key: name, message: `content outside the board's parts, wires and meta (${shownKey(name)})` });
   }
   const parts = partsMap(doc);
@@ -190,6 +201,10 @@ export function checkDoc(doc: Y.Doc): DocProblem[] {
       problems.push(...simLogProblems(doc));
       continue;
     }
+    if (name === MODULES_ROOT) {
+      problems.push(...modulesProblems(doc));
+      continue;
+    }
     const root = ROOTS.includes(name as (typeof ROOTS)[number]);
     if ((!root && hasContent(type)) || (root && type._start !== null)) {
       problems.push({ kind: 'shape', where: 'root', key: name, message: `content outside the board's parts, wires and meta (${shownKey(name)})` });
@@ -208,6 +223,7 @@ export function checkDoc(doc: Y.Doc): DocProblem[] {
     if (other !== undefined) problems.push({ kind: 'merge', where: 'parts', key: id, message: `part ${shownKey(id)}: label "${part.label}" is already on ${other}` });
     else labels.set(part.label, id);
   }
+  const modulePins = docModulePins(doc); // an instance's pins are its module's port labels
   for (const [key, value] of wiresMap(doc).entries()) {
     const found = checkWireEntry(key, value);
     if (found.length) {
@@ -216,7 +232,7 @@ export function checkDoc(doc: Y.Doc): DocProblem[] {
     }
     for (const end of ['from', 'to'] as const) {
       const ref = String(value.get(end));
-      if (!pinExists(good, ref)) problems.push({ kind: 'merge', where: 'wires', key, message: `wire ${shownKey(key)}: ${end} ${shownKey(ref)} is not a pin on the board` });
+      if (!pinExists(good, ref, modulePins)) problems.push({ kind: 'merge', where: 'wires', key, message: `wire ${shownKey(key)}: ${end} ${shownKey(ref)} is not a pin on the board` });
     }
   }
   const meta = metaMap(doc);

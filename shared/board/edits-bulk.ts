@@ -8,7 +8,7 @@ import { splitPinRef } from './pins';
 import { newPartId, newWireId } from './ids';
 import { isInputKind, isOutputKind } from './kinds';
 import {
-  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, pinExists, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
+  PART_FIELDS, docModulePins, metaMap, nextOrder, partToYMap, partsMap, pinExists, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
 } from './ydoc';
 
 /** The chosen parts and the wires running between two of them, as a clipboard fragment. */
@@ -148,8 +148,9 @@ export function removeDanglingWires(doc: Y.Doc, origin: unknown): string[] {
   // Entries that are not maps are not parts or wires at all (quarantineDoc removes them); skip, never throw.
   const parts = new Map([...partsMap(doc).values()].filter((p) => p instanceof Y.Map).map((p) => [String(p.get('id')), readPart(p)]));
   const wires = wiresMap(doc);
+  const modules = docModulePins(doc); // an instance's pins are its module's port labels
   const gone = [...wires.entries()]
-    .filter(([, w]) => w instanceof Y.Map && (!pinExists(parts, String(w.get('from'))) || !pinExists(parts, String(w.get('to')))))
+    .filter(([, w]) => w instanceof Y.Map && (!pinExists(parts, String(w.get('from')), modules) || !pinExists(parts, String(w.get('to')), modules)))
     .map(([id]) => id);
   if (gone.length) doc.transact(() => gone.forEach((id) => wires.delete(id)), origin);
   return gone;

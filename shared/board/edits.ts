@@ -10,7 +10,7 @@ import { isNamedKind, labelProblem, namedLabels } from './labels';
 import { allPins, pinSide, splitPinRef } from './pins';
 import { PartSchema, type BoardFile, type FamilyId, type Fragment, type Part } from './schema';
 import {
-  PART_FIELDS, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap,
+  PART_FIELDS, docModulePins, metaMap, nextOrder, partToYMap, partsMap, readPart, readWire, wireToYMap,
   wiresMap, type YRecord,
 } from './ydoc';
 
@@ -134,7 +134,7 @@ export function pinRole(doc: Y.Doc, ref: string): 'in' | 'out' | null {
   const split = splitPinRef(ref);
   const p = split && partsMap(doc).get(split.part);
   if (!split || !p) return null;
-  return pinSide(readPart(p), split.pin);
+  return pinSide(readPart(p), split.pin, docModulePins(doc));
 }
 
 /** Every pin on the same net as `ref` (joined through wires), `ref` included. */

@@ -15,3 +15,5 @@ export * from './modules';
 export * from './flatten';
 export * from './extract-module';
 export * from './sim-log';
+export * from './edits-modules';
+export * from './module-doc-check';

@@ -4,8 +4,9 @@
  * undo step, so two quick edits, say a switch flip and a delete, are never undone together.
  */
 import * as Y from 'yjs';
-import { metaMap, partsMap, wiresMap } from '../../../../shared/board';
+import { metaMap, modulesMap, partsMap, wiresMap } from '../../../../shared/board';
 
 export function createUndoManager(doc: Y.Doc, origin: object): Y.UndoManager {
-  return new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 0 });
+  // modules too: an edit inside a module is undone like any other (docs/decisions/004-modules.md)
+  return new Y.UndoManager([partsMap(doc), wiresMap(doc), metaMap(doc), modulesMap(doc)], { trackedOrigins: new Set([origin]), captureTimeout: 0 });
 }
