@@ -17,6 +17,9 @@ need() { # need <command path> <debian package>
 }
 need /usr/bin/chromium chromium
 need /usr/bin/iverilog iverilog
+# several servers: the API suite on PostgreSQL and tests/multi-server start these on private ports
+need /usr/lib/postgresql/15/bin/initdb postgresql
+need /usr/bin/redis-server redis-server
 
 node_modules/.bin/vitest run
 node_modules/.bin/vite build --logLevel warn
