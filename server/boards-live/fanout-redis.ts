@@ -69,6 +69,13 @@ export class RedisBoardFanout implements BoardFanout {
     this.sub = this.pub.duplicate();
     for (const c of [this.pub, this.sub]) c.on('error', (err: Error) => this.warn(`redis: ${err.message}`));
     this.sub.on('messageBuffer', (channel: Buffer, message: Buffer) => this.onMessage(channel.toString(), message));
+    // After Redis was away (ioredis subscribes again by itself) every open room asks for what it
+    // missed meanwhile, as when it opened; the other servers do the same, so each side catches up.
+    let connectedBefore = false;
+    this.sub.on('ready', () => {
+      if (connectedBefore) for (const boardId of this.listeners.keys()) this.roomOpened(boardId);
+      connectedBefore = true;
+    });
     // each server waits a little more than the others before taking over, so that usually one stores
     const jitter = Math.floor(Math.random() * this.takeoverMs);
     this.timer = setInterval(() => void this.takeOver(this.takeoverMs + jitter), Math.max(100, this.takeoverMs / 4));
