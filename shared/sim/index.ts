@@ -29,3 +29,4 @@ export {
   type LiveOptions, type Timers, type TraceBatch, type Badge, type BadgeTone, type LiveCommand, type LiveUpdate,
   type LivePort, type LiveReport, RoomRun, stateChanges, type RoomClock, type StateChange,
 } from './live';
+export { toHierarchicalVerilog } from './verilog-modules';

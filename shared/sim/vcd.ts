@@ -8,7 +8,7 @@ import type { Level } from './levels';
 export interface VcdSignal {
   /** reference name; characters a VCD reader would split on are replaced by `_` */
   name: string;
-  /** scope (module) it sits in; default the top scope */
+  /** scope (module) it sits in, `a/b` for scope b inside scope a; default the top scope */
   scope?: string;
 }
 
@@ -72,12 +72,26 @@ export function toVcd(samples: VcdSample[], signals: VcdSignal[], opts: VcdOptio
   });
   const ref = (name: string) => name.replace(/[\s$]+/g, '_') || '_';
   for (const i of scopes.get('') ?? []) lines.push(`$var wire 1 ${vcdId(i)} ${ref(signals[i].name)} $end`);
-  for (const [scope, list] of scopes) {
+  // a scope with `/` nests: `u3/u1` is scope u1 inside scope u3 (the path of an instance inside an instance)
+  const tree = new Map<string, string[]>();
+  const childrenOf = (path: string) => tree.get(path) ?? (tree.set(path, []), tree.get(path)!);
+  for (const scope of scopes.keys()) {
     if (scope === '') continue;
-    lines.push(`$scope module ${ref(scope)} $end`);
-    for (const i of list) lines.push(`$var wire 1 ${vcdId(i)} ${ref(signals[i].name)} $end`);
-    lines.push('$upscope $end');
+    const steps = scope.split('/');
+    for (let k = 1; k <= steps.length; k++) {
+      const path = steps.slice(0, k).join('/');
+      const parent = steps.slice(0, k - 1).join('/');
+      const list = childrenOf(parent);
+      if (!list.includes(path)) list.push(path);
+    }
   }
+  const emit = (path: string) => {
+    lines.push(`$scope module ${ref(path.slice(path.lastIndexOf('/') + 1))} $end`);
+    for (const i of scopes.get(path) ?? []) lines.push(`$var wire 1 ${vcdId(i)} ${ref(signals[i].name)} $end`);
+    for (const child of tree.get(path) ?? []) emit(child);
+    lines.push('$upscope $end');
+  };
+  for (const path of tree.get('') ?? []) emit(path);
   lines.push('$upscope $end', '$enddefinitions $end');
   const start = opts.start ?? 0;
   const current: Level[] = signals.map((_, i) => opts.initial?.[i] ?? 'X');

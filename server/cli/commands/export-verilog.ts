@@ -1,8 +1,9 @@
 /**
- * `export-verilog FILE [--delays]`: the board as one structural Verilog (IEEE Std 1364) module on stdout;
+ * `export-verilog FILE [--delays]`: the board as one structural Verilog (IEEE Std 1364) module on stdout
+ * (a board with modules: one Verilog module per module, instantiated by name, the board's first);
  * `--delays` writes each part's rise/fall delays in the family's time unit.
  */
-import { compileBoard, toVerilog } from '../../../shared/sim';
+import { toHierarchicalVerilog } from '../../../shared/sim';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
 import type { CliCommand } from './types';
@@ -12,6 +13,6 @@ export const exportVerilog: CliCommand = {
   run(args, io) {
     const { positionals, values } = parseCommandArgs(args, { delays: { type: 'boolean' } });
     const board = readBoard(positionals[0]);
-    io.stdout(toVerilog(board, compileBoard(board), { delays: values.delays === true }));
+    io.stdout(toHierarchicalVerilog(board, { delays: values.delays === true }));
   },
 };

@@ -53,7 +53,10 @@ function vcdSignals(netlist: Netlist): { signals: VcdSignal[]; byNet: number[][]
   for (const net of netlist.nets) {
     // an unused switch complement (outn) is left out
     const unusedOutn = net.readers.length === 0 && net.drivers.length === 1 && net.drivers[0].pin === 'outn';
-    if (byNet[net.id].length === 0 && !unusedOutn) add(net.id, { name: net.name, scope: 'nets' });
+    if (byNet[net.id].length !== 0 || unusedOutn) continue;
+    // a net inside an instance sits in the instance's scope: `u3/g2_out` is g2_out in scope u3
+    const slash = net.name.lastIndexOf('/');
+    add(net.id, slash > 0 ? { name: net.name.slice(slash + 1), scope: net.name.slice(0, slash) } : { name: net.name, scope: 'nets' });
   }
   return { signals, byNet };
 }

@@ -3,7 +3,7 @@
  * board through `POST /api/boards/import` (the server checks it and names the bad ids in its errors).
  */
 import type { BoardFile } from '../../../../shared/board';
-import { compileBoard, toVerilog } from '../../../../shared/sim';
+import { toHierarchicalVerilog } from '../../../../shared/sim';
 import { ApiError } from '../../../lib/api-client';
 
 /** A file name from a board title (letters, digits, dashes). */
@@ -31,10 +31,10 @@ export function downloadBoardFile(board: BoardFile): void {
 
 /**
  * Downloads the board as structural Verilog (IEEE Std 1364), `<title>.v`: the same text as the command
- * line's `export-verilog` (shared/sim toVerilog).
+ * line's `export-verilog` (shared/sim toHierarchicalVerilog: one Verilog module per Gatefold module).
  */
 export function downloadVerilog(board: BoardFile): void {
-  const text = toVerilog(board, compileBoard(board));
+  const text = toHierarchicalVerilog(board);
   download(new Blob([text], { type: 'text/plain' }), boardFileName(board.title || 'board', 'v'));
 }
 
