@@ -5,7 +5,8 @@
  * Each part inside an instance becomes a part with the path id `u3/g2` (`u3/u1/g4` when nested), in place
  * of its instance, so file order stays depth first. Ports and instance pins are junctions, not parts: a
  * union of all wire ends gives the nets; wires between two real pins are kept (ids prefixed by the
- * path), and bridging wires `~1`, `~2`, … join what junctions joined. No gate and no delay is added.
+ * path), and on a net that passes a junction bridging wires `~1`, `~2`, … join its first real pin to
+ * the others. No gate and no delay is added.
  * Lamps and probes inside modules are dropped (they read and drive nothing), labels of inner constants too.
  */
 import { isNamedKind } from './labels';
@@ -176,39 +177,24 @@ class Flattener {
 
   /** Joins, with bridging wires, the real pins that only junctions joined. */
   private bridge(): void {
-    // components of the real pins under the emitted wires alone
-    const direct = new Map<string, string>();
-    const dfind = (k: string): string => {
-      let r = k;
-      while (direct.get(r) !== r) r = direct.get(r)!;
-      let c = k;
-      while (c !== r) { const n = direct.get(c)!; direct.set(c, r); c = n; }
-      return r;
-    };
-    this.keys.forEach((k, i) => { if (this.real[i]) direct.set(k, k); });
-    for (const w of this.wires) {
-      const ra = dfind(w.from);
-      const rb = dfind(w.to);
-      if (ra !== rb) direct.set(rb, ra);
+    // a group of real pins is already one net when the kept wires join them; otherwise a wire from the
+    // group's first real pin to each other real pin makes it one (a few extra wires cost nothing)
+    const anchor = new Map<number, number>();
+    const realCount = new Map<number, number>();
+    const junctioned = new Set<number>();
+    for (let i = 0; i < this.keys.length; i++) {
+      const r = this.find(i);
+      if (!this.real[i]) { junctioned.add(r); continue; }
+      realCount.set(r, (realCount.get(r) ?? 0) + 1);
+      if (!anchor.has(r)) anchor.set(r, i);
     }
-    const anchor = new Map<number, string>();
-    const joined = new Map<number, Set<string>>();
     let n = 0;
-    this.keys.forEach((key, i) => {
-      if (!this.real[i]) return;
-      const group = this.find(i);
-      const first = anchor.get(group);
-      if (first === undefined) {
-        anchor.set(group, key);
-        joined.set(group, new Set([dfind(key)]));
-        return;
-      }
-      const seen = joined.get(group)!;
-      const d = dfind(key);
-      if (seen.has(d)) return;
-      seen.add(d);
-      this.emitWire(`~${++n}`, first, key);
-      direct.set(d, dfind(first));
-    });
+    for (let i = 0; i < this.keys.length; i++) {
+      if (!this.real[i]) continue;
+      const r = this.find(i);
+      // only nets that pass through a port or an instance pin need bridging
+      if (!junctioned.has(r) || anchor.get(r) === i || (realCount.get(r) ?? 0) < 2) continue;
+      this.emitWire(`~${++n}`, this.keys[anchor.get(r)!], this.keys[i]);
+    }
   }
 }
