@@ -30,3 +30,4 @@ export {
   type LivePort, type LiveReport, RoomRun, stateChanges, type RoomClock, type StateChange,
 } from './live';
 export { toHierarchicalVerilog } from './verilog-modules';
+export { explainRow, explainInputs, explainRowCount, rowInputs, gateReason, partTitle, type ExplainStep, type Explanation, type ExplainOptions } from './explain';
