@@ -14,8 +14,8 @@ describe('newPart', () => {
     }
   });
 
-  it('offers every part kind in the tray (instances come from the board\u2019s modules and the library)', () => {
-    expect(new Set(TRAY_ITEMS.map((i) => i.kind))).toEqual(new Set(PART_KINDS.filter((k) => k !== 'module')));
+  it('offers every part kind of a top-level board in the tray (ports belong inside a module; instances come from the board\u2019s modules)', () => {
+    expect(new Set(TRAY_ITEMS.map((i) => i.kind))).toEqual(new Set(PART_KINDS.filter((k) => k !== 'module' && k !== 'port')));
   });
 
   it('keeps a gate\u2019s input count within 2–8', () => {

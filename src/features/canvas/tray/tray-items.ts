@@ -31,7 +31,6 @@ export const TRAY_ITEMS: TrayItem[] = [
   item('dff', 'Storage', 'd flip-flop flipflop edge register storage memory'),
   item('mux2', 'Blocks', 'multiplexer mux 2:1 select'),
   item('mux4', 'Blocks', 'multiplexer mux 4:1 select'),
-  item('port', 'Modules', 'port module pin input output'),
   item('note', 'Annotation', 'text note comment'),
 ];
 
