@@ -20,7 +20,7 @@ import { BringupPanel, useBringup } from '../../features/bringup';
 import { useBoardHistory } from '../../features/snapshots';
 import type { ApiBoard } from '../../../shared/api';
 import { PageTitle } from '../../components/ui/page-title';
-import { ClassPanel, useAudience } from '../../features/class';
+import { ClassPanel, LessonPanel, useAudience, useLesson } from '../../features/class';
 
 /**
  * One board: a compact header (title, role, family, members, owner actions) and below it the whole
@@ -99,7 +99,8 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   const analysis = useAnalysis(session.board);
   const build = useBuildSheet(session.board);
   const bringup = useBringup(board.id, board.role, session.board);
-  const highlight = bringup.highlight ?? build.highlight ?? analysis.highlight;
+  const lesson = useLesson(session);
+  const highlight = lesson.highlight ?? bringup.highlight ?? build.highlight ?? analysis.highlight;
   // preview and compare show a snapshot read-only on the canvas, without the live levels
   const history = useBoardHistory(board.id, board.role, session);
   const live = !history.viewing;
@@ -113,7 +114,7 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
       {history.banner}
       <BoardWorkspace session={history.session} levels={live ? sim.levels : undefined} partBadges={live ? sim.partBadges : undefined} onTryOut={live ? sim.tryOut.set : undefined}
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
-        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}{isOwner(board.role) && <ClassPanel boardId={board.id} viewers={viewers} />}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
+        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}<LessonPanel lesson={lesson} session={session} />{isOwner(board.role) && <ClassPanel boardId={board.id} viewers={viewers} />}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
         bottom={<TimingStrip {...sim.timing} />} />
     </>
   );

@@ -10,7 +10,7 @@ import { errorMessage } from '../../lib/api-client';
 import { BoardWorkspace, useBoardSession } from '../../features/canvas';
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
-import { shareInfoQueryOptions, useJoinShare } from '../../features/class';
+import { LessonPanel, shareInfoQueryOptions, useJoinShare, useLesson } from '../../features/class';
 import { PageColumn } from '../layout';
 
 /**
@@ -58,6 +58,7 @@ function JoinForm({ token, title }: { token: string; title: string }) {
 function GuestBoard({ token, boardId, title, name }: { token: string; boardId: number; title: string; name: string }) {
   const session = useBoardSession(String(boardId), 'viewer', { user: { id: `guest-${name}`, name }, shareToken: token });
   const sim = useLiveSim(session, { tryOut: true });
+  const lesson = useLesson(session);
   return (
     <div className="flex min-h-0 flex-1 flex-col" data-testid="guest-board">
       <PageTitle>{session.board.title || title}</PageTitle>
@@ -67,7 +68,8 @@ function GuestBoard({ token, boardId, title, name }: { token: string; boardId: n
       </header>
       <PulseStyle wireIds={sim.pulsingWires} lampIds={sim.oscillatingOutputs} />
       <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values}
-        panels={<BenchPanel sim={sim} session={session} />} bottom={<TimingStrip {...sim.timing} />} />
+        highlight={lesson.highlight}
+        panels={<><BenchPanel sim={sim} session={session} /><LessonPanel lesson={lesson} session={session} /></>} bottom={<TimingStrip {...sim.timing} />} />
     </div>
   );
 }
