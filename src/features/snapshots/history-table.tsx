@@ -40,7 +40,7 @@ const link = 'rounded px-1.5 py-0.5 text-[11px] text-slate-300 hover:bg-mat-700 
 
 export function HistoryTable({ snapshots, actions }: { snapshots: ApiSnapshot[]; actions: HistoryActions }) {
   const columns = useMemo<ColumnDef<ApiSnapshot>[]>(() => [
-    { id: 'picture', header: '', cell: ({ row }) => <img src={row.original.thumbnailUrl} alt="" loading="lazy" className="h-9 w-12 rounded border border-mat-700 bg-mat-950 object-contain" /> },
+    { id: 'picture', header: '', cell: ({ row }) => <img src={row.original.thumbnailUrl} alt="" loading="lazy" className="h-9 w-12 min-w-12 max-w-none rounded border border-mat-700 bg-mat-950 object-contain" /> },
     { id: 'name', header: 'Name', cell: ({ row }) => <NameCell s={row.original} actions={actions} /> },
     { id: 'author', header: 'By', accessorFn: (s) => s.authorName ?? 'server' },
     { id: 'time', header: 'When', accessorFn: (s) => formatDateTime(s.createdAt) },
