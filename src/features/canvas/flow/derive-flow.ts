@@ -3,7 +3,7 @@
  * very same node/edge objects from one derivation to the next, so memoised components do not
  * re-render and nothing is allocated for them.
  */
-import { allPins, splitPinRef, type BoardFile, type Part, type Wire } from '../../../../shared/board';
+import { allPins, splitPinRef, type BoardFile, type ModulePins, type Part, type PinSet, type Wire } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import type { CompareMark } from '../../../../shared/render';
 import { placedShape } from '../lib/geometry';
@@ -22,13 +22,15 @@ export interface DeriveNodesInput {
   readOnly: boolean;
   /** part id → a snapshot compare's mark */
   marks?: ReadonlyMap<string, CompareMark>;
+  /** the pins of each module's instances (modulePinTable of the board's modules) */
+  modulePins?: ModulePins;
 }
 
 /** Pin levels of a part as a short string (one character per pin, '-' where unknown). */
-export function pinLevels(part: Part, levels: ReadonlyMap<string, Level> | undefined): string {
+export function pinLevels(part: Part, levels: ReadonlyMap<string, Level> | undefined, modulePins?: ModulePins): string {
   if (!levels || levels.size === 0) return '';
   let s = '';
-  for (const pin of allPins(part)) s += levels.get(`${part.id}.${pin}`) ?? '-';
+  for (const pin of allPins(part, modulePins)) s += levels.get(`${part.id}.${pin}`) ?? '-';
   return s;
 }
 
@@ -39,12 +41,21 @@ function shownState(part: Part, tryOut: ReadonlyMap<string, boolean> | undefined
   return false;
 }
 
+function samePins(a: PinSet | undefined, b: PinSet | undefined): boolean {
+  if (a === b) return true;
+  if (!a || !b) return false;
+  return a.inputs.join('\n') === b.inputs.join('\n') && a.outputs.join('\n') === b.outputs.join('\n');
+}
+
 /** Nodes for `input.parts`, reusing the node in `prev` (by id) wherever nothing it shows has changed. */
 export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, PartNode>): PartNode[] {
   const out: PartNode[] = new Array(input.parts.length);
   input.parts.forEach((part, i) => {
     const old = prev.get(part.id);
-    const levels = pinLevels(part, input.levels);
+    const levels = pinLevels(part, input.levels, input.modulePins);
+    // an instance's pins are its module's ports: the node keeps the old pin set while they read the same
+    const freshPins = part.kind === 'module' ? input.modulePins?.get(part.module) ?? { inputs: [], outputs: [] } : undefined;
+    const pins = samePins(old?.data.pins, freshPins) ? old?.data.pins : freshPins;
     const shown = shownState(part, input.tryOut);
     // The bench sends fresh badge objects with every simulation step: keep the old one while it says the same.
     const fresh = input.badges?.get(part.id);
@@ -58,12 +69,13 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
     if (old) {
       const d = old.data;
       if (d.part === part && d.levels === levels && d.shown === shown && d.badge === badge && d.highlight === highlight
-        && d.remoteColor === remoteColor && d.readOnly === input.readOnly && d.mark === mark && old.position.x === x && old.position.y === y) {
+        && d.remoteColor === remoteColor && d.readOnly === input.readOnly && d.mark === mark && d.pins === pins && old.position.x === x && old.position.y === y) {
         out[i] = old;
         return;
       }
     }
-    const shape = old && old.data.part === part ? { w: old.width as number, h: old.height as number } : placedShape(part);
+    const shape = old && old.data.part === part && old.data.pins === pins ? { w: old.width as number, h: old.height as number }
+      : placedShape(part, pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined);
     out[i] = {
       id: part.id,
       type: 'part',
@@ -73,7 +85,7 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
       draggable: !input.readOnly,
       connectable: !input.readOnly,
       deletable: !input.readOnly,
-      data: { part, levels, shown, badge, highlight, remoteColor, readOnly: input.readOnly, mark },
+      data: { part, levels, shown, badge, highlight, remoteColor, readOnly: input.readOnly, mark, ...(pins ? { pins } : {}) },
     };
   });
   return out;

@@ -9,6 +9,8 @@ export interface PartActions {
   pressButton(partId: string, pressed: boolean): void;
   editText(partId: string, text: string): void;
   relabel(partId: string, label: string): void;
+  /** opens a module's inside on the canvas (double-click on an instance) */
+  openModule(moduleId: string): void;
   /** true while the board is read-only for this user */
   readOnly(): boolean;
 }
@@ -18,6 +20,7 @@ const noop: PartActions = {
   pressButton: () => undefined,
   editText: () => undefined,
   relabel: () => undefined,
+  openModule: () => undefined,
   readOnly: () => true,
 };
 

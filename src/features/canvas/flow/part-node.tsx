@@ -12,6 +12,7 @@ import { placedShape, rotationTransform, type Side } from '../lib/geometry';
 import { PartSymbol } from '../symbols';
 import { NoteSymbol } from '../symbols/note-symbol';
 import { PartLabel } from './label-editor';
+import { usePartActions } from './part-actions';
 import type { PartNode } from './types';
 import { FarContext } from './zoom-detail';
 
@@ -19,9 +20,11 @@ import { FarContext } from './zoom-detail';
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
 function PartNodeView({ data, selected }: NodeProps<PartNode>) {
-  const { part, levels, shown, badge, highlight, remoteColor, readOnly, mark } = data;
-  const shape = useMemo(() => placedShape(part), [part]);
-  const pinNames = useMemo(() => allPins(part), [part]);
+  const { part, levels, shown, badge, highlight, remoteColor, readOnly, mark, pins } = data;
+  const modulePins = useMemo(() => (pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined), [part, pins]);
+  const shape = useMemo(() => placedShape(part, modulePins), [part, modulePins]);
+  const pinNames = useMemo(() => allPins(part, modulePins), [part, modulePins]);
+  const actions = usePartActions();
   const [renaming, setRenaming] = useState(false);
   const far = useContext(FarContext);
   const level = (pin: string): Level | undefined => {
@@ -37,7 +40,8 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   return (
     <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
       style={{ width: shape.w, height: shape.h, ...outline }}
-      onDoubleClick={part.kind === 'note' || readOnly ? undefined : (e) => { e.stopPropagation(); setRenaming(true); }}>
+      onDoubleClick={part.kind === 'module' ? (e) => { e.stopPropagation(); actions.openModule(part.module); }
+        : part.kind === 'note' || readOnly ? undefined : (e) => { e.stopPropagation(); setRenaming(true); }}>
       <PartLabel partId={part.id} label={part.label} editing={renaming} onDone={() => setRenaming(false)} />
       {far ? (
         <div className="gf-far" data-kind={part.kind} />

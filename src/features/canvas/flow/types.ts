@@ -1,6 +1,6 @@
 /** Node and edge types of the canvas (React Flow), derived from the board. */
 import type { Edge, Node } from '@xyflow/react';
-import type { Part } from '../../../../shared/board';
+import type { Part, PinSet } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import type { CompareMark } from '../../../../shared/render';
 
@@ -20,6 +20,8 @@ export interface PartNodeData extends Record<string, unknown> {
   readOnly: boolean;
   /** a snapshot compare's mark (added, removed, changed) */
   mark?: CompareMark;
+  /** an instance's pins (its module's ports), absent for other parts */
+  pins?: PinSet;
 }
 export type PartNode = Node<PartNodeData, 'part'>;
 

@@ -10,7 +10,8 @@ import {
 } from '@xyflow/react';
 import { toast } from 'sonner';
 import { connect, movePart, relabelPart, setPartField } from '../../../../shared/board';
-import { partsMap } from '../../../../shared/board';
+import { modulePinTable, partsMap } from '../../../../shared/board';
+import { ModulesContext, type ModulesView } from '../modules/modules-context';
 import { INK, SIGNAL } from '../lib/colors';
 import { GRID, snap } from '../lib/geometry';
 import { labelProblem } from '../lib/labels';
@@ -45,6 +46,8 @@ export interface BoardCanvasProps extends OverlayProps {
   onHelp(open: boolean): void;
   /** gives the toolbar the commands and the node list (for image export) */
   onReady?(api: CanvasApi): void;
+  /** double-click on an instance: show its module's inside */
+  onOpenModule?(moduleId: string): void;
 }
 
 export interface CanvasApi {
@@ -84,8 +87,13 @@ export function BoardCanvas(props: BoardCanvasProps) {
   }, [ready, session.synced, flow.nodes.length, rf]);
 
   // Symbols act through these; the object never changes, the refs carry the current session.
-  const live = useRef({ session, onTryOut: props.onTryOut, tryOut: props.tryOutValues });
-  live.current = { session, onTryOut: props.onTryOut, tryOut: props.tryOutValues };
+  const live = useRef({ session, onTryOut: props.onTryOut, tryOut: props.tryOutValues, onOpenModule: props.onOpenModule });
+  live.current = { session, onTryOut: props.onTryOut, tryOut: props.tryOutValues, onOpenModule: props.onOpenModule };
+  const modules = session.board.modules;
+  const modulesView = useMemo<ModulesView>(() => ({
+    pins: modulePinTable(modules),
+    titles: new Map((modules ?? []).map((m) => [m.id, m.title])),
+  }), [modules]);
   const actions = useMemo<PartActions>(() => {
     const fail = (err: unknown) => toast.error((err as Error).message);
     const docValue = (id: string, field: 'on' | 'pressed') => partsMap(live.current.session.doc).get(id)?.get(field) === true;
@@ -113,6 +121,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
         if (problem) { toast.error(problem); return; }
         try { relabelPart(s.doc, id, label, s.origin); } catch (err) { fail(err); }
       },
+      openModule: (moduleId) => live.current.onOpenModule?.(moduleId),
     };
   }, []);
 
@@ -167,6 +176,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
 
   return (
     <PartActionsContext.Provider value={actions}>
+      <ModulesContext.Provider value={modulesView}>
       <FarContext.Provider value={far}>
       <div className={`gf-canvas relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="board-canvas" data-readonly={readOnly ? 'true' : 'false'}
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
@@ -218,6 +228,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
         {helpOpen && <HelpSheet readOnly={readOnly} onClose={() => onHelp(false)} />}
       </div>
       </FarContext.Provider>
+      </ModulesContext.Provider>
     </PartActionsContext.Provider>
   );
 }

@@ -5,6 +5,7 @@
  */
 import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { applyEdgeChanges, applyNodeChanges, type EdgeChange, type NodeChange } from '@xyflow/react';
+import { flattenWithPins, modulePinTable, type BoardFile } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import type { CompareMark } from '../../../../shared/render';
 import { byId, deriveEdges, deriveNodes, mergeLocal } from '../flow/derive-flow';
@@ -21,23 +22,45 @@ export interface OverlayProps {
   marks?: { parts: ReadonlyMap<string, CompareMark>; wires: ReadonlyMap<string, CompareMark> };
 }
 
+/**
+ * The levels with the ones an instance's pins show: each pin of an instance (`u3.A`) takes the level of
+ * the real pin of the flat board on its net (flattenWithPins), which is where the bench reads levels.
+ */
+export function withInstanceLevels(board: BoardFile, levels: ReadonlyMap<string, Level> | undefined): ReadonlyMap<string, Level> | undefined {
+  if (!levels || levels.size === 0 || !board.parts.some((p) => p.kind === 'module')) return levels;
+  let junctions: Map<string, string | null>;
+  try {
+    junctions = flattenWithPins(board).junctions;
+  } catch {
+    return levels; // a board that cannot be flattened shows no levels on its instances (the checks name why)
+  }
+  const out = new Map(levels);
+  for (const [pin, real] of junctions) {
+    const level = real === null ? undefined : levels.get(real);
+    if (level !== undefined && !out.has(pin)) out.set(pin, level);
+  }
+  return out;
+}
+
 export function useFlowState(session: BoardSession, overlay: OverlayProps, peers: PeersView) {
   const { board, readOnly } = session;
+  const modulePins = useMemo(() => modulePinTable(board.modules), [board.modules]);
+  const levels = useMemo(() => withInstanceLevels(board, overlay.levels), [board, overlay.levels]);
   const nodeCache = useRef(new Map<string, PartNode>());
   const edgeCache = useRef(new Map<string, WireEdge>());
   const derivedNodes = useMemo(() => {
     const list = deriveNodes({
-      parts: board.parts, levels: overlay.levels, badges: overlay.partBadges, highlight: overlay.highlight,
+      parts: board.parts, levels, modulePins, badges: overlay.partBadges, highlight: overlay.highlight,
       tryOut: overlay.tryOutValues, remoteSelection: peers.selection, remoteDrag: peers.dragging, readOnly, marks: overlay.marks?.parts,
     }, nodeCache.current);
     nodeCache.current = byId(list);
     return list;
-  }, [board.parts, overlay.levels, overlay.partBadges, overlay.highlight, overlay.tryOutValues, peers.selection, peers.dragging, readOnly, overlay.marks?.parts]);
+  }, [board.parts, levels, modulePins, overlay.partBadges, overlay.highlight, overlay.tryOutValues, peers.selection, peers.dragging, readOnly, overlay.marks?.parts]);
   const derivedEdges = useMemo(() => {
-    const list = deriveEdges(board.wires, overlay.levels, readOnly, edgeCache.current, overlay.marks?.wires);
+    const list = deriveEdges(board.wires, levels, readOnly, edgeCache.current, overlay.marks?.wires);
     edgeCache.current = byId(list);
     return list;
-  }, [board.wires, overlay.levels, readOnly, overlay.marks?.wires]);
+  }, [board.wires, levels, readOnly, overlay.marks?.wires]);
 
   const [nodes, setNodes] = useState<PartNode[]>([]);
   const [edges, setEdges] = useState<WireEdge[]>([]);
