@@ -24,6 +24,8 @@ export interface RedisFanoutOptions {
 
 interface Unconfirmed {
   boardId: number;
+  /** the server that published it */
+  from: string;
   data: Uint8Array;
   at: number;
 }
@@ -31,15 +33,18 @@ interface Unconfirmed {
 const REMOTE_AWARENESS = Symbol('remote-awareness');
 const channelOf = (boardId: number) => `gatefold:board:${boardId}`;
 const BOARD_CHANNEL = /^gatefold:board:(\d+)$/;
+/** Every server says it is alive here, so that a slow database is not taken for a dead server. */
+const ALIVE_CHANNEL = 'gatefold:alive';
 
 /**
  * Several servers serving one board (decision note 006): one Redis pub/sub channel per board.
  * - Each server stores the updates its own sockets and its own server edits produced (its rooms' write
  *   queues, unchanged), publishes each with its content hash, and says so (`stored`) once it is in the
  *   database. Rooms apply other servers' updates with a remote origin: broadcast, never queued.
- * - An update another server published but did not confirm within `takeoverMs` (it died, or lost its
- *   database) is stored by each server that applied it: Yjs applies an item once, so a second copy of
- *   a row costs space (compaction folds it), never content.
+ * - An update another server published and never confirmed, when that server has not been heard on the
+ *   alive channel for `takeoverMs` (it died), is stored by each server that applied it: Yjs applies an
+ *   item once, so a second copy of a row costs space (compaction folds it), never content. A live
+ *   server with a slow database keeps its own writes (no copies under load).
  * - A room that opens asks the servers that have the board open for what its stored copy lacks (an
  *   update published before it subscribed but not yet stored).
  * - Editors' presence goes to the other servers' sockets, gathered per frame.
@@ -54,6 +59,8 @@ export class RedisBoardFanout implements BoardFanout {
   private readonly publishedHere = new Set<string>();
   private readonly unconfirmed = new Map<string, Unconfirmed>();
   private readonly awarenessOff = new Map<number, () => void>();
+  /** when each other server was last heard on the alive channel */
+  private readonly lastHeard = new Map<string, number>();
   private readonly takeoverMs: number;
   private readonly awarenessFrameMs: number;
   private readonly timer: ReturnType<typeof setInterval>;
@@ -78,13 +85,16 @@ export class RedisBoardFanout implements BoardFanout {
     });
     // each server waits a little more than the others before taking over, so that usually one stores
     const jitter = Math.floor(Math.random() * this.takeoverMs);
-    this.timer = setInterval(() => void this.takeOver(this.takeoverMs + jitter), Math.max(100, this.takeoverMs / 4));
+    this.timer = setInterval(() => {
+      void this.pub.publish(ALIVE_CHANNEL, this.serverId).catch(() => undefined);
+      void this.takeOver(this.takeoverMs + jitter);
+    }, Math.max(100, this.takeoverMs / 4));
     this.timer.unref();
   }
 
   /** Resolves once both connections are up (createApp waits for it, so a bad REDIS_URL fails the start). */
   async ready(): Promise<void> {
-    await Promise.all([this.pub.ping(), this.sub.ping()]);
+    await Promise.all([this.pub.ping(), this.sub.subscribe(ALIVE_CHANNEL)]);
   }
 
   /** The registry whose rooms answer sync requests and carry presence. */
@@ -185,6 +195,10 @@ export class RedisBoardFanout implements BoardFanout {
   }
 
   private onMessage(channel: string, raw: Buffer): void {
+    if (channel === ALIVE_CHANNEL) {
+      this.lastHeard.set(raw.toString(), Date.now());
+      return;
+    }
     const match = BOARD_CHANNEL.exec(channel);
     if (!match) return;
     const boardId = Number(match[1]);
@@ -199,7 +213,7 @@ export class RedisBoardFanout implements BoardFanout {
       case 'update': {
         const apply = this.listeners.get(boardId);
         if (!apply) return;
-        this.unconfirmed.set(m.id, { boardId, data: m.data, at: Date.now() });
+        this.unconfirmed.set(m.id, { boardId, from: m.from, data: m.data, at: Date.now() });
         return this.applyRemote(boardId, apply, m.data);
       }
       case 'stored':
@@ -235,13 +249,16 @@ export class RedisBoardFanout implements BoardFanout {
     }
   }
 
-  /** Stores the remote updates older than `ageMs` whose server never said it stored them. */
+  /**
+   * Stores the remote updates older than `ageMs` whose server never said it stored them and has not
+   * been heard for `takeoverMs` (it died; a live server with a slow database keeps its own writes).
+   */
   private async takeOver(ageMs: number): Promise<void> {
     if (!this.inner || !this.unconfirmed.size) return;
     const now = Date.now();
     const byBoard = new Map<number, [string, Unconfirmed][]>();
     for (const [id, u] of this.unconfirmed) {
-      if (now - u.at < ageMs) continue;
+      if (now - u.at < ageMs || now - (this.lastHeard.get(u.from) ?? 0) < this.takeoverMs) continue;
       this.unconfirmed.delete(id);
       byBoard.set(u.boardId, [...(byBoard.get(u.boardId) ?? []), [id, u]]);
     }

@@ -27,10 +27,11 @@ export interface GatefoldProcess {
   kill(): Promise<void>;
 }
 
-/** Starts `tsx server/index.ts` with `env` and resolves once it listens. */
+/** Starts `server/index.ts` (through tsx's loader) with `env` and resolves once it listens. */
 export async function startGatefold(env: Record<string, string>): Promise<GatefoldProcess> {
   const port = await freePort();
-  const child = spawn(join(ROOT, 'node_modules/.bin/tsx'), ['server/index.ts'], {
+  // node itself with tsx's loader (not the tsx wrapper): the pid is the server's, so SIGKILL is a crash
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: ROOT,
     env: { ...process.env, ...env, PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'test' },
     stdio: ['ignore', 'pipe', 'pipe'],

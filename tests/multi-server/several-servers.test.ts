@@ -155,6 +155,26 @@ describe.skipIf(Boolean(missing))('three servers on one PostgreSQL and one Redis
     }
   });
 
+  it('SIGKILL of a server whose database writes are stuck: the server that applied its edits stores them', async () => {
+    const [s1, , s3] = cluster.servers;
+    const owner = await signUp(at(s3), 'Jo');
+    const boardId = await createBoard(at(s3), owner, 'Taken over');
+    const watcher = client(s3, boardId, owner);
+    const doomed = connectClient(at(s1), boardId, owner.cookie);
+    await Promise.all([watcher.synced, doomed.synced]);
+    // hold the board row's lock: server 1 applies, broadcasts and publishes, but cannot store
+    const trx = await cluster.db.transaction();
+    await trx('boards').where({ id: boardId }).forUpdate().first('id');
+    const made = [1, 2, 3, 4, 5].map((n) => addPart(doomed.doc, note(n), ME));
+    await waitFor(() => made.every((id) => ids(watcher).includes(id)), 'server 3 applied server 1’s edits', 10_000);
+    await s1.kill();
+    doomed.destroy(); // its client is gone too: nobody will send these edits again
+    await trx.rollback();
+    await waitFor(async () => made.every((id) => ids(watcher).includes(id)) && (await storedPartIds(boardId)).length === 5, 'server 3 stored them', 20_000);
+    expect(await storedPartIds(boardId)).toEqual([...made].sort());
+    expect(s3.output()).toMatch(/stored \d+ update\(s\) another server applied but never confirmed/);
+  });
+
   it('SIGTERM drains: sockets are told to reconnect elsewhere (1012) and the server exits cleanly', async () => {
     const s3 = cluster.servers[2];
     const owner = await signUp(at(s3), 'Ida');
