@@ -34,6 +34,7 @@ import { attachRooms, boardStoreFor, openScaleOut, type ScaleOut } from './scale
 import { createShareLinksService, type ShareLinksService } from './services/share-links';
 import { shareLinksRouter } from './http/routes/share-links';
 import { linkAudience } from './boards-live/share-guests';
+import { libraryRouter } from './http/routes/library';
 
 /** Everything a feature needs from the running app. */
 export interface AppContext {
@@ -146,6 +147,7 @@ export async function createApp(config: AppConfig): Promise<AppContext> {
   ctx.boardContent = exampleBoardContent(boardRegistry);
   app.use('/api', mountSnapshots(ctx));
   app.use('/api', bringupRouter(services, createBringupFeature({ db, uploadDir: config.uploadDir, events, readBoardFile: (id) => boardRegistry.readBoardFile(id) })));
+  app.use('/api', libraryRouter(services));
 
   app.use('/api', apiNotFound);
   const client = clientRouter(config.distDir);

@@ -4,6 +4,7 @@ import { createAuthService, type AuthService } from './auth';
 import { createAuthzService, type AuthzService } from './authz';
 import { createBoardsService, type BoardMetaWriter, type BoardsService } from './boards';
 import type { AppEvents } from './events';
+import { createLibraryService, type BoardFileReader, type LibraryService } from './library';
 import { createInvitationsService, type InvitationsService } from './invitations';
 import type { Mailer } from './mail';
 import { createMembersService, type MembersService } from './members';
@@ -19,18 +20,21 @@ export interface Services {
   members: MembersService;
   invitations: InvitationsService;
   outbox: OutboxService;
+  library: LibraryService;
 }
 
-export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer, boardMeta: BoardMetaWriter): Services {
+export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer, boardMeta: BoardMetaWriter & BoardFileReader): Services {
   const boards = createBoardsService(db, events, boardMeta);
   const invitations = createInvitationsService(db, events, mailer, boards);
+  const authz = createAuthzService(db);
   return {
     auth: createAuthService(db, config, mailer, events),
-    authz: createAuthzService(db),
+    authz,
     users: createUsersService(db),
     boards,
     members: createMembersService(db, events, mailer, invitations),
     invitations,
     outbox: createOutboxService(db),
+    library: createLibraryService(db, authz, boardMeta),
   };
 }
