@@ -26,7 +26,7 @@ export const DEMO_USERS = [
 ] as const;
 
 type DemoUserKey = (typeof DEMO_USERS)[number]['key'];
-export type DemoBoardSlug = 'half-adder' | 'mux-logic-unit' | 'debounced-clock' | 'ripple-counter-4bit' | 'tube-logic-unit';
+export type DemoBoardSlug = 'half-adder' | 'mux-logic-unit' | 'debounced-clock' | 'ripple-counter-4bit' | 'tube-logic-unit' | 'one-bit-processor';
 
 interface DemoBoard {
   slug: DemoBoardSlug;
@@ -42,6 +42,7 @@ export const DEMO_BOARDS: DemoBoard[] = [
   { slug: 'mux-logic-unit', title: 'Mux logic unit', family: 'tube-drl-nor', owner: 'ines', members: [['theo', 'editor'], ['calder', 'viewer']] },
   { slug: 'debounced-clock', title: 'Debounced clock', family: 'tube-drl-nor', owner: 'theo', members: [['ines', 'editor']] },
   { slug: 'tube-logic-unit', title: 'Tube logic unit', family: 'tube-drl-nor', owner: 'mara', members: [['theo', 'editor'], ['ines', 'editor']] },
+  { slug: 'one-bit-processor', title: '1-bit processor', family: 'tube-drl-nor', owner: 'mara', members: [['theo', 'editor'], ['ines', 'viewer']] },
   { slug: 'ripple-counter-4bit', title: '4-bit ripple counter', family: 'ttl-74ls', owner: 'calder', members: [['sam', 'viewer'], ['priya', 'viewer']] },
 ];
 

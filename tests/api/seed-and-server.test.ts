@@ -27,7 +27,7 @@ describe('demo seed', () => {
     ]);
     const theo = await t.signIn('theo@larkspur.example', DEMO_PASSWORD);
     const boards = (await theo.get('/api/boards')).body.boards.map((b: { title: string; role: string }) => [b.title, b.role]).sort();
-    expect(boards).toEqual([['Debounced clock', 'owner'], ['Half adder', 'owner'], ['Mux logic unit', 'editor'], ['Tube logic unit', 'editor']]);
+    expect(boards).toEqual([['1-bit processor', 'editor'], ['Debounced clock', 'owner'], ['Half adder', 'owner'], ['Mux logic unit', 'editor'], ['Tube logic unit', 'editor']]);
   });
 
   it('gives each board its members and calls the content hook with its slug', async () => {
@@ -37,7 +37,7 @@ describe('demo seed', () => {
     const calder = await t.signIn('calder@room14.example', DEMO_PASSWORD);
     const mux = (await calder.get('/api/boards')).body.boards.find((b: { title: string }) => b.title === 'Mux logic unit');
     expect(mux.role).toBe('viewer');
-    expect(seeded.map(([, slug]) => slug)).toEqual(['half-adder', 'mux-logic-unit', 'debounced-clock', 'tube-logic-unit', 'ripple-counter-4bit']);
+    expect(seeded.map(([, slug]) => slug)).toEqual(['half-adder', 'mux-logic-unit', 'debounced-clock', 'tube-logic-unit', 'one-bit-processor', 'ripple-counter-4bit']);
     const counterRow = seeded.find(([, slug]) => slug === 'ripple-counter-4bit')!;
     expect(counterRow[0]).toBe(counter.id);
     expect(counterRow[2]).toBe(counter.ownerId);

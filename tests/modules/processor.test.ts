@@ -1,0 +1,177 @@
+/**
+ * The tube group's demo 1-bit processor (examples/one-bit-processor.gatefold.json): every gate a NOR,
+ * built from modules. Its program is run through the command line and through our simulator, clock by
+ * clock, and checked against a small interpreter written here from the instruction table on the board's
+ * note (not from the simulator). The build sheet plans one 6AU6 per NOR gate.
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { flattenBoard, parseBoardFile, type BoardFile } from '../../shared/board';
+import { compileBoard, Simulator } from '../../shared/sim';
+import { runCli } from '../cli/run-cli';
+import { buildOneBitProcessor, EXAMPLE_FILE } from '../helpers/one-bit-processor';
+
+const FILE = EXAMPLE_FILE.pathname;
+
+function load(): BoardFile {
+  const parsed = parseBoardFile(JSON.parse(readFileSync(EXAMPLE_FILE, 'utf8')));
+  if (!parsed.ok) throw new Error(parsed.problems.map((p) => p.message).join('; '));
+  return parsed.board;
+}
+
+// ---- reference interpreter, from the instruction table (opcode I3 I2 I1 I0; D = DIN AND IEN) ----
+interface State { step: number; rr: number; ien: number; oen: number; out: number }
+type Exec = (s: State, din: number) => void;
+const rrOp = (f: (rr: number, d: number) => number): Exec => (s, din) => { s.rr = f(s.rr, din & s.ien); };
+const OPS: Array<[string, Exec]> = [
+  ['NOP', rrOp((rr) => rr)],
+  ['LD', rrOp((_, d) => d)],
+  ['LDN', rrOp((_, d) => 1 - d)],
+  ['AND', rrOp((rr, d) => rr & d)],
+  ['ANDN', rrOp((rr, d) => rr & (1 - d))],
+  ['OR', rrOp((rr, d) => rr | d)],
+  ['ORN', rrOp((rr, d) => rr | (1 - d))],
+  ['XOR', rrOp((rr, d) => rr ^ d)],
+  ['XNOR', rrOp((rr, d) => 1 - (rr ^ d))],
+  ['NOT', rrOp((rr) => 1 - rr)],
+  ['CLR', rrOp(() => 0)],
+  ['SET', rrOp(() => 1)],
+  ['IEN', (s, din) => { s.ien = din; }],
+  ['OEN', (s, din) => { s.oen = din; }],
+  ['STO', (s) => { if (s.oen) s.out = s.rr; }],
+  ['STON', (s) => { if (s.oen) s.out = 1 - s.rr; }],
+];
+// the counter steps 00 → 01 → 11 → 10 (a two-stage Johnson counter: common practice, no source)
+const STEP_CODE = ['00', '01', '11', '10'];
+
+function observe(s: State, program: number[]): Record<string, string> {
+  const op = program[s.step];
+  const bits = op.toString(2).padStart(4, '0');
+  const write = (OPS[op][0] === 'STO' || OPS[op][0] === 'STON') && s.oen ? 1 : 0;
+  return {
+    STEP1: STEP_CODE[s.step][0], STEP0: STEP_CODE[s.step][1],
+    I3: bits[0], I2: bits[1], I1: bits[2], I0: bits[3],
+    IEN: String(s.ien), OEN: String(s.oen), RR: String(s.rr), WRITE: String(write), OUT: String(s.out),
+  };
+}
+
+/** What the outputs read after each clock: the instruction at the counter runs on the rising edge, then the counter steps. */
+function interpret(program: number[], din: number[]): Array<Record<string, string>> {
+  const s: State = { step: 0, rr: 0, ien: 0, oen: 0, out: 0 }; // every register powers on at 0 (the board's note)
+  return din.map((d) => {
+    OPS[program[s.step]][1](s, d);
+    s.step = (s.step + 1) % 4;
+    return observe(s, program);
+  });
+}
+
+/** The program in the ROM module, read from its constants `c_s<step>_b<bit>`. */
+function romProgram(board: BoardFile): number[] {
+  const rom = board.modules!.find((m) => m.id === 'rom')!;
+  const value = (id: string) => (rom.parts.find((p) => p.id === id) as { value: number }).value;
+  return [0, 1, 2, 3].map((st) => [3, 2, 1, 0].reduce((w, k) => w * 2 + value(`c_s${st}_b${k}`), 0));
+}
+
+function withProgram(board: BoardFile, program: number[]): BoardFile {
+  const modules = board.modules!.map((m) => (m.id !== 'rom' ? m : {
+    ...m,
+    parts: m.parts.map((p) => {
+      const hit = /^c_s(\d)_b(\d)$/.exec(p.id);
+      return hit ? { ...p, value: (program[Number(hit[1])] >> Number(hit[2])) & 1 } : p;
+    }),
+  }));
+  return { ...board, modules } as BoardFile;
+}
+
+/** Our simulator, clocked as `simulate --clock` clocks: DIN set, then CLK high, settle, CLK low, settle. */
+function simulate(board: BoardFile, din: number[]): Array<Record<string, string>> {
+  const sim = new Simulator(compileBoard(board));
+  expect(sim.settle().settled).toBe(true);
+  return din.map((d) => {
+    sim.setInput('din', d as 0 | 1);
+    expect(sim.settle().settled).toBe(true);
+    sim.setInput('clk', 1);
+    expect(sim.settle().settled).toBe(true);
+    sim.setInput('clk', 0);
+    expect(sim.settle().settled).toBe(true);
+    return sim.outputValues();
+  });
+}
+
+/** A small seeded generator (a linear congruential one: Numerical Recipes' constants, from memory). */
+function lcg(seed: number): () => number {
+  let x = seed >>> 0;
+  return () => {
+    x = (Math.imul(x, 1664525) + 1013904223) >>> 0;
+    return x / 2 ** 32;
+  };
+}
+
+describe('1-bit processor demo', () => {
+  it('the example file is what the generator writes, and everything is built of NOR gates in modules', () => {
+    const board = load();
+    expect(readFileSync(EXAMPLE_FILE, 'utf8')).toBe(JSON.stringify(buildOneBitProcessor(), null, 2) + '\n');
+    expect(board.family).toBe('tube-drl-nor');
+    const instances = board.parts.filter((p) => p.kind === 'module') as Array<{ module: string }>;
+    expect(instances.filter((p) => p.module === 'nor_dff').length).toBeGreaterThanOrEqual(6);
+    expect(new Set(instances.map((p) => p.module))).toEqual(new Set(['nor_dff', 'rom', 'decoder', 'logic_unit']));
+    const gates = flattenBoard(board).parts.filter((p) => !['switch', 'clock', 'const', 'lamp', 'note'].includes(p.kind));
+    expect(new Set(gates.map((p) => p.kind))).toEqual(new Set(['nor']));
+    for (const p of board.parts) expect([p.id, p.x % 20, p.y % 20]).toEqual([p.id, 0, 0]);
+  });
+
+  it('the note documents the instruction table the reference interpreter follows, and the ROM holds the documented program', () => {
+    const board = load();
+    const note = (board.parts.find((p) => p.kind === 'note') as { text: string }).text;
+    OPS.forEach(([name], op) => expect(note).toContain(`${op.toString(2).padStart(4, '0')} ${name}:`));
+    expect(note).toContain('step 0 IEN, step 1 OEN, step 2 XOR, step 3 STO');
+    expect(romProgram(board).map((op) => OPS[op][0])).toEqual(['IEN', 'OEN', 'XOR', 'STO']);
+  });
+
+  it('runs its program through `simulate --clock`: with DIN on, OUT changes every fourth clock', async () => {
+    const board = load();
+    const program = romProgram(board);
+    const r = await runCli(['simulate', FILE, '--set', 'DIN=1', '--clock', 'CLK', '--cycles', '12']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout) as { settled: boolean; conflicts: string[]; trace: Array<{ cycle: number; outputs: Record<string, string> }> };
+    expect(out.settled).toBe(true);
+    expect(out.conflicts).toEqual([]);
+    const expected = interpret(program, Array(12).fill(1));
+    expect(out.trace.map((t) => t.outputs)).toEqual(expected);
+    // the documented result: OUT reads 1 after clocks 4 to 7, 0 after 8 to 11, 1 again after 12
+    expect(expected.map((o) => o.OUT).join('')).toBe('000111100001');
+    // with DIN off, IEN and OEN stay 0 and nothing is written
+    const off = await runCli(['simulate', FILE, '--clock', 'CLK', '--cycles', '8']);
+    expect(JSON.parse(off.stdout).trace.map((t: { outputs: unknown }) => t.outputs)).toEqual(interpret(program, Array(8).fill(0)));
+  });
+
+  it('runs any program of the 16 instructions with DIN changing between clocks, as the interpreter says', () => {
+    const board = load();
+    const rand = lcg(14);
+    const programs: number[][] = [];
+    // every opcode in every step at least once, then random programs
+    for (let op = 0; op < 16; op++) programs.push([12, 13, op, (op + 7) % 16]);
+    for (let n = 0; n < 8; n++) programs.push([0, 1, 2, 3].map(() => Math.floor(rand() * 16)));
+    for (const program of programs) {
+      const din = Array.from({ length: 16 }, () => (rand() < 0.6 ? 1 : 0));
+      expect([program, simulate(withProgram(board, program), din)]).toEqual([program, interpret(program, din)]);
+    }
+  });
+
+  it('build sheet for the tube family: one tube per NOR gate, heater current = tubes × 0.3 A', async () => {
+    const board = load();
+    const nors = flattenBoard(board).parts.filter((p) => p.kind === 'nor').length;
+    // 6 flip-flops × 15 + decoder + logic unit 12 + ROM 20 + 3 at the top
+    expect(nors).toBeGreaterThan(6 * 15 + 12 + 20);
+    const r = await runCli(['build-sheet', FILE, '--family', 'tube-drl-nor']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const sheet = JSON.parse(r.stdout) as { builtAs: { gates: number }; devices: { tubes: number }; heater: { amps: number; tubes: number } };
+    expect(sheet.builtAs.gates).toBe(nors);
+    expect(sheet.devices.tubes).toBe(nors);
+    // 6AU6 heater: 6.3 V, 0.3 A (RCA receiving tube data, from memory)
+    expect(sheet.heater.tubes).toBe(nors);
+    expect(sheet.heater.amps).toBeCloseTo(nors * 0.3, 6);
+  });
+});
