@@ -6,4 +6,4 @@ export type { BoardWorkspaceProps } from './workspace/board-workspace';
 export type { PartBadge, BadgeTone } from './flow/types';
 export { ImportBoardButton } from './io/import-board-button';
 export { importBoardFile } from './io/board-file-io';
-export { useViewportFollow, useViewportPublish, type Viewport } from './workspace/use-viewport-follow';
+export { useViewportFollow, useViewportPublish, type Viewport, type SizedViewport } from './workspace/use-viewport-follow';

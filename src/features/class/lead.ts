@@ -1,6 +1,6 @@
 /**
  * Lead / follow through awareness. A leader (an editor or the owner) adds to its awareness state
- * `lead: {viewport: {x, y, zoom}, spotlight?: partIds, explain?: {row, step}}`; the room server fans
+ * `lead: {viewport: {x, y, zoom, w?, h?}, spotlight?: partIds, explain?: {row, step}}`; the room server fans
  * editors' states out to everyone, viewers' and guests' included, so every follower reads it. An editor
  * who follows adds `follow: <leader's client id>` (viewers' states stay on the server, so they are
  * counted through the server's audience entry instead). Reading is a pure function.
@@ -8,7 +8,7 @@
 import { z } from 'zod';
 
 export const LeadSchema = z.object({
-  viewport: z.object({ x: z.number(), y: z.number(), zoom: z.number().positive() }),
+  viewport: z.object({ x: z.number(), y: z.number(), zoom: z.number().positive(), w: z.number().positive().optional(), h: z.number().positive().optional() }),
   spotlight: z.array(z.string()).max(500).optional(),
   explain: z.object({ row: z.number().int().min(0), step: z.number().int().min(0) }).nullable().optional(),
 });

@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { compileBoard, explainInputs, explainRow, explainRowCount, type Explanation } from '../../../shared/sim';
-import type { BoardSession, Viewport } from '../canvas';
+import type { BoardSession, SizedViewport } from '../canvas';
 import { editorsFollowing, readLeader, type Lead, type Leader } from './lead';
 import { useAudience } from './use-audience';
 
@@ -42,7 +42,7 @@ export interface Lesson {
   spotlight: string[];
   setSpotlight(ids: string[]): void;
   /** the leader's canvas viewport, given by the panel (under the canvas provider) */
-  setViewport(v: Viewport): void;
+  setViewport(v: SizedViewport): void;
   /** part ids to outline on the canvas, or undefined */
   highlight: ReadonlySet<string> | undefined;
 }
@@ -60,7 +60,7 @@ export function useLesson(session: BoardSession): Lesson {
   const [spotlight, setSpotlight] = useState<string[]>([]);
   const [leader, setLeader] = useState<Leader | null>(null);
   const [editorFollowers, setEditorFollowers] = useState(0);
-  const viewport = useRef<Viewport | null>(null);
+  const viewport = useRef<SizedViewport | null>(null);
 
   // the leader, re-read at most once per frame
   useEffect(() => {
@@ -124,7 +124,7 @@ export function useLesson(session: BoardSession): Lesson {
   // the leader's state, sent at most every 100 ms (10 Hz) while it changes; null when leading stops
   const now = useRef({ spotlight, open, row, step });
   now.current = { spotlight, open, row, step };
-  const setViewport = useCallback((v: Viewport) => { viewport.current = { x: v.x, y: v.y, zoom: v.zoom }; }, []);
+  const setViewport = useCallback((v: SizedViewport) => { viewport.current = { x: v.x, y: v.y, zoom: v.zoom, w: v.w, h: v.h }; }, []);
   useEffect(() => {
     if (!leading) return;
     let sent = '';
