@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { flattenBoard, parseBoardFile, type BoardFile } from '../../shared/board';
 import { compileBoard, Simulator } from '../../shared/sim';
+import { analyzeBoard } from '../../shared/analysis';
 import { runCli } from '../cli/run-cli';
 import { buildOneBitProcessor, EXAMPLE_FILE } from '../helpers/one-bit-processor';
 
@@ -126,6 +127,37 @@ describe('1-bit processor demo', () => {
     OPS.forEach(([name], op) => expect(note).toContain(`${op.toString(2).padStart(4, '0')} ${name}:`));
     expect(note).toContain('step 0 IEN, step 1 OEN, step 2 XOR, step 3 STO');
     expect(romProgram(board).map((op) => OPS[op][0])).toEqual(['IEN', 'OEN', 'XOR', 'STO']);
+  });
+
+  it('the logic unit module gives all 16 functions of two inputs, its function code being the truth table', () => {
+    // the logic unit alone on a board: A, B and the function code F3…F0 on switches, Y on a lamp
+    const lu = load().modules!.find((m) => m.id === 'logic_unit')!;
+    const codes = ['F3', 'F2', 'F1', 'F0'];
+    const parsed = parseBoardFile({
+      format: 'gatefold-board', version: 1, title: 'Logic unit alone', family: 'ideal', modules: [lu],
+      parts: [
+        ...['A', 'B', ...codes].map((label, i) => ({ id: label.toLowerCase(), kind: 'switch', label, x: 0, y: 80 * i, on: false })),
+        { id: 'u', kind: 'module', module: 'logic_unit', x: 200, y: 0 },
+        { id: 'y', kind: 'lamp', label: 'Y', x: 400, y: 0 },
+      ],
+      wires: [
+        ...['A', 'B', ...codes].map((label) => ({ id: `w_${label}`, from: `${label.toLowerCase()}.out`, to: `u.${label}` })),
+        { id: 'w_y', from: 'u.Y', to: 'y.in' },
+      ],
+    });
+    if (!parsed.ok) throw new Error(parsed.problems.map((p) => p.message).join('; '));
+    const result = analyzeBoard(parsed.board, { inputs: ['A', 'B', ...codes], select: codes });
+    // Function names by output column over AB = 00, 01, 10, 11 (0000 … 1111): Wikipedia "Truth table",
+    // section "Binary operations" (the same order as CONTRACTS §2). Code F3 F2 F1 F0 puts Fk at AB = k.
+    const NAMES = ['FALSE', 'AND', 'A_AND_NOT_B', 'A', 'NOT_A_AND_B', 'B', 'XOR', 'OR', 'NOR', 'XNOR', 'NOT_B', 'A_OR_NOT_B', 'NOT_A', 'NOT_A_OR_B', 'NAND', 'TRUE'];
+    const got = Object.fromEntries(result.functionMap.map((e) => [e.select, e.functions.Y.name]));
+    const want = Object.fromEntries(Array.from({ length: 16 }, (_, code) => {
+      const select = code.toString(2).padStart(4, '0');
+      const column = [...select].reverse().join(''); // F0 F1 F2 F3: Y at AB = 00, 01, 10, 11
+      return [select, NAMES[Number.parseInt(column, 2)]];
+    }));
+    expect(got).toEqual(want);
+    expect(new Set(Object.values(got)).size).toBe(16);
   });
 
   it('runs its program through `simulate --clock`: with DIN on, OUT changes every fourth clock', async () => {
