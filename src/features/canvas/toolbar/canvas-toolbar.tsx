@@ -46,6 +46,7 @@ export function CanvasToolbar({ session, canvas, onHelp }: Props) {
           <Tool testId="tool-rotate" title="Rotate the selection (R)" onClick={() => canvas?.run('rotate')}>⟳ Rotate</Tool>
           <Tool testId="tool-duplicate" title="Duplicate the selection (Ctrl+D)" onClick={() => canvas?.run('duplicate')}>⧉ Duplicate</Tool>
           <Tool testId="tool-delete" title="Delete the selection (Delete)" onClick={() => canvas?.run('delete')}>✕ Delete</Tool>
+          <Tool testId="tool-make-module" title="Make a module of the selection (M)" onClick={() => canvas?.run('makeModule')}>▣ Module</Tool>
           <span className="mx-1 h-4 w-px bg-mat-600" />
         </>
       )}

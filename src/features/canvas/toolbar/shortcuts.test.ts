@@ -18,6 +18,8 @@ describe('commandOf', () => {
     expect(key('R', { shiftKey: true })).toBe('rotate');
     expect(key('?', { shiftKey: true })).toBe('help');
     expect(key('Escape')).toBe('cancel');
+    expect(key('m')).toBe('makeModule');
+    expect(key('M', { shiftKey: true })).toBe('makeModule');
   });
 
   it('ignores other keys and Alt combinations', () => {
@@ -28,7 +30,7 @@ describe('commandOf', () => {
 
   it('has a help-sheet line for every command it can return', () => {
     const listed = new Set(SHORTCUTS.map((s) => s.command));
-    for (const k of ['Delete', 'r', '?', 'Escape']) expect(listed.has(key(k)!)).toBe(true);
+    for (const k of ['Delete', 'r', 'm', '?', 'Escape']) expect(listed.has(key(k)!)).toBe(true);
     for (const k of ['c', 'v', 'd', 'z', 'y', 'a']) expect(listed.has(key(k, { ctrlKey: true })!)).toBe(true);
   });
 });

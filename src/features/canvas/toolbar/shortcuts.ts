@@ -1,5 +1,5 @@
 /** The canvas's keyboard shortcuts: one table drives both the key handling and the help sheet. */
-export type CommandName = 'delete' | 'copy' | 'paste' | 'duplicate' | 'undo' | 'redo' | 'rotate' | 'help' | 'cancel' | 'selectAll';
+export type CommandName = 'delete' | 'copy' | 'paste' | 'duplicate' | 'undo' | 'redo' | 'rotate' | 'help' | 'cancel' | 'selectAll' | 'makeModule';
 
 export interface Shortcut { command: CommandName; keys: string; does: string; editOnly: boolean }
 
@@ -11,6 +11,7 @@ export const SHORTCUTS: Shortcut[] = [
   { command: 'undo', keys: 'Ctrl+Z', does: 'Undo your last edit (never a collaborator’s)', editOnly: true },
   { command: 'redo', keys: 'Ctrl+Shift+Z / Ctrl+Y', does: 'Redo', editOnly: true },
   { command: 'rotate', keys: 'R', does: 'Rotate the selected parts a quarter turn', editOnly: true },
+  { command: 'makeModule', keys: 'M', does: 'Make a module of the selected parts (an instance takes their place)', editOnly: true },
   { command: 'selectAll', keys: 'Ctrl+A', does: 'Select everything', editOnly: false },
   { command: 'cancel', keys: 'Esc', does: 'Drop the part picked in the tray; clear the selection', editOnly: false },
   { command: 'help', keys: '?', does: 'Show or hide this sheet', editOnly: false },
@@ -34,6 +35,7 @@ export function commandOf(e: KeyLike): CommandName | null {
   }
   if (k === 'Delete' || k === 'Backspace') return 'delete';
   if (k === 'r') return 'rotate';
+  if (k === 'm') return 'makeModule';
   if (k === '?') return 'help';
   if (k === 'Escape') return 'cancel';
   return null;

@@ -4,7 +4,7 @@
  */
 import { useCallback, useEffect, useRef } from 'react';
 import { toast } from 'sonner';
-import { addPart, copyFragment, deleteSelection, pasteFragment, rotateParts } from '../../../../shared/board';
+import { addPart, copyFragment, deleteSelection, makeModule, modulesMap, pasteFragment, rotateParts } from '../../../../shared/board';
 import { fragmentOrigin, parseFragment, rememberFragment, rememberedFragment } from '../io/clipboard';
 import type { Fragment } from '../../../../shared/board';
 import { snap } from '../lib/geometry';
@@ -81,6 +81,21 @@ export function useCanvasCommands(deps: Deps) {
       case 'rotate': {
         const ids = selectedIds();
         if (editing && ids.length) rotateParts(session.doc, ids, session.origin);
+        return;
+      }
+      case 'makeModule': {
+        if (!editing) return;
+        const ids = selectedIds();
+        if (!ids.length) { toast.message('Select the parts that make the module first'); return; }
+        try {
+          const title = `Module ${modulesMap(session.doc).size + 1}`;
+          const made = makeModule(session.doc, ids, session.origin, { title });
+          selectOnly([made.instanceId]);
+          const kept = made.keptOutside.length ? ` (${made.keptOutside.join(', ')} stay outside: a module takes its inputs through ports)` : '';
+          toast.message(`Made ${title}${kept}; double-click it to open it`);
+        } catch (err) {
+          toast.error((err as Error).message);
+        }
         return;
       }
       case 'undo': session.undo(); return;
