@@ -8,6 +8,8 @@ export interface TrayChoice {
   inputs?: number;
   /** value of a constant */
   value?: 0 | 1;
+  /** which way a port's signal flows (ports exist only inside a module) */
+  dir?: 'in' | 'out';
 }
 
 const LETTERS = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ';
@@ -50,7 +52,14 @@ export function newPart(choice: TrayChoice, x: number, y: number, parts: readonl
     case 'mux2':
     case 'mux4': return { ...base, kind };
     case 'note': return { ...base, kind, text: 'Note' };
-    case 'port': return { ...base, kind, dir: 'in' };
+    case 'port': {
+      // a port's label is its instance pin: in1, in2… or out1, out2…, unique among the module's ports
+      const dir = choice.dir ?? 'in';
+      const taken = new Set(parts.filter((p) => p.kind === 'port').map((p) => p.label ?? ''));
+      let n = 1;
+      while (taken.has(`${dir}${n}`)) n++;
+      return { ...base, kind, dir, label: `${dir}${n}` };
+    }
     case 'module': throw new Error('an instance is placed from the board\'s modules (placeInstance)');
     default: {
       const never: never = kind;

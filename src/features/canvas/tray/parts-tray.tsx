@@ -4,20 +4,22 @@
  */
 import { memo, useMemo, useState, type DragEvent } from 'react';
 import { newPart, type TrayChoice } from '../lib/new-part';
-import { shapeOf } from '../lib/geometry';
+import { placedShape } from '../lib/geometry';
 import { PartSymbol } from '../symbols';
-import { TRAY_ITEMS, TRAY_MIME, searchTray, type TrayItem } from './tray-items';
+import { TRAY_ITEMS, TRAY_MIME, searchTray, trayItemsFor, type TrayItem } from './tray-items';
 
 interface Props {
   armed: TrayChoice | null;
   onArm(choice: TrayChoice | null): void;
+  /** a module is open on the canvas: offer ports, leave out switches, buttons and clocks */
+  inModule?: boolean;
 }
 
 const noLevel = () => undefined;
 
 const Preview = memo(function Preview({ item, inputs }: { item: TrayItem; inputs: number }) {
   const part = newPart({ ...item, inputs }, 0, 0, []);
-  const { w, h } = shapeOf(part.kind, inputs);
+  const { baseW: w, baseH: h } = placedShape(part);
   if (part.kind === 'note') return <span className="font-mono text-[10px] text-slate-400">Aa</span>;
   return (
     <svg width={44} height={30} viewBox={`-4 -4 ${w + 8} ${h + 8}`} aria-hidden="true">
@@ -26,17 +28,17 @@ const Preview = memo(function Preview({ item, inputs }: { item: TrayItem; inputs
   );
 });
 
-export function PartsTray({ armed, onArm }: Props) {
+export function PartsTray({ armed, onArm, inModule = false }: Props) {
   const [query, setQuery] = useState('');
   const [inputs, setInputs] = useState<Record<string, number>>({});
-  const items = useMemo(() => searchTray(query), [query]);
+  const items = useMemo(() => searchTray(query, trayItemsFor(inModule)), [query, inModule]);
   const groups = useMemo(() => {
     const m = new Map<string, TrayItem[]>();
     for (const it of items) m.set(it.group, [...(m.get(it.group) ?? []), it]);
     return [...m];
   }, [items]);
-  const choiceOf = (it: TrayItem): TrayChoice => ({ kind: it.kind, value: it.value, inputs: it.multiInput ? inputs[it.key] ?? 2 : undefined });
-  const isArmed = (it: TrayItem) => armed?.kind === it.kind && (armed.value ?? null) === (it.value ?? null);
+  const choiceOf = (it: TrayItem): TrayChoice => ({ kind: it.kind, value: it.value, dir: it.dir, inputs: it.multiInput ? inputs[it.key] ?? 2 : undefined });
+  const isArmed = (it: TrayItem) => armed?.kind === it.kind && (armed.value ?? null) === (it.value ?? null) && (armed.dir ?? null) === (it.dir ?? null);
   const onDragStart = (e: DragEvent, it: TrayItem) => {
     e.dataTransfer.setData(TRAY_MIME, JSON.stringify(choiceOf(it)));
     e.dataTransfer.effectAllowed = 'copy';

@@ -1,5 +1,5 @@
 /** The entries of the parts tray, in groups, with the words a search matches. */
-import { KIND_TITLES, type PartKind } from '../../../../shared/board';
+import { KINDS_OUTSIDE_MODULES, KIND_TITLES, type PartKind } from '../../../../shared/board';
 import type { TrayChoice } from '../lib/new-part';
 
 export interface TrayItem extends TrayChoice {
@@ -33,6 +33,19 @@ export const TRAY_ITEMS: TrayItem[] = [
   item('mux4', 'Blocks', 'multiplexer mux 4:1 select'),
   item('note', 'Annotation', 'text note comment'),
 ];
+
+/** Ports: only while a module is open (a port on the top level fails the board-file check). */
+export const PORT_ITEMS: TrayItem[] = [
+  item('port', 'Modules', 'port module pin input in', { key: 'port-in', title: 'Port in', dir: 'in' }),
+  item('port', 'Modules', 'port module pin output out', { key: 'port-out', title: 'Port out', dir: 'out' }),
+];
+
+/** The tray of a level: the top level's parts, or inside a module its parts without inputs, plus ports. */
+export function trayItemsFor(inModule: boolean): TrayItem[] {
+  if (!inModule) return TRAY_ITEMS;
+  const outside = new Set<string>(KINDS_OUTSIDE_MODULES);
+  return [...TRAY_ITEMS.filter((it) => !outside.has(it.kind)), ...PORT_ITEMS];
+}
 
 /** Tray items whose title or keywords contain every word of `query`. */
 export function searchTray(query: string, items: readonly TrayItem[] = TRAY_ITEMS): TrayItem[] {

@@ -2,7 +2,7 @@
  * The board workspace: presence and tools on top, the parts tray on the left (editors only), the canvas
  * in the middle, optional panels in a collapsible right column and an optional resizable bottom dock.
  */
-import { useState, type ReactNode } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { ReactFlowProvider } from '@xyflow/react';
 import '@xyflow/react/dist/style.css';
 import '../canvas.css';
@@ -15,6 +15,8 @@ import type { BoardSession } from '../session/use-board-session';
 import { CanvasToolbar } from '../toolbar/canvas-toolbar';
 import { PartInspector } from '../inspector/part-inspector';
 import { PartsTray } from '../tray/parts-tray';
+import { useModuleSession } from '../modules/use-module-session';
+import type { PeersView } from '../session/awareness';
 import { BoardCanvas, type CanvasApi } from './board-canvas';
 import { BottomDock } from './bottom-dock';
 import type { OverlayProps } from './use-flow-state';
@@ -50,6 +52,16 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
   const [help, setHelp] = useState(false);
   const [panelsOpen, setPanelsOpen] = useState(true);
   const [canvas, setCanvas] = useState<CanvasApi | null>(null);
+  // The modules open on the canvas, outermost first (double-click an instance; the breadcrumb goes back).
+  const [path, setPath] = useState<string[]>([]);
+  const scope = useModuleSession(session, path.length ? path[path.length - 1] : null);
+  const inModule = scope.module !== null;
+  const view = scope.session;
+  // a module deleted (or undone away) while open: back to the board
+  useEffect(() => { if (path.length && !inModule) setPath([]); }, [path.length, inModule]);
+  // Collaborators' selections and drags name top-level parts: inside a module they would mark the wrong ones.
+  const shownPeers = useMemo<PeersView>(() => (inModule ? { ...peers, selection: new Map(), dragging: new Map() } : peers), [peers, inModule]);
+  const titleOf = (id: string) => session.board.modules?.find((m) => m.id === id)?.title ?? id;
 
   return (
     <div className="gf-workspace flex min-h-0 min-w-0 flex-1 flex-col" data-testid="board-workspace">
@@ -65,12 +77,31 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
         ) : null}
       </div>
       <div className="flex min-h-0 flex-1">
-        {!session.readOnly && <PartsTray armed={armed} onArm={setArmed} />}
+        {!session.readOnly && <PartsTray armed={armed} onArm={setArmed} inModule={inModule} />}
         <div className="flex min-h-0 min-w-0 flex-1 flex-col">
           <div className="relative min-h-0 flex-1">
-            <BoardCanvas session={session} peers={peers} armed={armed} onArm={setArmed} levels={levels} partBadges={partBadges}
-              highlight={highlight} marks={marks} onTryOut={onTryOut} tryOutValues={tryOutValues} helpOpen={help} onHelp={setHelp} onReady={setCanvas} />
-            {!(panels && panelsOpen) && <PartInspector session={session} placement="float" />}
+            {/* inside a module the bench's levels, badges and marks (top-level part ids) do not apply */}
+            <BoardCanvas key={path.join('/') || 'board'} session={view} peers={shownPeers} armed={armed} onArm={setArmed}
+              levels={inModule ? undefined : levels} partBadges={inModule ? undefined : partBadges}
+              highlight={inModule ? undefined : highlight} marks={inModule ? undefined : marks} onTryOut={onTryOut} tryOutValues={tryOutValues}
+              helpOpen={help} onHelp={setHelp} onReady={setCanvas} onOpenModule={(id) => setPath((p) => (p.includes(id) ? p : [...p, id]))} />
+            {inModule && (
+              <nav className="absolute left-3 top-3 z-10 flex items-center gap-1 rounded bg-mat-800/95 px-2 py-1 text-xs text-slate-300 shadow"
+                aria-label="Module breadcrumb" data-testid="module-breadcrumb">
+                <button type="button" className="rounded px-1 text-amber-300 hover:bg-mat-700" data-testid="breadcrumb-board" onClick={() => setPath([])}>Board</button>
+                {path.map((id, i) => (
+                  <span key={id} className="flex items-center gap-1">
+                    <span aria-hidden="true">›</span>
+                    {i === path.length - 1 ? (
+                      <span className="px-1 font-mono text-slate-100" data-testid="breadcrumb-current">{titleOf(id)}</span>
+                    ) : (
+                      <button type="button" className="rounded px-1 text-amber-300 hover:bg-mat-700" onClick={() => setPath(path.slice(0, i + 1))}>{titleOf(id)}</button>
+                    )}
+                  </span>
+                ))}
+              </nav>
+            )}
+            {!(panels && panelsOpen) && <PartInspector session={view} placement="float" />}
             {!session.synced && (
               <div className="pointer-events-none absolute inset-x-0 top-3 flex justify-center">
                 <span className="rounded bg-mat-800/90 px-3 py-1 text-xs text-slate-300" data-testid="sync-note">
@@ -82,7 +113,7 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
           {bottom ? <BottomDock>{bottom}</BottomDock> : null}
         </div>
         {panels && panelsOpen ? (
-          <aside className="w-80 shrink-0 overflow-y-auto border-l border-mat-700 bg-mat-900" data-testid="side-panels"><PartInspector session={session} placement="panel" />{panels}</aside>
+          <aside className="w-80 shrink-0 overflow-y-auto border-l border-mat-700 bg-mat-900" data-testid="side-panels"><PartInspector session={view} placement="panel" />{panels}</aside>
         ) : null}
       </div>
     </div>
