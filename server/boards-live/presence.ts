@@ -13,9 +13,37 @@ export interface PresenceConn {
   clients: Set<number>;
 }
 
-/** The server's own awareness entry: how many viewers are watching (viewers' own states are not sent out). */
+/** A raised hand: the viewer's awareness client id and its display name. */
+export interface RaisedHand {
+  id: number;
+  name: string;
+}
+
+/**
+ * The server's own awareness entry: how many viewers are watching and whose hand is up (viewers' own
+ * states are not sent out). A viewer raises a hand with its awareness field `hand: true` (named by its
+ * `user.name`); an editor clears hands with its field `clearHands: {seq, ids}` (`ids` a list of hand
+ * ids or `'all'`, `seq` a number changed for each clear): a cleared hand stays down until that viewer
+ * lowers and raises it again.
+ */
 export interface AudienceState {
-  audience: { viewers: number };
+  audience: { viewers: number; hands: RaisedHand[] };
+}
+
+/** What of a state's JSON the hands need: the viewer's hand and name, the editor's clear request. */
+function handFields(json: string): { hand: boolean; name: string; clear: { key: string; ids: number[] | 'all' } | null } {
+  let s: unknown;
+  try {
+    s = JSON.parse(json);
+  } catch {
+    return { hand: false, name: '', clear: null };
+  }
+  const o = (s && typeof s === 'object' ? s : {}) as { hand?: unknown; user?: { name?: unknown }; clearHands?: { seq?: unknown; ids?: unknown } };
+  const rawName = typeof o.user?.name === 'string' ? o.user.name.trim().slice(0, 60) : '';
+  const c = o.clearHands;
+  const ids: number[] | 'all' | null = c && typeof c === 'object' ? (c.ids === 'all' ? 'all' : Array.isArray(c.ids) ? c.ids.filter((x): x is number => Number.isInteger(x)) : null) : null;
+  const clear = ids && typeof c?.seq === 'number' ? { key: `${c.seq}`, ids } : null;
+  return { hand: o.hand === true, name: rawName || 'Guest', clear };
 }
 
 interface Bucket {
@@ -55,6 +83,13 @@ export class Presence {
   private frameTimer: ReturnType<typeof setTimeout> | null = null;
   private renewalTimer: ReturnType<typeof setTimeout> | null = null;
   private viewers = 0;
+  /** raised hands by viewer client id, in the order raised */
+  private readonly hands = new Map<number, string>();
+  /** viewers whose raised hand an editor cleared: ignored until they lower it */
+  private readonly cleared = new Set<number>();
+  /** each editor client's last applied clear request */
+  private readonly clearSeen = new Map<number, string>();
+  private audienceJson = '';
 
   constructor(
     readonly awareness: awarenessProtocol.Awareness,
@@ -62,7 +97,8 @@ export class Presence {
     private readonly options: () => CollabOptions,
     private readonly sendTo: (conn: PresenceConn, data: Uint8Array) => void,
   ) {
-    awareness.setLocalState({ audience: { viewers: 0 } } satisfies AudienceState);
+    awareness.setLocalState({ audience: { viewers: 0, hands: [] } } satisfies AudienceState);
+    this.audienceJson = JSON.stringify({ viewers: 0, hands: [] });
     awareness.on('update', this.onUpdate);
   }
 
@@ -80,6 +116,7 @@ export class Presence {
   /** Removes the states a leaving socket spoke for (others see the editors' ones go at the next frame). */
   leave(conn: PresenceConn): void {
     if (conn.clients.size) awarenessProtocol.removeAwarenessStates(this.awareness, [...conn.clients], null);
+    conn.clients.forEach((id) => this.forgetHand(id));
     this.schedule();
   }
 
@@ -109,6 +146,7 @@ export class Presence {
       const changed = this.lastJson.get(id) !== json;
       if (json === 'null') this.lastJson.delete(id);
       else this.lastJson.set(id, json);
+      if (changed) this.handsFrom(id, json, editor);
       if (json === 'null') {
         if (this.published.delete(id)) this.mark(this.dirty, id);
       } else if (editor) {
@@ -138,6 +176,7 @@ export class Presence {
     // a socket left (origin null) or a state timed out: editors' states go from every screen
     for (const id of removed) {
       this.lastJson.delete(id);
+      this.forgetHand(id);
       if (this.published.delete(id)) this.mark(this.dirty, id);
     }
   };
@@ -157,9 +196,13 @@ export class Presence {
     this.frameTimer = null;
     let viewers = 0;
     for (const c of this.conns.values()) if (c.peer.role === 'viewer') viewers++;
-    if (viewers !== this.viewers) {
+    const hands = [...this.hands].map(([id, name]) => ({ id, name }));
+    const audience = { viewers, hands };
+    const json = JSON.stringify(audience);
+    if (viewers !== this.viewers || json !== this.audienceJson) {
       this.viewers = viewers;
-      this.awareness.setLocalState({ audience: { viewers } } satisfies AudienceState);
+      this.audienceJson = json;
+      this.awareness.setLocalState({ audience } satisfies AudienceState);
     }
     const ids = [...this.dirty].filter((id) => this.awareness.meta.has(id));
     this.dirty.clear();
@@ -173,6 +216,36 @@ export class Presence {
     this.renewed.clear();
     if (ids.length) this.sendAll(this.message(ids));
   };
+
+  /** A changed state: a viewer's hand up or down, or an editor's new clear request. */
+  private handsFrom(id: number, json: string, editor: boolean): void {
+    if (json === 'null') return this.forgetHand(id);
+    const f = handFields(json);
+    if (editor) {
+      if (!f.clear || this.clearSeen.get(id) === f.clear.key) return;
+      this.clearSeen.set(id, f.clear.key);
+      const ids = f.clear.ids === 'all' ? [...this.hands.keys()] : f.clear.ids.filter((h) => this.hands.has(h));
+      for (const h of ids) {
+        this.hands.delete(h);
+        this.cleared.add(h);
+      }
+      if (ids.length) this.schedule();
+      return;
+    }
+    if (!f.hand) {
+      this.cleared.delete(id);
+      if (this.hands.delete(id)) this.schedule();
+    } else if (!this.cleared.has(id) && this.hands.get(id) !== f.name) {
+      this.hands.set(id, f.name);
+      this.schedule();
+    }
+  }
+
+  private forgetHand(id: number): void {
+    this.cleared.delete(id);
+    this.clearSeen.delete(id);
+    if (this.hands.delete(id)) this.schedule();
+  }
 
   /** Token bucket: `awarenessPerSecond` on average, bursts of twice that. */
   private spend(conn: PresenceConn): void {

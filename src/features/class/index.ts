@@ -2,6 +2,6 @@
 export { ClassPanel } from './components/class-panel';
 export { LinkQr } from './components/link-qr';
 export { LessonPanel } from './components/lesson-panel';
-export { useAudience } from './use-audience';
+export { useAudience, useHands, type RaisedHand } from './use-audience';
 export { useLesson, type Lesson } from './use-lesson';
 export { shareInfoQueryOptions, shareLinksQueryOptions, useJoinShare } from './api';

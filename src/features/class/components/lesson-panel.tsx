@@ -1,6 +1,8 @@
 import { Button } from '../../../components/ui/button';
 import { plural } from '../../../lib/plural';
+import { useRef } from 'react';
 import { useViewportFollow, useViewportPublish, type BoardSession } from '../../canvas';
+import { useHands } from '../use-audience';
 import type { Lesson } from '../use-lesson';
 
 /**
@@ -14,6 +16,7 @@ export function LessonPanel({ lesson, session }: { lesson: Lesson; session: Boar
   return (
     <section aria-label="Lesson" data-testid="lesson-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
       <LeadFollow lesson={lesson} session={session} />
+      <Hands session={session} />
       <Explain lesson={lesson} />
     </section>
   );
@@ -61,6 +64,53 @@ function LeadFollow({ lesson: l, session }: { lesson: Lesson; session: BoardSess
       <Button size="sm" className="ml-auto" onClick={() => { l.setLeading(true); l.setFollowing(true); }}>Start leading</Button>
     </div>
   ) : null;
+}
+
+/**
+ * Raise hand. A viewer (guest) raises or lowers its hand through its own presence field `hand`; the
+ * server gathers the raised hands into its audience entry, which every screen gets. Editors see the
+ * list and clear one hand or all (presence field `clearHands`); a cleared hand stays down until its
+ * viewer raises it again.
+ */
+function Hands({ session }: { session: BoardSession }) {
+  const aw = session.provider.awareness;
+  const hands = useHands(aw);
+  const seq = useRef(0);
+  if (session.readOnly) {
+    const mine = hands.some((h) => h.id === aw.clientID);
+    const toggle = () => {
+      if (mine) return aw.setLocalStateField('hand', false);
+      // a hand the leader cleared is still `true` here: lower it first so the server takes the new raise
+      aw.setLocalStateField('hand', false);
+      aw.setLocalStateField('hand', true);
+    };
+    return (
+      <div className="flex items-center gap-2" data-testid="raise-hand">
+        <span className="text-xs text-slate-400">{mine ? 'Your hand is up' : 'A question?'}</span>
+        <Button size="sm" className="ml-auto" aria-pressed={mine} onClick={toggle}>{mine ? 'Lower hand' : 'Raise hand'}</Button>
+      </div>
+    );
+  }
+  const clear = (ids: number[] | 'all') => aw.setLocalStateField('clearHands', { seq: Date.now() * 10 + (seq.current++ % 10), ids });
+  return (
+    <div className="space-y-1" data-testid="hands">
+      <div className="flex items-center gap-2">
+        <span className="text-xs font-semibold">Hands up</span>
+        <span className="text-xs text-slate-400" data-testid="hand-count">{hands.length}</span>
+        {hands.length > 1 && <Button size="sm" variant="ghost" className="ml-auto" onClick={() => clear('all')}>Clear all</Button>}
+      </div>
+      {hands.length > 0 && (
+        <ul aria-label="Raised hands" className="space-y-1">
+          {hands.map((h) => (
+            <li key={h.id} className="flex items-center gap-2 text-xs" data-testid="hand-row">
+              <span>✋ {h.name}</span>
+              <Button size="sm" variant="ghost" className="ml-auto" onClick={() => clear([h.id])}>Clear</Button>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
 }
 
 function rowLabel(names: string[], row: number): string {
