@@ -33,7 +33,7 @@ const sharedZones = readdirSync(new URL('./shared', import.meta.url), { withFile
 // server/ never imports src/, only server/db touches Knex, migrations import no app code,
 // a client feature is imported only through its index.ts.
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'test-results/**', 'playwright-report/**', 'data/**', '.tmp/**'] },
+  { ignores: ['dist/**', 'dist-cli/**', 'node_modules/**', 'test-results/**', 'playwright-report/**', 'data/**', '.tmp/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -8,8 +8,15 @@ import { splitPinRef } from './pins';
 import { newPartId, newWireId } from './ids';
 import { isInputKind, isOutputKind } from './kinds';
 import {
-  PART_FIELDS, docModulePins, metaMap, nextOrder, partToYMap, partsMap, pinExists, readPart, readWire, sortedEntries, wireToYMap, wiresMap,
+  PART_FIELDS, docModulePins, metaMap, moduleToYMap, modulesMap, nextOrder, partToYMap, partsMap, pinExists, readModules, readPart, readWire,
+  sortedEntries, wireToYMap, wiresMap,
 } from './ydoc';
+
+/** JSON with object keys sorted, so two equal values compare equal whatever their key order. */
+function stableJson(value: unknown): string {
+  return JSON.stringify(value, (_key, v: unknown) =>
+    v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) : v);
+}
 
 /** The chosen parts and the wires running between two of them, as a clipboard fragment. */
 export function copyFragment(doc: Y.Doc, partIds: string[]): Fragment {
@@ -95,6 +102,15 @@ export function replaceWithBoard(doc: Y.Doc, board: BoardFile, origin: unknown):
   doc.transact(() => {
     if (meta.get('title') !== board.title) meta.set('title', board.title);
     if (meta.get('family') !== board.family) meta.set('family', board.family);
+    // Modules: one that differs from the file's is replaced whole; one the file lacks is removed.
+    const modules = modulesMap(doc);
+    const wanted = board.modules ?? [];
+    const current = new Map(readModules(doc).map((m) => [m.id, stableJson(m)]));
+    const keepModules = new Set(wanted.map((m) => m.id));
+    for (const id of [...modules.keys()]) if (!keepModules.has(id)) modules.delete(id);
+    wanted.forEach((module, i) => {
+      if (current.get(module.id) !== stableJson(module)) modules.set(module.id, moduleToYMap(module, i + 1));
+    });
     const keepParts = new Set(board.parts.map((p) => p.id));
     const keepWires = new Set(board.wires.map((w) => w.id));
     for (const id of [...wires.keys()]) if (!keepWires.has(id)) wires.delete(id);
