@@ -18,7 +18,7 @@ export default defineConfig({
       // every test on SQLite; tests/multi-server starts its own PostgreSQL and Redis (or skips, saying why)
       { extends: true, test: { name: 'main', include: every } },
       // the API suite again, each test app on its own PostgreSQL database (DATABASE_URL)
-      ...(missing ? [] : [{ extends: true, test: { name: 'api-postgres', include: ['tests/api/**/*.test.ts'], globalSetup: ['tests/helpers/postgres-setup.ts'] } }]),
+      ...(missing ? [] : [{ extends: true as const, test: { name: 'api-postgres', include: ['tests/api/**/*.test.ts'], globalSetup: ['tests/helpers/postgres-setup.ts'] } }]),
     ],
   },
 });
