@@ -25,7 +25,7 @@ test('build sheet: tube family figures, level check, caution, and the NOR-only c
   const panel = page.getByTestId('build-panel');
   await panel.scrollIntoViewIfNeeded();
   await expect(panel.getByTestId('build-devices')).toContainText('packages');
-  await expect(panel.getByTestId('safety-caution')).toHaveCount(0);
+  await expect(panel.getByTestId('build-safety-caution')).toHaveCount(0);
 
   await panel.getByTestId('build-family').selectOption('tube-drl-nor');
   await expect(panel.getByTestId('build-devices')).toHaveText('8 tubes');
@@ -34,7 +34,7 @@ test('build sheet: tube family figures, level check, caution, and the NOR-only c
   await expect(panel.getByTestId('build-clock')).toBeVisible();
   await expect(panel.getByTestId('level-low')).toHaveText('−4.800 V');
   await expect(panel.getByTestId('level-verdict')).toHaveText('pass');
-  await expect(panel.getByTestId('safety-caution')).toContainText('local electrical codes');
+  await expect(panel.getByTestId('build-safety-caution')).toContainText('local electrical codes');
 
   // an edited resistor changes the level check at once: 220 kΩ to −12 V no longer cuts the tube off
   await panel.getByTestId('level-R2').fill('220k');

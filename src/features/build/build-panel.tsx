@@ -26,7 +26,7 @@ export function BuildPanel({ build, boardId, onWarmUp }: { build: BuildSheetStat
         <Select aria-label="Build family" data-testid="build-family" value={family} options={FAMILY_OPTIONS}
           onChange={(e) => build.setFamily(e.target.value as FamilyId)} className="h-7 flex-1 text-xs" />
       </label>
-      {sheet?.caution && <div className="-mx-3"><SafetyCaution family={family} /></div>}
+      {sheet?.caution && <div className="-mx-3"><SafetyCaution family={family} testId="build-safety-caution" /></div>}
       {error && <p role="alert" className="rounded border border-rose-800 bg-rose-950/50 p-2 text-xs text-rose-200">{error}</p>}
       {sheet && (
         <>
