@@ -149,10 +149,7 @@ function benchTroubleBoard() {
   };
 }
 
-// Known defect, left open on the class-mode issue: since the room's shared simulation record, an editor's
-// bench Step on this imported board does not advance the cycle in the browser (the engine replays the same
-// record correctly in Node: shared/sim/live tests). Re-enable once the client side is found and fixed.
-test.fixme('the bench clock steps and runs, a ring that will not settle pulses, a tube family shows the caution', async ({ page, gatefold }) => {
+test('the bench clock steps and runs, a ring that will not settle pulses, a tube family shows the caution', async ({ page, gatefold }) => {
   await page.setViewportSize({ width: 1500, height: 950 });
   await signUp(page, OWNER);
   const imported = await page.request.post('/api/boards/import', {

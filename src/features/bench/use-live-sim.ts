@@ -46,7 +46,13 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   // the worker's copy must never lag a click, so the ref changes at once and the state follows
   const tryOutRef = useRef(tryOutValues);
 
-  const send = useCallback((msg: LiveCommand) => worker.current?.postMessage(msg), []);
+  // Effects of hooks called above the worker's own effect (the room's run) send before the worker exists:
+  // keep those messages and hand them over once it does, or the engine never learns it is in the room.
+  const pending = useRef<LiveCommand[]>([]);
+  const send = useCallback((msg: LiveCommand) => {
+    if (worker.current) worker.current.postMessage(msg);
+    else pending.current.push(msg);
+  }, []);
   // The room's run: editors write the clock, resets and inputs into the room's record; viewers follow it
   // unless they tried the clock themselves.
   const room = useRoomRun(session.doc, session.origin, { editor: !tryOut, following: !clockTried, send });
@@ -56,6 +62,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
   useEffect(() => {
     const w = new Worker(new URL('./sim-worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
+    for (const msg of pending.current.splice(0)) w.postMessage(msg);
     // a state decodes with the keys of the compilation before it, even if React renders in between
     let keys: string[] = [];
     w.onmessage = (e: MessageEvent<LiveUpdate>) => {
