@@ -10,7 +10,6 @@
  * collab-load.bench.ts: 200 full providers would measure this process rather than the server.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { createInterface } from 'node:readline';
@@ -22,6 +21,7 @@ import * as decoding from 'lib0/decoding';
 import * as syncProtocol from 'y-protocols/sync';
 import type { BenchRow } from './run';
 import { addPart, movePart, partsMap } from '../shared/board';
+import { quantile, rssMb } from './stats';
 
 const GUESTS = 200;
 const EDITS = 500;
@@ -61,19 +61,6 @@ function startServer(): Promise<{ child: ChildProcess; info: ServerInfo }> {
     lines.once('line', (line) => resolve({ child, info: JSON.parse(line) as ServerInfo }));
     child.once('exit', (code) => reject(new Error(`class bench server exited with ${code}`)));
   });
-}
-
-function rssMb(pid: number): number {
-  const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
-  return m ? Number(m[1]) / 1024 : NaN;
-}
-
-function quantile(sorted: number[], q: number): number {
-  if (!sorted.length) return NaN;
-  const i = (sorted.length - 1) * q;
-  const lo = Math.floor(i);
-  const hi = Math.ceil(i);
-  return sorted[lo] + (sorted[hi] - sorted[lo]) * (i - lo);
 }
 
 /** A lean guest through the share link: sync into a Y.Doc, its presence (display name) sent once. */

@@ -9,7 +9,6 @@
  * does, presence they receive counted, not parsed): 200 full providers would measure this process.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { createInterface } from 'node:readline';
@@ -21,6 +20,7 @@ import * as decoding from 'lib0/decoding';
 import * as syncProtocol from 'y-protocols/sync';
 import type { BenchRow } from './run';
 import { addPart, movePart, partsMap } from '../shared/board';
+import { quantile, rssMb } from './stats';
 
 const EDITORS = 30;
 const VIEWERS = 200;
@@ -61,19 +61,6 @@ function startServer(which: 'gatefold' | 'reference'): Promise<{ child: ChildPro
     lines.once('line', (line) => resolve({ child, info: JSON.parse(line) as ServerInfo }));
     child.once('exit', (code) => reject(new Error(`${which} server exited with ${code}`)));
   });
-}
-
-function rssMb(pid: number): number {
-  const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
-  return m ? Number(m[1]) / 1024 : NaN;
-}
-
-function quantile(sorted: number[], q: number): number {
-  if (!sorted.length) return NaN;
-  const i = (sorted.length - 1) * q;
-  const lo = Math.floor(i);
-  const hi = Math.ceil(i);
-  return sorted[lo] + (sorted[hi] - sorted[lo]) * (i - lo);
 }
 
 function client(info: ServerInfo, cookie: string, counted = false): { doc: Y.Doc; provider: WebsocketProvider; synced: Promise<void> } {

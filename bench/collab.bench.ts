@@ -10,16 +10,10 @@ import { startTestServer } from '../tests/helpers/test-app';
 import { addMember, connectClient, createBoard, signUp } from '../tests/collab/helpers';
 import { addPart, movePart } from '../shared/board';
 import { loadBoardDoc } from '../server/boards-live';
+import { quantile } from './stats';
 
 const EDITS = 200;
 const ME = { local: 'bench' };
-
-function quantile(sorted: number[], q: number): number {
-  const i = (sorted.length - 1) * q;
-  const lo = Math.floor(i);
-  const hi = Math.ceil(i);
-  return sorted[lo] + (sorted[hi] - sorted[lo]) * (i - lo);
-}
 
 export default async function collabBench(): Promise<BenchRow[]> {
   const server = await startTestServer();

@@ -17,19 +17,13 @@ import { backingServicesMissing } from '../tests/helpers/backing-services';
 import { addMember, connectClient, createBoard, signUp, type User } from '../tests/collab/helpers';
 import { RawPeer } from '../tests/collab/raw-peer';
 import { at, startCluster, type Cluster } from '../tests/multi-server/cluster';
+import { quantile } from './stats';
 
 const MOVES = 200;
 const EDITORS = 30;
 const SOCKETS = 300;
 const EDITS_EACH = 50;
 const ME = { local: 'bench' };
-
-function quantile(sorted: number[], q: number): number {
-  const i = (sorted.length - 1) * q;
-  const lo = Math.floor(i);
-  const hi = Math.ceil(i);
-  return sorted[lo] + (sorted[hi] - sorted[lo]) * (i - lo);
-}
 
 /** Times MOVES moves by a client on `from` until a client on `to` has each; sorted ms. */
 async function latency(cluster: Cluster, owner: User, other: User, from: number, to: number): Promise<number[]> {
