@@ -7,6 +7,7 @@ import { allPins, splitPinRef, type BoardFile, type ModulePins, type Part, type 
 import type { Level } from '../../../../shared/sim';
 import type { CompareMark } from '../../../../shared/render';
 import { placedShape } from '../lib/geometry';
+import { stabilizeModules } from '../modules/stabilize-modules';
 import type { PartBadge, PartNode, WireEdge } from './types';
 
 export interface DeriveNodesInput {
@@ -168,7 +169,10 @@ export function stabilizeBoard(prev: BoardFile | null, next: BoardFile): BoardFi
     if (keep !== prev.wires[i]) same = false;
     return keep;
   });
-  return same ? prev : { ...next, parts, wires };
+  // an edit inside a module leaves the top level as it was, but is a new board all the same
+  const modules = stabilizeModules(prev.modules, next.modules);
+  if (modules !== prev.modules) same = false;
+  return same ? prev : { ...next, parts, wires, ...(modules ? { modules } : {}) };
 }
 
 function shallowEqual(a: object, b: object): boolean {
