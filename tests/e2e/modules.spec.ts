@@ -1,10 +1,33 @@
 /**
  * Modules on the canvas: two gates of an imported board become a module (the selection is replaced by
  * an instance box with the module's title and pins), the board still works through it, and double-click
- * opens its inside (its gates and ports, a breadcrumb, ports in the tray only there).
+ * opens its inside (its gates and ports, a breadcrumb, ports in the tray only there). Inside it a gate
+ * and a port are placed from the tray and wired; back on the board the instance has the new pin and
+ * drives a lamp through it, and a second screen on the same board sees each step live.
  */
+import type { Locator, Page } from '@playwright/test';
 import type { BoardFile } from '../../shared/board';
 import { test, expect, signUp } from './fixtures';
+
+/** Clicks the empty canvas at (fx, fy) as fractions of its box. */
+async function clickCanvas(page: Page, fx: number, fy: number): Promise<void> {
+  const box = (await page.locator('.react-flow__pane').boundingBox())!;
+  await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+}
+
+/** Drags from one pin to another with the mouse (React Flow's connection gesture). */
+async function wire(page: Page, from: Locator, to: Locator): Promise<void> {
+  const a = (await from.boundingBox())!;
+  const b = (await to.boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  await page.mouse.move((a.x + b.x) / 2, (a.y + b.y) / 2, { steps: 5 });
+  await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 5 });
+  await page.mouse.up();
+}
+
+const part = (page: Page, kind: string) => page.locator(`.gf-part[data-kind="${kind}"]`);
+const pin = (node: Locator, name: string) => node.locator(`[data-handleid="${name}"]`);
 
 const OWNER = { name: 'Mara Quinn', email: 'mara@larkspur.example', password: 'filament-warm-42' };
 
@@ -27,8 +50,8 @@ const INTERLOCK: BoardFile = {
   ],
 };
 
-test('make a module from two gates, see its instance working, open it', async ({ page }) => {
-  test.setTimeout(90_000);
+test('make a module from two gates, see its instance working, open it, add to its inside from the tray', async ({ page, browser, gatefold }) => {
+  test.setTimeout(150_000);
   await page.setViewportSize({ width: 1400, height: 860 });
   await signUp(page, OWNER);
   await page.getByTestId('import-board-input').setInputFiles({ name: 'interlock.gatefold.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(INTERLOCK)) });
@@ -70,5 +93,63 @@ test('make a module from two gates, see its instance working, open it', async ({
   await expect(page.getByTestId('tray-port-in')).toBeVisible();
   await expect(page.getByTestId('tray-switch')).toHaveCount(0);
 
-  await page.screenshot({ path: 'test-results/modules-02-inside.png' });
+
+  // A second screen of the same person on the same board, staying on the top level.
+  const other = await browser.newContext({ baseURL: gatefold.baseURL, storageState: await page.context().storageState() });
+  const p2 = await other.newPage();
+  await p2.setViewportSize({ width: 1400, height: 860 });
+  await p2.goto(page.url());
+  await expect(p2.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
+  const instance2 = part(p2, 'module');
+  await expect(instance2.locator('.gf-pin-out')).toHaveCount(1);
+
+  // Inside the module: an OR gate of the two inputs from the tray (click, then click the canvas) and a
+  // new output port, wired; the OR is placed and wired inside the module, not on the board.
+  await page.getByTestId('tray-or').click();
+  await clickCanvas(page, 0.45, 0.8);
+  await expect(part(page, 'or')).toHaveCount(1);
+  await page.getByTestId('tray-port-out').click();
+  await clickCanvas(page, 0.75, 0.8);
+  const ports = part(page, 'port');
+  await expect(ports).toHaveCount(4);
+  const orGate = part(page, 'or');
+  const newPort = ports.filter({ hasText: 'out1' });
+  await wire(page, pin(ports.filter({ hasText: 'KEY' }), 'out'), pin(orGate, 'in0'));
+  await wire(page, pin(ports.filter({ hasText: 'LATCH' }), 'out'), pin(orGate, 'in1'));
+  await wire(page, pin(orGate, 'out'), pin(newPort, 'in'));
+  await expect(page.locator('.react-flow__edge')).toHaveCount(7);
+  await page.screenshot({ path: 'test-results/modules-03-inside-edited.png' });
+  // the other screen's instance already has the new output pin, and its board has no OR of its own
+  await expect(instance2.locator('.gf-pin-out')).toHaveCount(2);
+  await expect(pin(instance2, 'out1')).toHaveCount(1);
+  await expect(part(p2, 'or')).toHaveCount(0);
+
+  // Back out through the breadcrumb: the instance shows the new pin; a lamp on it follows KEY OR LATCH.
+  await page.getByTestId('breadcrumb-board').click();
+  await expect(page.getByTestId('module-breadcrumb')).toHaveCount(0);
+  await expect(part(page, 'or')).toHaveCount(0);
+  await expect(instance.locator('.gf-pin-out')).toHaveCount(2);
+  await page.getByTestId('tray-lamp').click();
+  await clickCanvas(page, 0.6, 0.85);
+  const lamps = part(page, 'lamp');
+  await expect(lamps).toHaveCount(2);
+  const newLamp = page.locator('.gf-part[data-kind="lamp"]:not([data-testid="part-l1"])');
+  await wire(page, pin(instance, 'out1'), pin(newLamp, 'in'));
+  await expect(page.locator('.react-flow__edge')).toHaveCount(4);
+  const newBulb = newLamp.locator('.gf-bulb');
+  // KEY and LATCH are both on: both lamps lit; LATCH off: only the OR lamp; KEY off too: neither.
+  await expect(newBulb).toHaveAttribute('data-lit', 'true');
+  await page.getByTestId('actuator-b').click();
+  await expect(lamp).toHaveAttribute('data-lit', 'false');
+  await expect(newBulb).toHaveAttribute('data-lit', 'true');
+  await page.getByTestId('actuator-a').click();
+  await expect(newBulb).toHaveAttribute('data-lit', 'false');
+  // the other screen shows the same lamp, wired and dark, live
+  const newLampId = (await newLamp.getAttribute('data-testid'))!;
+  await expect(p2.getByTestId(newLampId).locator('.gf-bulb')).toHaveAttribute('data-lit', 'false');
+  await expect(p2.locator('.react-flow__edge')).toHaveCount(4);
+  await page.getByTestId('actuator-b').click();
+  await expect(p2.getByTestId(newLampId).locator('.gf-bulb')).toHaveAttribute('data-lit', 'true');
+  await page.screenshot({ path: 'test-results/modules-04-new-pin.png' });
+  await other.close();
 });

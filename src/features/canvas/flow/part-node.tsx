@@ -3,8 +3,8 @@
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */
-import { memo, useContext, useMemo, useState } from 'react';
-import { Handle, Position, type NodeProps } from '@xyflow/react';
+import { memo, useContext, useEffect, useMemo, useRef, useState } from 'react';
+import { Handle, Position, useUpdateNodeInternals, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import { levelColor } from '../lib/colors';
@@ -19,11 +19,21 @@ import { FarContext } from './zoom-detail';
 
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
-function PartNodeView({ data, selected }: NodeProps<PartNode>) {
+function PartNodeView({ id, data, selected }: NodeProps<PartNode>) {
   const { part, levels, shown, badge, highlight, remoteColor, readOnly, mark, pins } = data;
   const modulePins = useMemo(() => (pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined), [part, pins]);
   const shape = useMemo(() => placedShape(part, modulePins), [part, modulePins]);
   const pinNames = useMemo(() => allPins(part, modulePins), [part, modulePins]);
+  // An instance gains or loses a pin when its module's ports change, often at the same box size: React
+  // Flow measures handles again only on a resize, so a wire to the new pin would not be drawn.
+  const updateInternals = useUpdateNodeInternals();
+  const pinKey = pinNames.join(' ');
+  const measuredPins = useRef(pinKey);
+  useEffect(() => {
+    if (measuredPins.current === pinKey) return;
+    measuredPins.current = pinKey;
+    updateInternals(id);
+  }, [id, pinKey, updateInternals]);
   const actions = usePartActions();
   const [renaming, setRenaming] = useState(false);
   const far = useContext(FarContext);
