@@ -19,7 +19,7 @@ export const OP = {
   and2: 0, and3: 1, andk: 2, xor2: 3, xor3: 4, xork: 5, mux2: 6, mux4: 7, and4: 8, xor4: 9, mux2f: 10, mux4f: 11,
 } as const;
 
-/** The two-valued program over one block of n words. */
+/** The two-valued program over one block of n words (a multiple of 4, at most the slot's W). */
 export function run2(ops: Int32Array, V: Int32Array, n: number): void {
   const len = ops.length;
   let pc = 0;
@@ -39,7 +39,7 @@ export function run2(ops: Int32Array, V: Int32Array, n: number): void {
   }
 }
 
-/** The four-valued program over one block of n words; W is the offset of a slot's F plane. */
+/** The four-valued program over one block of n words (a multiple of 4); W is the offset of a slot's F plane. */
 export function run4(ops: Int32Array, V: Int32Array, n: number, W: number): void {
   const len = ops.length;
   let pc = 0;
@@ -61,12 +61,24 @@ export function run4(ops: Int32Array, V: Int32Array, n: number, W: number): void
   }
 }
 
+// The common ops' loops are unrolled four times (n is a multiple of 4): a quarter of the loop overhead.
+
 function and2(V: Int32Array, o: number, a: number, ma: number, b: number, mb: number, n: number): void {
-  for (let j = 0; j < n; j++) V[o + j] = (V[a + j] ^ ma) & (V[b + j] ^ mb);
+  for (let j = 0; j < n; j += 4) {
+    V[o + j] = (V[a + j] ^ ma) & (V[b + j] ^ mb);
+    V[o + j + 1] = (V[a + j + 1] ^ ma) & (V[b + j + 1] ^ mb);
+    V[o + j + 2] = (V[a + j + 2] ^ ma) & (V[b + j + 2] ^ mb);
+    V[o + j + 3] = (V[a + j + 3] ^ ma) & (V[b + j + 3] ^ mb);
+  }
 }
 
 function and3(V: Int32Array, o: number, a: number, ma: number, b: number, mb: number, c: number, mc: number, n: number): void {
-  for (let j = 0; j < n; j++) V[o + j] = (V[a + j] ^ ma) & (V[b + j] ^ mb) & (V[c + j] ^ mc);
+  for (let j = 0; j < n; j += 4) {
+    V[o + j] = (V[a + j] ^ ma) & (V[b + j] ^ mb) & (V[c + j] ^ mc);
+    V[o + j + 1] = (V[a + j + 1] ^ ma) & (V[b + j + 1] ^ mb) & (V[c + j + 1] ^ mc);
+    V[o + j + 2] = (V[a + j + 2] ^ ma) & (V[b + j + 2] ^ mb) & (V[c + j + 2] ^ mc);
+    V[o + j + 3] = (V[a + j + 3] ^ ma) & (V[b + j + 3] ^ mb) & (V[c + j + 3] ^ mc);
+  }
 }
 
 function andk(V: Int32Array, ops: Int32Array, p: number, o: number, k: number, n: number): void {
@@ -78,11 +90,21 @@ function andk(V: Int32Array, ops: Int32Array, p: number, o: number, k: number, n
 }
 
 function xor2(V: Int32Array, o: number, a: number, b: number, n: number): void {
-  for (let j = 0; j < n; j++) V[o + j] = V[a + j] ^ V[b + j];
+  for (let j = 0; j < n; j += 4) {
+    V[o + j] = V[a + j] ^ V[b + j];
+    V[o + j + 1] = V[a + j + 1] ^ V[b + j + 1];
+    V[o + j + 2] = V[a + j + 2] ^ V[b + j + 2];
+    V[o + j + 3] = V[a + j + 3] ^ V[b + j + 3];
+  }
 }
 
 function xor3(V: Int32Array, o: number, a: number, b: number, c: number, n: number): void {
-  for (let j = 0; j < n; j++) V[o + j] = V[a + j] ^ V[b + j] ^ V[c + j];
+  for (let j = 0; j < n; j += 4) {
+    V[o + j] = V[a + j] ^ V[b + j] ^ V[c + j];
+    V[o + j + 1] = V[a + j + 1] ^ V[b + j + 1] ^ V[c + j + 1];
+    V[o + j + 2] = V[a + j + 2] ^ V[b + j + 2] ^ V[c + j + 2];
+    V[o + j + 3] = V[a + j + 3] ^ V[b + j + 3] ^ V[c + j + 3];
+  }
 }
 
 function xork(V: Int32Array, ops: Int32Array, p: number, o: number, k: number, n: number): void {
@@ -116,11 +138,15 @@ function mux4(V: Int32Array, ops: Int32Array, p: number, o: number, n: number): 
 }
 
 function and4x2(V: Int32Array, ot: number, of: number, at: number, af: number, bt: number, bf: number, n: number): void {
-  for (let j = 0; j < n; j++) {
-    const t = V[at + j] & V[bt + j];
-    const f = V[af + j] | V[bf + j];
-    V[ot + j] = t;
-    V[of + j] = f;
+  for (let j = 0; j < n; j += 2) {
+    const t0 = V[at + j] & V[bt + j];
+    const f0 = V[af + j] | V[bf + j];
+    const t1 = V[at + j + 1] & V[bt + j + 1];
+    const f1 = V[af + j + 1] | V[bf + j + 1];
+    V[ot + j] = t0;
+    V[of + j] = f0;
+    V[ot + j + 1] = t1;
+    V[of + j + 1] = f1;
   }
 }
 

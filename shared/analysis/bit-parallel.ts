@@ -40,9 +40,11 @@ export class BitParallelEvaluator {
     const words = LITTLE_ENDIAN && rowCount % 32 === 0 ? values.map((out) => (out.byteOffset % 4 === 0 ? new Int32Array(out.buffer, out.byteOffset, out.length >> 2) : undefined)) : [];
     for (let b = 0; b < count; b += W) {
       const n = Math.min(W, count - b);
-      this.load(V, w0 + b, n);
-      if (twoValued) run2(ops, V, n);
-      else run4(ops, V, n, W);
+      // the kernel runs whole groups of 4 words (W is at least 4); the words past n are not stored
+      const n4 = (n + 3) & ~3;
+      this.load(V, w0 + b, n4);
+      if (twoValued) run2(ops, V, n4);
+      else run4(ops, V, n4, W);
       this.store(V, w0 + b, n, values, words, rowCount);
     }
   }

@@ -165,8 +165,8 @@ export function compileBitProgram(
   const slots = b.allocate();
   const planes = four ? 2 : 1;
   const span = Math.max(1, Math.floor(BLOCK_BUDGET_WORDS / Math.max(1, slots) / planes));
-  let W = 1;
-  while (W * 2 <= Math.min(span, MAX_W, Math.max(1, totalWords))) W *= 2;
+  let W = 4; // at least 4: the kernel's loops run in groups of 4 words
+  while (W * 2 <= Math.min(span, MAX_W, totalWords)) W *= 2;
   const ops = b.finish(W);
   const at = (lit: number, plane: 0 | 1) => b.slotOf[lit >> 1] * planes * W + (four && (lit & 1) !== plane ? W : 0);
   const outputs = new Int32Array(nets.length * 2);
