@@ -1,19 +1,19 @@
 /**
- * `npm run -s cli -- <command> …`: runs the built command line (dist-cli/gatefold.cjs) with plain node,
- * building it first when it is missing, not the file that was built, or older than one of its sources (a
- * quick check of sizes and times against dist-cli/build.json; a new command file is listed once
- * server/cli/commands/index.ts, which is, registers it).
+ * `npm run -s cli -- <command> …`: runs the built command line with plain node — the bundle of the
+ * command called (dist-cli/commands/NAME.cjs), or dist-cli/gatefold.cjs (every command) for a name that
+ * is none — building first when the bundle is missing, not the file that was built, or older than one of
+ * its sources (a quick check of sizes and times against dist-cli/build.json; a new command file is seen
+ * once server/cli/commands/index.ts, which is a source of every bundle, registers it).
  *
  * The bundle is compiled with V8's code cache: dist-cli/code-cache/<bundle SHA-256>-<node>-<arch>.bin,
- * made by the build (scripts/build-cli.mjs) or else by the first call, written when the call ends. The
- * hash is the build's, so no call reads the whole bundle twice; V8 also refuses a cache made by another
- * V8 version or flags (then the call compiles as usual and writes a fresh one). GATEFOLD_CLI_CODE_CACHE=0
- * turns the cache off (to measure it).
+ * made by the build (scripts/build-cli.mjs, for `analyze`) or else by the first call, written when the
+ * call ends. The hash is the build's, so no call reads the bundle twice; V8 also refuses a cache made by
+ * another V8 version or flags (then the call compiles as usual and writes a fresh one).
+ * GATEFOLD_CLI_CODE_CACHE=0 turns the cache off (to measure it).
  */
 /* global process -- the global, not `import process`, whose module facade would read process.stdout and so open it */
 // Node's modules through process.getBuiltinModule (Node ≥ 20.16) rather than `import`: an ES import of
-// node:fs makes its module facade, which reads every export and so loads the file streams — a tenth of
-// a small call's time
+// node:fs makes its module facade, which reads every export and so loads the file streams
 const builtin = process.getBuiltinModule ?? (await import('node:module')).createRequire(import.meta.url);
 const { mkdirSync, readFileSync, renameSync, statSync, writeFileSync } = builtin('node:fs');
 const { createRequire } = builtin('node:module');
@@ -21,36 +21,42 @@ const { dirname, join } = builtin('node:path');
 const vm = builtin('node:vm');
 
 const ROOT = join(import.meta.dirname, '..');
-const BUNDLE = join(ROOT, 'dist-cli', 'gatefold.cjs');
-const RECORD = join(ROOT, 'dist-cli', 'build.json');
-const CACHE_DIR = join(ROOT, 'dist-cli', 'code-cache');
+const OUT_DIR = join(ROOT, 'dist-cli');
+const RECORD = join(OUT_DIR, 'build.json');
+const CACHE_DIR = join(OUT_DIR, 'code-cache');
+const command = process.argv[2];
 
-/** The build record when the bundle is the file it describes and newer than every source; else null. */
+/** The bundle to run and its record entry, when that bundle is current; else null. */
 function current() {
   let record;
   try {
     record = JSON.parse(readFileSync(RECORD, 'utf8'));
-    const { size, mtimeMs } = statSync(BUNDLE);
-    if (size !== record.bundle.size || mtimeMs !== record.bundle.mtimeMs) return null;
   } catch {
     return null;
   }
-  for (const file of record.sources) {
-    const st = statSync(join(ROOT, file), { throwIfNoEntry: false });
-    if (!st || st.mtimeMs > record.bundle.mtimeMs) return null; // a source changed, moved or was removed
+  if (record.version !== 2) return null;
+  const name = command && Object.hasOwn(record.commands, command) ? record.commands[command] : 'gatefold.cjs';
+  const entry = record.bundles[name];
+  const file = join(OUT_DIR, name);
+  const st = statSync(file, { throwIfNoEntry: false });
+  if (!entry || !st || st.size !== entry.size || st.mtimeMs !== entry.mtimeMs) return null;
+  for (const source of entry.sources) {
+    const s = statSync(join(ROOT, source), { throwIfNoEntry: false });
+    if (!s || s.mtimeMs > entry.mtimeMs) return null; // a source changed, moved or was removed
   }
-  return record;
+  return { file, entry };
 }
 
-let record = current();
-if (!record) {
+let bundle = current();
+if (!bundle) {
   const { buildCli } = await import('./build-cli.mjs');
   await buildCli();
-  record = current();
+  bundle = current();
+  if (!bundle) throw new Error('dist-cli: the build did not leave a current bundle');
 }
 
-const useCache = process.env.GATEFOLD_CLI_CODE_CACHE !== '0' && record !== null;
-const cacheFile = useCache ? join(CACHE_DIR, `${record.bundle.sha256}-${process.version}-${process.arch}.bin`) : '';
+const useCache = process.env.GATEFOLD_CLI_CODE_CACHE !== '0';
+const cacheFile = useCache ? join(CACHE_DIR, `${bundle.entry.sha256}-${process.version}-${process.arch}.bin`) : '';
 let cachedData;
 if (useCache) {
   try {
@@ -59,9 +65,9 @@ if (useCache) {
     cachedData = undefined;
   }
 }
-const source = readFileSync(BUNDLE, 'utf8');
+const source = readFileSync(bundle.file, 'utf8');
 // Node's own CommonJS wrapper, so that the bundle sees require, module and its file name as usual
-const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${source}\n})`, { filename: BUNDLE, cachedData });
+const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${source}\n})`, { filename: bundle.file, cachedData });
 if (useCache && (!cachedData || script.cachedDataRejected)) {
   // at the end, so that the functions this call compiled are in the cache too
   process.once('exit', () => {
@@ -76,4 +82,4 @@ if (useCache && (!cachedData || script.cachedDataRejected)) {
   });
 }
 const bundleModule = { exports: {} };
-script.runInThisContext()(bundleModule.exports, createRequire(BUNDLE), bundleModule, BUNDLE, dirname(BUNDLE));
+script.runInThisContext()(bundleModule.exports, createRequire(bundle.file), bundleModule, bundle.file, dirname(bundle.file));

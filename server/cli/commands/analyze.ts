@@ -58,3 +58,5 @@ export const analyze: CliCommand = {
     }
   },
 };
+
+export default analyze;

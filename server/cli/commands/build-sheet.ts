@@ -22,3 +22,5 @@ export const buildSheetCommand: CliCommand = {
     }
   },
 };
+
+export default buildSheetCommand;

@@ -26,3 +26,5 @@ export const convert: CliCommand = {
     }
   },
 };
+
+export default convert;

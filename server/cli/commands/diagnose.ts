@@ -45,3 +45,5 @@ export const diagnoseCommand: CliCommand = {
     }
   },
 };
+
+export default diagnoseCommand;

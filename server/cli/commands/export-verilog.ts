@@ -16,3 +16,5 @@ export const exportVerilog: CliCommand = {
     io.stdout(toHierarchicalVerilog(board, { delays: values.delays === true }));
   },
 };
+
+export default exportVerilog;

@@ -1,17 +1,17 @@
 /**
- * The command registry: name → a loader of the command. Add a command with one line here and its file
- * beside. Each command is imported only when it is called, so that a call parses and runs the code of
- * its own command only (in the bundle built by scripts/build-cli.mjs a module's body runs on its first
- * import).
+ * The command registry: name → a loader of the command. A command NAME lives in NAME.ts in this folder
+ * and is that file's default export; add it with one line here. Each command is imported only when it
+ * is called; scripts/build-cli.mjs also makes one bundle per command file (the same rule), so that a call
+ * reads and runs the code of its own command only.
  */
 import type { CliCommand } from './types';
 
 export const COMMANDS: Record<string, () => Promise<CliCommand>> = {
-  simulate: async () => (await import('./simulate')).simulate,
-  'export-verilog': async () => (await import('./export-verilog')).exportVerilog,
-  analyze: async () => (await import('./analyze')).analyze,
-  convert: async () => (await import('./convert')).convert,
-  'build-sheet': async () => (await import('./build-sheet')).buildSheetCommand,
-  'test-vectors': async () => (await import('./test-vectors')).testVectorsCommand,
-  diagnose: async () => (await import('./diagnose')).diagnoseCommand,
+  simulate: async () => (await import('./simulate')).default,
+  'export-verilog': async () => (await import('./export-verilog')).default,
+  analyze: async () => (await import('./analyze')).default,
+  convert: async () => (await import('./convert')).default,
+  'build-sheet': async () => (await import('./build-sheet')).default,
+  'test-vectors': async () => (await import('./test-vectors')).default,
+  diagnose: async () => (await import('./diagnose')).default,
 };

@@ -136,3 +136,5 @@ export const simulate: CliCommand = {
     }
   },
 };
+
+export default simulate;

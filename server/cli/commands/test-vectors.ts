@@ -38,3 +38,5 @@ export const testVectorsCommand: CliCommand = {
     }
   },
 };
+
+export default testVectorsCommand;
