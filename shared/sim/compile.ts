@@ -2,26 +2,15 @@
  * Board → netlist: nets as unions of joined pins (union-find), their drivers and readers, and the driver
  * analysis (undriven nets, conflicting drivers).
  */
-import { flattenBoard, isInputKind, isOutputKind, pinsOfPart, signalName, splitPinRef, type BoardFile, type FamilyId, type Part } from '../board';
+import { flattenBoard, isInputKind, isOutputKind, pinsOfPart, signalName, type BoardFile, type FamilyId, type Part } from '../board';
 import { familyDelays } from './families';
+import { flatLayout, moduleLayout, type PinLayout } from './compile-levels';
 import type { CompiledPart, NetInfo, NetProblem, Netlist, PinRef } from './types';
 
 /** Options of compileBoard. */
 export interface CompileOptions {
   /** family for the delays (default: the board's family) */
   family?: FamilyId;
-}
-
-function find(parent: Int32Array, i: number): number {
-  let r = i;
-  while (parent[r] !== r) r = parent[r];
-  // path compression keeps later finds short on long wire chains
-  while (parent[i] !== r) {
-    const next = parent[i];
-    parent[i] = r;
-    i = next;
-  }
-  return r;
 }
 
 /** Pins of a part as the simulator sees them. */
@@ -32,113 +21,127 @@ export function partPins(part: Part): { inputs: string[]; outputs: string[] } {
 /**
  * Compiles a board into a netlist. Wires to unknown parts or pins are skipped here (parseBoardFile
  * reports them); every pin belongs to exactly one net, an unconnected pin to a net of its own.
- * A board with modules is flattened first (flattenBoard): the netlist's parts and `board` are the flat
- * ones, with path ids such as `u3/g2`.
+ * A board with modules is compiled as its flat board (flattenBoard): the netlist's parts and `board` are
+ * the flat ones, with path ids such as `u3/g2`. Each module's inside is laid out once and copied per
+ * instance (compile-levels.ts), so the flat board itself is only built when someone reads `board`.
  */
 export function compileBoard(hierarchical: BoardFile, opts: CompileOptions = {}): Netlist {
-  const board = flattenBoard(hierarchical);
-  const family = opts.family ?? board.family ?? 'ideal';
-  const delays = familyDelays(family);
-  // Slot per pin: part p's pins are slots base[p] … base[p] + count − 1 (inputs first).
-  const partIndex = new Map<string, number>();
-  const base = new Int32Array(board.parts.length + 1);
-  const pins = board.parts.map((part, p) => {
-    if (!partIndex.has(part.id)) partIndex.set(part.id, p);
-    const pp = partPins(part);
-    base[p + 1] = base[p] + pp.inputs.length + pp.outputs.length;
-    return pp;
-  });
-  const nSlots = base[board.parts.length];
-  const slotPart = new Int32Array(nSlots);
-  for (let p = 0; p < board.parts.length; p++) slotPart.fill(p, base[p], base[p + 1]);
-  const slotPinName = (s: number) => {
-    const p = slotPart[s];
-    const k = s - base[p];
-    const pp = pins[p];
-    return k < pp.inputs.length ? pp.inputs[k] : pp.outputs[k - pp.inputs.length];
-  };
-  const isOutputSlot = (s: number) => s - base[slotPart[s]] >= pins[slotPart[s]].inputs.length;
-  const slotOfPin = (partId: string, pin: string): number | undefined => {
-    const p = partIndex.get(partId);
-    if (p === undefined) return undefined;
-    const i = pins[p].inputs.indexOf(pin);
-    if (i >= 0) return base[p] + i;
-    const o = pins[p].outputs.indexOf(pin);
-    return o >= 0 ? base[p] + pins[p].inputs.length + o : undefined;
-  };
-  const slotOfRef = (ref: string): number | undefined => {
-    const split = splitPinRef(ref);
-    return split ? slotOfPin(split.part, split.pin) : undefined;
-  };
-  const parent = new Int32Array(nSlots);
-  for (let i = 0; i < parent.length; i++) parent[i] = i;
-  for (const wire of board.wires) {
-    const a = slotOfRef(wire.from);
-    const b = slotOfRef(wire.to);
-    if (a === undefined || b === undefined) continue;
-    const ra = find(parent, a);
-    const rb = find(parent, b);
-    // the smaller root wins so that net ids follow file order
-    if (ra !== rb) { if (ra < rb) parent[rb] = ra; else parent[ra] = rb; }
-  }
-  const netOfSlot = new Int32Array(nSlots);
-  const rootNet = new Map<number, number>();
-  const nets: NetInfo[] = [];
-  for (let s = 0; s < nSlots; s++) {
-    const r = find(parent, s);
-    let n = rootNet.get(r);
-    if (n === undefined) {
-      n = nets.length;
-      rootNet.set(r, n);
-      nets.push({ id: n, name: '', drivers: [], readers: [] });
-    }
-    netOfSlot[s] = n;
-    const ref: PinRef = { part: board.parts[slotPart[s]].id, pin: slotPinName(s) };
-    (isOutputSlot(s) ? nets[n].drivers : nets[n].readers).push(ref);
-  }
-  nameNets(board, nets, (partId, pin) => netOfSlot[slotOfPin(partId, pin)!]);
+  const hasModules = !!hierarchical.modules?.length || hierarchical.parts.some((p) => p.kind === 'module');
+  const fast = hasModules ? moduleLayout(hierarchical) : null;
+  let flat: BoardFile | undefined = hasModules ? undefined : hierarchical;
+  if (hasModules && !fast) flat = flattenBoard(hierarchical);
+  const lay = fast ?? flatLayout(flat!);
+  const boardOf = () => (flat ??= flattenBoard(hierarchical));
+  return buildNetlist(lay, boardOf, opts.family ?? hierarchical.family ?? 'ideal');
+}
 
-  const parts: CompiledPart[] = board.parts.map((part, index) => {
+function buildNetlist(lay: PinLayout, boardOf: () => BoardFile, family: FamilyId): Netlist {
+  const delays = familyDelays(family);
+  const { parts: flatParts, pins, slotBase, slotNet } = lay;
+  const n = flatParts.length;
+  const nNets = lay.nNets;
+  // drivers and readers of each net, counted first so that every list is made at its size
+  const nRead = new Int32Array(nNets);
+  const nDrive = new Int32Array(nNets);
+  for (let p = 0; p < n; p++) {
+    const b = slotBase[p];
+    const nIn = pins[p].inputs.length;
+    for (let s = b; s < b + nIn; s++) nRead[slotNet[s]]++;
+    for (let s = b + nIn; s < slotBase[p + 1]; s++) nDrive[slotNet[s]]++;
+  }
+  const nets: NetInfo[] = new Array<NetInfo>(nNets);
+  for (let i = 0; i < nNets; i++) nets[i] = { id: i, name: '', drivers: new Array<PinRef>(nDrive[i]), readers: new Array<PinRef>(nRead[i]) };
+  nRead.fill(0);
+  nDrive.fill(0);
+  const parts: CompiledPart[] = new Array<CompiledPart>(n);
+  const inputs: CompiledPart[] = [];
+  const outputs: CompiledPart[] = [];
+  for (let index = 0; index < n; index++) {
+    const part = flatParts[index];
     const pp = pins[index];
+    const id = part.id;
+    const b = slotBase[index];
+    const nIn = pp.inputs.length;
+    const ins: number[] = new Array<number>(nIn);
+    for (let k = 0; k < nIn; k++) {
+      const net = slotNet[b + k];
+      ins[k] = net;
+      nets[net].readers[nRead[net]++] = { part: id, pin: pp.inputs[k] };
+    }
+    const nOut = pp.outputs.length;
+    const outs: number[] = new Array<number>(nOut);
+    for (let k = 0; k < nOut; k++) {
+      const net = slotNet[b + nIn + k];
+      outs[k] = net;
+      nets[net].drivers[nDrive[net]++] = { part: id, pin: pp.outputs[k] };
+    }
     const source = isInputKind(part.kind);
-    return {
-      index, id: part.id, kind: part.kind, name: signalName(part),
-      inputPins: pp.inputs, inputs: pp.inputs.map((_, k) => netOfSlot[base[index] + k]),
-      outputPins: pp.outputs, outputs: pp.outputs.map((_, k) => netOfSlot[base[index] + pp.inputs.length + k]),
+    const compiled: CompiledPart = {
+      index, id, kind: part.kind, name: part.label === undefined ? id : signalName(part),
+      inputPins: pp.inputs, inputs: ins, outputPins: pp.outputs, outputs: outs,
       rise: source ? 0 : delays.rise, fall: source ? 0 : delays.fall,
       part,
     };
+    parts[index] = compiled;
+    if (source) inputs.push(compiled);
+    else if (isOutputKind(part.kind)) outputs.push(compiled);
+  }
+  const slotOfPinAt = (p: number, pin: string): number | undefined => {
+    const i = pins[p].inputs.indexOf(pin);
+    if (i >= 0) return slotBase[p] + i;
+    const o = pins[p].outputs.indexOf(pin);
+    return o >= 0 ? slotBase[p] + pins[p].inputs.length + o : undefined;
+  };
+  /** slot of a pin, by the first part with that id (as the flat board's wires resolve) */
+  const slotOfPin = (partId: string, pin: string): number | undefined => {
+    const p = lay.index().get(partId);
+    return p === undefined ? undefined : slotOfPinAt(p, pin);
+  };
+  // by id the last part with it (ids repeat only on a flat board, which parseBoardFile refuses)
+  let lastById: Map<string, CompiledPart> | undefined;
+  const partById = (id: string): CompiledPart | undefined => {
+    if (lay.repeats) return (lastById ??= new Map(parts.map((p) => [p.id, p]))).get(id);
+    const p = lay.index().get(id);
+    return p === undefined ? undefined : parts[p];
+  };
+  nameNets(flatParts, nets, (p, pin) => {
+    // a pin of the first part with that id, as old-style lookups by id resolve (ids repeat only on a flat board)
+    const s = lay.repeats ? slotOfPin(flatParts[p].id, pin) : slotOfPinAt(p, pin);
+    return s === undefined ? undefined : slotNet[s];
   });
-  const byId = new Map(parts.map((p) => [p.id, p]));
-  const undriven = nets.filter((n) => n.drivers.length === 0).map((n) => n.id);
-  const conflicts = nets.filter((n) => n.drivers.length > 1).map((n) => n.id);
+  const undriven: number[] = [];
+  const conflicts: number[] = [];
+  for (const net of nets) {
+    if (net.drivers.length === 0) undriven.push(net.id);
+    else if (net.drivers.length > 1) conflicts.push(net.id);
+  }
   const problems: NetProblem[] = [
     ...undriven.map((id): NetProblem => ({ kind: 'undriven', net: id, name: nets[id].name,
       message: `net ${nets[id].name} has no driver (read by ${nets[id].readers.map((r) => `${r.part}.${r.pin}`).join(', ')})` })),
     ...conflicts.map((id): NetProblem => ({ kind: 'conflict', net: id, name: nets[id].name,
       message: `net ${nets[id].name} has ${nets[id].drivers.length} drivers (${nets[id].drivers.map((r) => `${r.part}.${r.pin}`).join(', ')})` })),
   ];
+  let board: BoardFile | undefined;
   return {
-    board, family, nets, parts,
-    inputs: parts.filter((p) => isInputKind(p.kind)),
-    outputs: parts.filter((p) => isOutputKind(p.kind)),
+    get board() { return (board ??= boardOf()); },
+    family, nets, parts, inputs, outputs,
     undriven, conflicts, problems,
     netOf(partId, pin) {
       const s = slotOfPin(partId, pin);
       if (s === undefined) throw new Error(`no pin ${partId}.${pin}`);
-      return netOfSlot[s];
+      return slotNet[s];
     },
-    partById: (id) => byId.get(id),
+    partById,
   };
 }
 
 /** Net names: an input/output label on it, else `<partId>_<pin>` of its driver, else of its first pin; unique. */
-function nameNets(board: BoardFile, nets: NetInfo[], netOf: (partId: string, pin: string) => number): void {
-  const labelled = new Map<number, string>();
-  for (const part of board.parts) {
-    if (!(isInputKind(part.kind) || isOutputKind(part.kind)) || !part.label) continue;
-    const pin = isInputKind(part.kind) ? 'out' : 'in';
-    const n = netOf(part.id, pin);
+function nameNets(parts: readonly Part[], nets: NetInfo[], netOf: (p: number, pin: string) => number | undefined): void {
+  const labelled = new Map<number | undefined, string>();
+  for (let p = 0; p < parts.length; p++) {
+    const part = parts[p];
+    if (!part.label || !(isInputKind(part.kind) || isOutputKind(part.kind))) continue;
+    const n = netOf(p, isInputKind(part.kind) ? 'out' : 'in');
     if (!labelled.has(n)) labelled.set(n, signalName(part));
   }
   // labels are unique already; reserve them so that no generated name takes one
