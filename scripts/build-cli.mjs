@@ -11,12 +11,12 @@
  * Project modules are marked free of side effects, so that esbuild leaves out a module none of whose
  * exports a bundle uses (shared/board/schema.ts and with it zod, when only checkBoard is used).
  *
- * Runs at `npm install` / `npm ci` (the `prepare` script) and from scripts/cli.mjs when a bundle is missing
+ * Runs at `npm install` / `npm ci` (the `prepare` script) and from scripts/cli.cjs when a bundle is missing
  * or older than one of its sources. dist-cli/build.json records each bundle (SHA-256, size, time, sources)
  * for that check and to name the V8 code cache. Files are written to temporary names and renamed, so that
  * concurrent builds never leave half a file.
  *
- * Start-up: the bundles are scripts (CommonJS), not ES modules, so that scripts/cli.mjs can compile them
+ * Start-up: the bundles are scripts (CommonJS), not ES modules, so that scripts/cli.cjs can compile them
  * with V8's code cache (vm.Script `cachedData`, files in dist-cli/code-cache/ named by the bundle's hash
  * and the Node version). Run directly, this script also makes the cache of `analyze` with one small call.
  */
@@ -139,6 +139,7 @@ async function buildBundle(out, options, extraSources) {
   mkdirSync(dirname(file), { recursive: true });
   const tmp = `${file}.${process.pid}.tmp`;
   const result = await build({ ...COMMON, ...options, outfile: tmp });
+  // GATEFOLD_CLI_BUILD_META=1 keeps esbuild's account of each bundle (which modules, how many bytes) beside it
   if (process.env.GATEFOLD_CLI_BUILD_META) writeFileSync(`${file}.meta.json`, JSON.stringify(result.metafile));
   const sources = [...new Set([...ownInputs(result.metafile), ...extraSources])].sort();
   const sha256 = createHash('sha256').update(readFileSync(tmp)).digest('hex');
@@ -186,7 +187,7 @@ export async function buildCli() {
 
 /** Makes the code cache of the `analyze` bundle just built by running it once on the half adder. */
 export function makeCodeCache() {
-  const r = spawnSync(process.execPath, [join(ROOT, 'scripts/cli.mjs'), 'analyze', join(ROOT, 'examples/half-adder.gatefold.json')], { cwd: ROOT, stdio: ['ignore', 'ignore', 'pipe'] });
+  const r = spawnSync(process.execPath, [join(ROOT, 'scripts/cli.cjs'), 'analyze', join(ROOT, 'examples/half-adder.gatefold.json')], { cwd: ROOT, stdio: ['ignore', 'ignore', 'pipe'] });
   if (r.status !== 0) console.warn(`code cache not made: ${r.stderr.toString().split('\n')[0]}`);
 }
 
