@@ -35,24 +35,15 @@ export function compileBoard(hierarchical: BoardFile, opts: CompileOptions = {})
   return buildNetlist(lay, boardOf, opts.family ?? hierarchical.family ?? 'ideal');
 }
 
+/**
+ * The netlist over a layout. The parts are made at once; the nets (drivers, readers, names) and the
+ * problems only when first read — the simulator works from the parts alone, so compile and settle of a
+ * board never build a string per net.
+ */
 function buildNetlist(lay: PinLayout, boardOf: () => BoardFile, family: FamilyId): Netlist {
   const delays = familyDelays(family);
   const { parts: flatParts, pins, slotBase, slotNet } = lay;
   const n = flatParts.length;
-  const nNets = lay.nNets;
-  // drivers and readers of each net, counted first so that every list is made at its size
-  const nRead = new Int32Array(nNets);
-  const nDrive = new Int32Array(nNets);
-  for (let p = 0; p < n; p++) {
-    const b = slotBase[p];
-    const nIn = pins[p].inputs.length;
-    for (let s = b; s < b + nIn; s++) nRead[slotNet[s]]++;
-    for (let s = b + nIn; s < slotBase[p + 1]; s++) nDrive[slotNet[s]]++;
-  }
-  const nets: NetInfo[] = new Array<NetInfo>(nNets);
-  for (let i = 0; i < nNets; i++) nets[i] = { id: i, name: '', drivers: new Array<PinRef>(nDrive[i]), readers: new Array<PinRef>(nRead[i]) };
-  nRead.fill(0);
-  nDrive.fill(0);
   const parts: CompiledPart[] = new Array<CompiledPart>(n);
   const inputs: CompiledPart[] = [];
   const outputs: CompiledPart[] = [];
@@ -63,18 +54,10 @@ function buildNetlist(lay: PinLayout, boardOf: () => BoardFile, family: FamilyId
     const b = slotBase[index];
     const nIn = pp.inputs.length;
     const ins: number[] = new Array<number>(nIn);
-    for (let k = 0; k < nIn; k++) {
-      const net = slotNet[b + k];
-      ins[k] = net;
-      nets[net].readers[nRead[net]++] = { part: id, pin: pp.inputs[k] };
-    }
+    for (let k = 0; k < nIn; k++) ins[k] = slotNet[b + k];
     const nOut = pp.outputs.length;
     const outs: number[] = new Array<number>(nOut);
-    for (let k = 0; k < nOut; k++) {
-      const net = slotNet[b + nIn + k];
-      outs[k] = net;
-      nets[net].drivers[nDrive[net]++] = { part: id, pin: pp.outputs[k] };
-    }
+    for (let k = 0; k < nOut; k++) outs[k] = slotNet[b + nIn + k];
     const source = isInputKind(part.kind);
     const compiled: CompiledPart = {
       index, id, kind: part.kind, name: part.label === undefined ? id : signalName(part),
@@ -104,11 +87,62 @@ function buildNetlist(lay: PinLayout, boardOf: () => BoardFile, family: FamilyId
     const p = lay.index().get(id);
     return p === undefined ? undefined : parts[p];
   };
-  nameNets(flatParts, nets, (p, pin) => {
-    // a pin of the first part with that id, as old-style lookups by id resolve (ids repeat only on a flat board)
+  let nets: NetDescription | undefined;
+  const described = () => (nets ??= describeNets(lay, (p, pin) => {
+    // a pin of the first part with that id, as lookups by id resolve (ids repeat only on a flat board)
     const s = lay.repeats ? slotOfPin(flatParts[p].id, pin) : slotOfPinAt(p, pin);
     return s === undefined ? undefined : slotNet[s];
-  });
+  }));
+  let board: BoardFile | undefined;
+  return {
+    get board() { return (board ??= boardOf()); },
+    family,
+    get nets() { return described().nets; },
+    parts, inputs, outputs,
+    get undriven() { return described().undriven; },
+    get conflicts() { return described().conflicts; },
+    get problems() { return described().problems; },
+    netOf(partId, pin) {
+      const s = slotOfPin(partId, pin);
+      if (s === undefined) throw new Error(`no pin ${partId}.${pin}`);
+      return slotNet[s];
+    },
+    partById,
+  };
+}
+
+interface NetDescription {
+  nets: NetInfo[];
+  undriven: number[];
+  conflicts: number[];
+  problems: NetProblem[];
+}
+
+/** The nets of a layout: drivers and readers (each list made at its size), names, and the driver analysis. */
+function describeNets(lay: PinLayout, netOfPin: (p: number, pin: string) => number | undefined): NetDescription {
+  const { parts, pins, slotBase, slotNet, nNets } = lay;
+  const n = parts.length;
+  const nRead = new Int32Array(nNets);
+  const nDrive = new Int32Array(nNets);
+  for (let p = 0; p < n; p++) {
+    const b = slotBase[p];
+    const nIn = pins[p].inputs.length;
+    for (let s = b; s < b + nIn; s++) nRead[slotNet[s]]++;
+    for (let s = b + nIn; s < slotBase[p + 1]; s++) nDrive[slotNet[s]]++;
+  }
+  const nets: NetInfo[] = new Array<NetInfo>(nNets);
+  for (let i = 0; i < nNets; i++) nets[i] = { id: i, name: '', drivers: new Array<PinRef>(nDrive[i]), readers: new Array<PinRef>(nRead[i]) };
+  nRead.fill(0);
+  nDrive.fill(0);
+  for (let p = 0; p < n; p++) {
+    const id = parts[p].id;
+    const pp = pins[p];
+    const b = slotBase[p];
+    const nIn = pp.inputs.length;
+    for (let k = 0; k < nIn; k++) { const net = slotNet[b + k]; nets[net].readers[nRead[net]++] = { part: id, pin: pp.inputs[k] }; }
+    for (let k = 0; k < pp.outputs.length; k++) { const net = slotNet[b + nIn + k]; nets[net].drivers[nDrive[net]++] = { part: id, pin: pp.outputs[k] }; }
+  }
+  nameNets(parts, nets, netOfPin);
   const undriven: number[] = [];
   const conflicts: number[] = [];
   for (const net of nets) {
@@ -121,18 +155,7 @@ function buildNetlist(lay: PinLayout, boardOf: () => BoardFile, family: FamilyId
     ...conflicts.map((id): NetProblem => ({ kind: 'conflict', net: id, name: nets[id].name,
       message: `net ${nets[id].name} has ${nets[id].drivers.length} drivers (${nets[id].drivers.map((r) => `${r.part}.${r.pin}`).join(', ')})` })),
   ];
-  let board: BoardFile | undefined;
-  return {
-    get board() { return (board ??= boardOf()); },
-    family, nets, parts, inputs, outputs,
-    undriven, conflicts, problems,
-    netOf(partId, pin) {
-      const s = slotOfPin(partId, pin);
-      if (s === undefined) throw new Error(`no pin ${partId}.${pin}`);
-      return slotNet[s];
-    },
-    partById,
-  };
+  return { nets, undriven, conflicts, problems };
 }
 
 /** Net names: an input/output label on it, else `<partId>_<pin>` of its driver, else of its first pin; unique. */

@@ -18,6 +18,16 @@ import { findFeedbackLoops, sustainedXNet, type FeedbackLoops } from './loops';
 import type { SimLayout } from './layout';
 import type { ChangeListener, CompiledPart, Netlist, SettleReport, SimStats, SimulatorOptions } from './types';
 
+/** Number of nets of compiled parts: one more than the highest net a pin is on. */
+function netCount(parts: readonly CompiledPart[]): number {
+  let max = -1;
+  for (const p of parts) {
+    for (const net of p.inputs) if (net > max) max = net;
+    for (const net of p.outputs) if (net > max) max = net;
+  }
+  return max + 1;
+}
+
 /** Simulates a compiled board. */
 export class Simulator {
   readonly netlist: Netlist;
@@ -62,6 +72,8 @@ export class Simulator {
   private seenCount = 0;
   private races = new Set<string>();
   private readonly undrivenInputList: string[];
+  /** nets with two or more drivers, in net order */
+  private readonly conflictNets: number[] = [];
   private readonly layout: SimLayout;
   private readonly resolveAtPowerOn: boolean;
   /** gate-level feedback loops, found the first time a power-on settle ends with an X net */
@@ -99,13 +111,27 @@ export class Simulator {
     this.floating = fam.floating;
     this.floatCode = levelCode(fam.floating);
     const n = this.parts.length;
-    const nNets = netlist.nets.length;
+    // every net has a pin, so the parts tell the count without the netlist's (lazily built) net list
+    const nNets = netCount(this.parts);
     this.budget = opts.eventBudget ?? Math.max(20_000, 200 * n);
     const delays = opts.family && opts.family !== netlist.family ? familyDelays(opts.family) : null;
-    this.rise = Int32Array.from(this.parts, (p) => (delays && p.rise ? delays.rise : p.rise));
-    this.fall = Int32Array.from(this.parts, (p) => (delays && p.fall ? delays.fall : p.fall));
+    this.rise = new Int32Array(n);
+    this.fall = new Int32Array(n);
+    this.evaluates = new Uint8Array(n);
+    this.sourceLevel = new Uint8Array(n);
     let maxDelay = 1;
-    for (let i = 0; i < n; i++) maxDelay = Math.max(maxDelay, this.rise[i], this.fall[i]);
+    for (let i = 0; i < n; i++) {
+      const p = this.parts[i];
+      const rise = delays && p.rise ? delays.rise : p.rise;
+      const fall = delays && p.fall ? delays.fall : p.fall;
+      this.rise[i] = rise;
+      this.fall[i] = fall;
+      if (rise > maxDelay) maxDelay = rise;
+      if (fall > maxDelay) maxDelay = fall;
+      const source = isInputKind(p.kind);
+      this.evaluates[i] = !source && p.outputs.length > 0 ? 1 : 0;
+      this.sourceLevel[i] = source ? initialSourceLevel(p.part) : L0;
+    }
 
     const lay = buildLayout(this.parts, nNets);
     this.layout = lay;
@@ -125,8 +151,6 @@ export class Simulator {
     this.hold = new Uint8Array(nSlots);
     this.forcedMark = new Uint8Array(nNets);
     this.state = new Uint8Array(lay.nState);
-    this.evaluates = Uint8Array.from(this.parts, (p) => (!isInputKind(p.kind) && p.outputs.length > 0 ? 1 : 0));
-    this.sourceLevel = Uint8Array.from(this.parts, (p) => (isInputKind(p.kind) ? initialSourceLevel(p.part) : L0));
     this.netVal = new Uint8Array(nNets);
     this.netChange = new Float64Array(nNets).fill(-1);
     this.dirty = new Int32Array(n);
@@ -144,10 +168,29 @@ export class Simulator {
     this.warmUp = Math.max(0, Math.floor(opts.warmUp ?? 0));
     this.warm = new Uint8Array(n).fill(1);
     this.warmGap = maxDelay + 1;
-    this.undrivenInputList = netlist.undriven.flatMap((net) => netlist.nets[net].readers
-      .filter((r) => { const part = netlist.partById(r.part); return part !== undefined && !isOutputKind(part.kind); })
-      .map((r) => `${r.part}.${r.pin}`));
+    this.undrivenInputList = this.undrivenInputs();
+    for (let net = 0; net < nNets; net++) if (this.netDrivers[net] === -2) this.conflictNets.push(net);
     this.powerOn();
+  }
+
+  /**
+   * `part.pin` of every input pin on an undriven net, net by net (in net order), each net's readers in
+   * file order; lamps and probes show the net rather than read it, so they are left out.
+   */
+  private undrivenInputs(): string[] {
+    const found: { net: number; ref: string }[] = [];
+    for (let p = 0; p < this.parts.length; p++) {
+      for (let k = this.inStart[p]; k < this.inStart[p + 1]; k++) {
+        const net = this.inNet[k];
+        if (this.netDrivers[net] !== -1) continue;
+        const part = this.parts[p];
+        // by id, as a reader's part is found by its id
+        const byId = this.netlist.partById(part.id);
+        if (byId !== undefined && !isOutputKind(byId.kind)) found.push({ net, ref: `${part.id}.${part.inputPins[k - this.inStart[p]]}` });
+      }
+    }
+    // a stable sort: per net, readers stay in file order
+    return found.sort((a, b) => a.net - b.net).map((f) => f.ref);
   }
 
   /** Current simulation time (integer time units). */
@@ -424,7 +467,7 @@ export class Simulator {
     }
     return {
       settled, time: this.now, events: this.stats.events - start, oscillating,
-      conflicts: this.netlist.conflicts.map((id) => this.netlist.nets[id].name),
+      conflicts: this.conflictNets.map((id) => this.netlist.nets[id].name),
       undrivenInputs: [...this.undrivenInputList],
       races: [...this.races],
       powerOn: this.forced.map((net) => this.netlist.nets[net].name),
