@@ -1,7 +1,11 @@
 /**
- * Modules: compile and settle of a 2,000-gate hierarchical board (issue 14's target ≤ 8 ms warm), each
- * run on a fresh board object so that the flattening (docs/decisions/004-modules.md) runs every time, as
- * it does after every edit; beside it the same circuit drawn flat, compiled and settled.
+ * Modules: compile and settle of a 2,000-gate hierarchical board (issue 14's target ≤ 8 ms warm), beside
+ * the same circuit drawn flat, compiled and settled. "Warm" means only that the code is warmed up (30
+ * runs first): every run compiles a fresh board object, as after an edit, and nothing is cached from one
+ * compile to the next — compileBoard lays each module's inside out once per compile and copies it per
+ * instance (shared/sim/compile-levels.ts). The figure is CPU time of this process (user + system, which
+ * also counts the collector's helper threads, so on a quiet machine it is at least the wall time); the
+ * wall time is in the note, since on a shared machine it counts whatever else the cores were doing.
  */
 import { flattenBoard, parseBoardFile, type BoardFile, type Module, type Part, type Wire } from '../shared/board';
 import { compileBoard, Simulator } from '../shared/sim';
@@ -53,27 +57,34 @@ function hierarchicalBoard(): BoardFile {
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-/** Time of the flattening alone (for the note). */
-function flattenOnly(board: BoardFile): number {
-  for (let i = 0; i < 20; i++) flattenBoard({ ...board });
-  return median(Array.from({ length: 40 }, () => { const t = performance.now(); flattenBoard({ ...board }); return performance.now() - t; }));
+/** CPU and wall time of f, in ms. */
+function timed(f: () => void): { cpu: number; wall: number } {
+  const c = process.cpuUsage();
+  const t = performance.now();
+  f();
+  const wall = performance.now() - t;
+  const d = process.cpuUsage(c);
+  return { cpu: (d.user + d.system) / 1000, wall };
 }
 
 export default async (): Promise<BenchRow[]> => {
   const board = hierarchicalBoard();
   const flat = flattenBoard(board);
   const gates = flat.parts.filter((p) => p.kind !== 'switch' && p.kind !== 'lamp').length;
-  // a fresh object each run: the flattening is cached per board object, and an edit makes a new one
+  // a fresh object each run: nothing may be reused from an earlier compile of the same object
   const run = (b: BoardFile) => { const sim = new Simulator(compileBoard({ ...b })); sim.settle(); };
-  const c0 = performance.now();
-  run(board);
-  const cold = performance.now() - c0;
+  const cold = timed(() => run(board)).wall;
   for (let i = 0; i < 30; i++) { run(board); run(flat); }
-  const ours = median(Array.from({ length: 40 }, () => { const t = performance.now(); run(board); return performance.now() - t; }));
-  const ref = median(Array.from({ length: 40 }, () => { const t = performance.now(); run(flat); return performance.now() - t; }));
+  // interleaved, so that both see the same machine
+  const ours: { cpu: number; wall: number }[] = [];
+  const ref: { cpu: number; wall: number }[] = [];
+  for (let i = 0; i < 40; i++) { ours.push(timed(() => run(board))); ref.push(timed(() => run(flat))); }
+  const flattening = Array.from({ length: 40 }, () => timed(() => flattenBoard({ ...board })).cpu);
+  const cpu = (xs: { cpu: number }[]) => median(xs.map((x) => x.cpu));
+  const wall = (xs: { wall: number }[]) => median(xs.map((x) => x.wall));
   return [{
-    name: `compile + settle, ${gates}-gate hierarchical board`, value: ours, unit: 'ms', goal: { max: 8 },
-    reference: { name: 'same circuit drawn flat', value: ref },
-    note: `40 block instances in 20 nested pairs; median of 40 warm runs (first run ${cold.toFixed(1)} ms); flattening alone ${flattenOnly(board).toFixed(1)} ms`,
+    name: `compile + settle, ${gates}-gate hierarchical board`, value: cpu(ours), unit: 'ms CPU', goal: { max: 8 },
+    reference: { name: 'same circuit drawn flat', value: cpu(ref) },
+    note: `40 block instances in 20 nested pairs; median of 40 warm runs, CPU time (wall ${wall(ours).toFixed(1)} ms, flat ${wall(ref).toFixed(1)} ms; first run ${cold.toFixed(1)} ms wall); flattenBoard alone, which compile no longer needs, ${median(flattening).toFixed(1)} ms CPU`,
   }];
 };
