@@ -1,6 +1,9 @@
 /**
  * The one flattening of a board with modules (docs/decisions/004-modules.md): every computation — the
  * simulator, the analysers, the build sheet, the bring-up tools — runs on the flat board it gives.
+ * compileBoard gets the same netlist without building this board (shared/sim/compile-levels.ts lays each
+ * module out once and copies it per instance; tests/modules/compile-levels.test.ts holds the two equal)
+ * and calls flattenBoard only for a board it cannot take that way, or when `netlist.board` is read.
  *
  * Each part inside an instance becomes a part with the path id `u3/g2` (`u3/u1/g4` when nested), in place
  * of its instance, so file order stays depth first. Ports and instance pins are junctions, not parts: a
