@@ -80,4 +80,24 @@ describe('library edits on a board document', () => {
     expect(used.module).toBe('half_2');
     expect(file.modules!.find((m) => m.id === 'half_2')!.parts.find((p) => p.id === 'g2')!.x).toBe(240);
   });
+
+  it('places a second instance of an entry on the board\'s copy, and refuses it inside a module the copy uses', () => {
+    const doc = docOf([]);
+    const v1: LibraryContent = { moduleId: 'pair', modules: [PAIR(360), HALF], origin: { library: '9', version: 1 } };
+    const first = placeFromLibrary(doc, v1, 0, 0, 'me');
+    const second = placeFromLibrary(doc, { ...v1, origin: { library: '9', version: 2 } }, 200, 0, 'me');
+    expect(second.moduleId).toBe(first.moduleId);
+    expect(second.instanceId).not.toBe(first.instanceId);
+    let file = docToBoard(doc);
+    expect(file.modules!.map((m) => m.id).sort()).toEqual(['half', 'pair']);
+    expect(file.parts.map((p) => (p as { module?: string }).module)).toEqual(['pair', 'pair']);
+    // inside "half" (which "pair" uses) an instance of "pair" would make a cycle: refused, nothing changes
+    expect(() => placeFromLibrary(doc, v1, 0, 0, 'me', 'half')).toThrow(/cannot contain itself/);
+    // inside a module of the board's own that "pair" does not use, it is placed
+    const own = placeFromLibrary(doc, { moduleId: 'solo', modules: [{ ...HALF, id: 'solo' }], origin: { library: '10', version: 1 } }, 0, 0, 'me');
+    placeFromLibrary(doc, v1, 40, 40, 'me', own.moduleId);
+    file = docToBoard(doc);
+    expect(valid(file)).toBe(true);
+    expect(file.modules!.find((m) => m.id === 'solo')!.parts.filter((p) => p.kind === 'module').map((p) => (p as { module: string }).module)).toEqual(['pair']);
+  });
 });

@@ -13,8 +13,33 @@ export interface LibraryContent {
   origin: ModuleOrigin;
 }
 
-/** Copies an entry onto the board and places one instance at (x, y); returns the module and instance ids. */
+/** Whether module `moduleId` uses module `target` (directly or deeper), or is it. */
+function uses(doc: Y.Doc, moduleId: string, target: string): boolean {
+  const byId = new Map(readModules(doc).map((m) => [m.id, m]));
+  const seen = new Set<string>();
+  const queue = [moduleId];
+  while (queue.length) {
+    const id = queue.pop()!;
+    if (id === target) return true;
+    if (seen.has(id)) continue;
+    seen.add(id);
+    for (const p of byId.get(id)?.parts ?? []) if (p.kind === 'module') queue.push(p.module);
+  }
+  return false;
+}
+
+/**
+ * Places one instance of a library entry at (x, y) on the top level or inside module `scope`; returns the
+ * module and instance ids. The first placement copies the entry's modules onto the board; later ones reuse
+ * the board's copy (whatever its version: "update from library" is how a copy takes a newer one), so every
+ * instance of one entry shares one module.
+ */
 export function placeFromLibrary(doc: Y.Doc, content: LibraryContent, x: number, y: number, origin: unknown, scope?: string): { moduleId: string; instanceId: string } {
+  const copy = libraryCopies(doc).get(content.origin.library);
+  if (copy) {
+    if (scope !== undefined && uses(doc, copy.moduleId, scope)) throw new Error(`"${copy.moduleId}" uses the open module "${scope}": a module cannot contain itself`);
+    return { moduleId: copy.moduleId, instanceId: placeInstance(doc, copy.moduleId, x, y, origin, scope) };
+  }
   const renamed = addModules(doc, content.modules, origin, content.origin);
   const moduleId = renamed.get(content.moduleId) ?? content.moduleId;
   return { moduleId, instanceId: placeInstance(doc, moduleId, x, y, origin, scope) };
@@ -22,8 +47,13 @@ export function placeFromLibrary(doc: Y.Doc, content: LibraryContent, x: number,
 
 /** The board's copies of library entries: library entry id → the board module and the version it holds. */
 export function libraryCopies(doc: Y.Doc): Map<string, { moduleId: string; version: number }> {
+  return copiesAmong(readModules(doc));
+}
+
+/** `libraryCopies` of a list of the board's modules (the newest copy of each entry). */
+export function copiesAmong(modules: readonly Pick<Module, 'id' | 'origin'>[]): Map<string, { moduleId: string; version: number }> {
   const out = new Map<string, { moduleId: string; version: number }>();
-  for (const m of readModules(doc)) {
+  for (const m of modules) {
     if (!m.origin) continue;
     const known = out.get(m.origin.library);
     if (!known || known.version < m.origin.version) out.set(m.origin.library, { moduleId: m.id, version: m.origin.version });

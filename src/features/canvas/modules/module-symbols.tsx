@@ -18,8 +18,11 @@ export function InstanceSymbol({ part, w, h, level }: SymbolProps<InstancePart>)
   const view = useModulesView();
   const pins = pinsOfPart(part, view.pins);
   const title = view.titles.get(part.module) || part.module;
+  // React Flow marks only draggable nodes `nopan`: on a viewer's canvas its zoom took a double-click on the
+  // box (zooming in and stopping the event), so the module never opened. The whole box is `nopan` here.
   return (
-    <>
+    <g className="nopan">
+      <rect x={0} y={0} width={w} height={h} fill="transparent" />
       {pins.inputs.map((pin, i) => <Stub key={`i${pin}`} x1={0} y1={TOP + i * STEP} x2={14} y2={TOP + i * STEP} level={level(pin)} />)}
       {pins.outputs.map((pin, i) => <Stub key={`o${pin}`} x1={w - 14} y1={TOP + i * STEP} x2={w} y2={TOP + i * STEP} level={level(pin)} />)}
       <rect x={14} y={4} width={w - 28} height={h - 8} rx={3} {...strokeProps} />
@@ -35,7 +38,7 @@ export function InstanceSymbol({ part, w, h, level }: SymbolProps<InstancePart>)
       {pins.outputs.map((pin, i) => (
         <text key={`to${pin}`} x={w - 19} y={TOP + i * STEP + 4} textAnchor="end" fontFamily={monoFont} fontSize={10} fill={INK.dim}>{pin}</text>
       ))}
-    </>
+    </g>
   );
 }
 

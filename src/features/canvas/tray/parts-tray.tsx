@@ -1,10 +1,13 @@
 /**
  * The parts tray (left column): search by name, drag an entry onto the canvas, or click it and then
- * click the canvas. Gates carry an input-count choice (2–8).
+ * click the canvas. Gates carry an input-count choice (2–8). The team library's drawer sits at its foot.
  */
 import { memo, useMemo, useState, type DragEvent } from 'react';
+import { useStoreApi } from '@xyflow/react';
+import type * as Y from 'yjs';
+import { LibraryDrawer } from '../../library';
 import { newPart, type TrayChoice } from '../lib/new-part';
-import { placedShape } from '../lib/geometry';
+import { GRID, placedShape, snap } from '../lib/geometry';
 import { PartSymbol } from '../symbols';
 import { TRAY_ITEMS, TRAY_MIME, searchTray, trayItemsFor, type TrayItem } from './tray-items';
 
@@ -13,6 +16,8 @@ interface Props {
   onArm(choice: TrayChoice | null): void;
   /** a module is open on the canvas: offer ports, leave out switches, buttons and clocks */
   inModule?: boolean;
+  /** the board for the library drawer (its top-level document) and the module open on the canvas */
+  library?: { doc: Y.Doc; boardId: number; origin: unknown; scope?: string };
 }
 
 const noLevel = () => undefined;
@@ -28,7 +33,17 @@ const Preview = memo(function Preview({ item, inputs }: { item: TrayItem; inputs
   );
 });
 
-export function PartsTray({ armed, onArm, inModule = false }: Props) {
+/** The middle of the canvas's view in board coordinates, on the grid, less half a module box. */
+function useViewMiddle(): () => { x: number; y: number } {
+  const store = useStoreApi();
+  return () => {
+    const { width, height, transform: [tx, ty, zoom] } = store.getState();
+    return { x: snap((width / 2 - tx) / zoom - 3 * GRID), y: snap((height / 2 - ty) / zoom - 2 * GRID) };
+  };
+}
+
+export function PartsTray({ armed, onArm, inModule = false, library }: Props) {
+  const viewMiddle = useViewMiddle();
   const [query, setQuery] = useState('');
   const [inputs, setInputs] = useState<Record<string, number>>({});
   const items = useMemo(() => searchTray(query, trayItemsFor(inModule)), [query, inModule]);
@@ -86,6 +101,7 @@ export function PartsTray({ armed, onArm, inModule = false }: Props) {
         ))}
       </div>
       {armed && <div className="border-t border-mat-700 p-2 text-[11px] text-amber-300" data-testid="tray-armed">Click the canvas to place · Esc to cancel</div>}
+      {library && <LibraryDrawer doc={library.doc} boardId={library.boardId} origin={library.origin} scope={library.scope} canEdit placeAt={viewMiddle} />}
     </aside>
   );
 }

@@ -16,6 +16,7 @@ import { CanvasToolbar } from '../toolbar/canvas-toolbar';
 import { PartInspector } from '../inspector/part-inspector';
 import { PartsTray } from '../tray/parts-tray';
 import { useModuleSession } from '../modules/use-module-session';
+import { ModuleBar } from '../modules/module-bar';
 import type { PeersView } from '../session/awareness';
 import { BoardCanvas, type CanvasApi } from './board-canvas';
 import { BottomDock } from './bottom-dock';
@@ -77,7 +78,10 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
         ) : null}
       </div>
       <div className="flex min-h-0 flex-1">
-        {!session.readOnly && <PartsTray armed={armed} onArm={setArmed} inModule={inModule} />}
+        {!session.readOnly && (
+          <PartsTray armed={armed} onArm={setArmed} inModule={inModule}
+            library={{ doc: session.doc, boardId: Number(session.boardId), origin: session.origin, scope: scope.module?.id }} />
+        )}
         <div className="flex min-h-0 min-w-0 flex-1 flex-col">
           <div className="relative min-h-0 flex-1">
             {/* inside a module the bench's levels, badges and marks (top-level part ids) do not apply */}
@@ -85,21 +89,8 @@ function Workspace({ session, levels, partBadges, highlight, marks, onTryOut, tr
               levels={inModule ? undefined : levels} partBadges={inModule ? undefined : partBadges}
               highlight={inModule ? undefined : highlight} marks={inModule ? undefined : marks} onTryOut={onTryOut} tryOutValues={tryOutValues}
               helpOpen={help} onHelp={setHelp} onReady={setCanvas} onOpenModule={(id) => setPath((p) => (p.includes(id) ? p : [...p, id]))} />
-            {inModule && (
-              <nav className="absolute left-3 top-3 z-10 flex items-center gap-1 rounded bg-mat-800/95 px-2 py-1 text-xs text-slate-300 shadow"
-                aria-label="Module breadcrumb" data-testid="module-breadcrumb">
-                <button type="button" className="rounded px-1 text-amber-300 hover:bg-mat-700" data-testid="breadcrumb-board" onClick={() => setPath([])}>Board</button>
-                {path.map((id, i) => (
-                  <span key={id} className="flex items-center gap-1">
-                    <span aria-hidden="true">›</span>
-                    {i === path.length - 1 ? (
-                      <span className="px-1 font-mono text-slate-100" data-testid="breadcrumb-current">{titleOf(id)}</span>
-                    ) : (
-                      <button type="button" className="rounded px-1 text-amber-300 hover:bg-mat-700" onClick={() => setPath(path.slice(0, i + 1))}>{titleOf(id)}</button>
-                    )}
-                  </span>
-                ))}
-              </nav>
+            {scope.module && (
+              <ModuleBar path={path} module={scope.module} titleOf={titleOf} onPath={setPath} boardId={Number(session.boardId)} canEdit={!session.readOnly} />
             )}
             {!(panels && panelsOpen) && <PartInspector session={view} placement="float" />}
             {!session.synced && (
