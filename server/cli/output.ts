@@ -47,30 +47,39 @@ function writeStream(buf: Buffer): Promise<void> {
   });
 }
 
-/** Writes the pieces to standard output in order, in large writes. */
-export async function writeOutput(out: Iterable<string | Iterable<string>>): Promise<void> {
+/** Writes the pieces (text, or bytes of UTF-8) to standard output in order, in large writes. */
+export async function writeOutput(out: Iterable<string | Iterable<string | Uint8Array>>): Promise<void> {
   let viaStream = false;
   let pending: string[] = [];
   let size = 0;
-  const flush = async () => {
-    if (!pending.length) return;
-    const buf = Buffer.from(pending.length === 1 ? pending[0] : pending.join(''), 'utf8');
-    pending = [];
-    size = 0;
+  const write = async (buf: Uint8Array) => {
+    const bytes = Buffer.isBuffer(buf) ? buf : Buffer.from(buf.buffer, buf.byteOffset, buf.byteLength);
     if (!viaStream) {
-      const rest = writeAll(buf);
+      const rest = writeAll(bytes);
       if (!rest) return;
       viaStream = true;
       await writeStream(rest);
     } else {
-      await writeStream(buf);
+      await writeStream(bytes);
     }
+  };
+  const flush = async () => {
+    if (!pending.length) return;
+    const text = pending.length === 1 ? pending[0] : pending.join('');
+    pending = [];
+    size = 0;
+    await write(Buffer.from(text, 'utf8'));
   };
   for (const part of out) {
     for (const piece of typeof part === 'string' ? [part] : part) {
-      pending.push(piece);
-      size += piece.length;
-      if (size >= CHUNK) await flush();
+      if (typeof piece === 'string') {
+        pending.push(piece);
+        size += piece.length;
+        if (size >= CHUNK) await flush();
+      } else {
+        await flush();
+        await write(piece);
+      }
     }
   }
   await flush();

@@ -20,7 +20,7 @@ async function main(argv: string[], commands: CommandTable, known: string[]): Pr
     throw new CliError(name ? `unknown command "${name}" (commands: ${list})` : `no command given (commands: ${list})`);
   }
   // a large result comes as pieces (an iterable) and is written piece by piece, never as one string
-  const out: (string | Iterable<string>)[] = [];
+  const out: (string | Iterable<string | Uint8Array>)[] = [];
   const files: [string, string][] = [];
   const io: CliIo = { stdout: (text) => { out.push(text); }, writeFile: (path, text) => { files.push([path, text]); } };
   await (await load()).run(args, io);

@@ -3,10 +3,12 @@
  * minimal SOP/POS, function names and function map as the `analyze` JSON of CONTRACTS §2, from the one
  * analysis pipeline of `shared/analysis` (its don't-care rule included).
  */
-import { AnalysisError, analyzeBoard, parseRowList, type AnalyzeResult } from '../../../shared/analysis';
+import { AnalysisError, analyzeJson, parseRowList, runAnalysisSync, type AnalysisRun, type AnalyzeResult } from '../../../shared/analysis';
+import { compileBoard } from '../../../shared/sim';
 import { parseCommandArgs } from '../args';
 import { readBoard } from '../board-file';
 import { CliError } from '../errors';
+import { rowsJson } from '../table-json';
 import type { CliCommand } from './types';
 
 function list(v: string | boolean | undefined, flag: string): string[] | undefined {
@@ -17,22 +19,31 @@ function list(v: string | boolean | undefined, flag: string): string[] | undefin
   return items;
 }
 
-const ROWS_PER_PIECE = 8192;
+/** Above this many rows the result is written compact (it is for programs), and streamed. */
+const LARGE = 4096;
 
-/** The bytes of `JSON.stringify(result) + '\n'`, in pieces: the rows a batch at a time. */
-function* compactJsonPieces(result: AnalyzeResult): Generator<string> {
+/**
+ * The bytes of `JSON.stringify(analyzeJson(run)) + '\n'`, in pieces: every field but the rows as
+ * analyzeJson gives it (asked of the table without its rows, before any output), the rows from the
+ * table's code arrays.
+ */
+function compactJsonPieces(run: AnalysisRun): Iterable<string | Uint8Array> {
+  const result: AnalyzeResult = analyzeJson({ ...run, table: { ...run.table, rowCount: 0 } });
+  return pieces(result, run.table);
+}
+
+function* pieces(result: AnalyzeResult, table: AnalysisRun['table']): Generator<string | Uint8Array> {
   let sep = '{';
   for (const [key, value] of Object.entries(result)) {
     if (value === undefined) continue; // as JSON.stringify leaves it out
-    if (key !== 'rows') { yield `${sep}${JSON.stringify(key)}:${JSON.stringify(value)}`; sep = ','; continue; }
-    const rows = value as AnalyzeResult['rows'];
-    yield `${sep}${JSON.stringify(key)}:[`;
-    sep = ',';
-    for (let i = 0; i < rows.length; i += ROWS_PER_PIECE) {
-      const batch = JSON.stringify(rows.slice(i, i + ROWS_PER_PIECE));
-      yield (i ? ',' : '') + batch.slice(1, -1);
+    if (key === 'rows') {
+      yield `${sep}${JSON.stringify(key)}:[`;
+      yield* rowsJson(table);
+      yield ']';
+    } else {
+      yield `${sep}${JSON.stringify(key)}:${JSON.stringify(value)}`;
     }
-    yield ']';
+    sep = ',';
   }
   yield sep === '{' ? '{}\n' : '}\n';
 }
@@ -46,12 +57,12 @@ export const analyze: CliCommand = {
     const board = readBoard(positionals[0]);
     try {
       const rows = list(values['dont-cares'], 'dont-cares');
-      const result = analyzeBoard(board, {
+      const run = runAnalysisSync(compileBoard(board), {
         inputs: list(values.inputs, 'inputs'), outputs: list(values.outputs, 'outputs'), select: list(values.select, 'select'),
         dontCares: rows && parseRowList(rows.join(',')),
       });
       // indented for people; a large table is written compact (it is for programs), in pieces
-      io.stdout(result.rows.length <= 4096 ? JSON.stringify(result, null, 2) + '\n' : compactJsonPieces(result));
+      io.stdout(run.table.rowCount <= LARGE ? JSON.stringify(analyzeJson(run), null, 2) + '\n' : compactJsonPieces(run));
     } catch (err) {
       if (err instanceof AnalysisError) throw new CliError(err.message);
       throw err;

@@ -1,7 +1,7 @@
 /** A command of the Gatefold command line. */
 export interface CliIo {
-  /** writes text to standard output (as is); an iterable is written piece by piece (a large JSON) */
-  stdout(text: string | Iterable<string>): void;
+  /** writes text to standard output (as is); an iterable is written piece by piece (a large JSON; bytes as UTF-8) */
+  stdout(text: string | Iterable<string | Uint8Array>): void;
   /** writes a file (used by --vcd) */
   writeFile(path: string, text: string): void;
 }
