@@ -16,6 +16,8 @@ export interface SearchOptions {
   /** word operations of phase 2 (list the other covers of that cost); running out only truncates the list */
   listWork?: number;
   maxCovers: number;
+  /** `upper` is already proven minimal (by the covering solver): skip phase 1, only list the ties */
+  upperIsMinimal?: boolean;
 }
 
 /**
@@ -87,7 +89,7 @@ export function searchCovers(clauses: number[][], lits: number[], upper: number[
     done();
   };
 
-  dfs(rootRows.slice(), rootPrimes.slice(), 0);
+  if (!opts.upperIsMinimal) dfs(rootRows.slice(), rootPrimes.slice(), 0);
   if (out) return { covers: [m.globalSorted(bestCover)], complete: false, truncated: false };
   // phase 2: the alternatives of exactly the proven cost, with a budget of their own
   listing = true;

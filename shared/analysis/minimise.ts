@@ -19,12 +19,21 @@ export interface MinimalCovers {
   note?: string;
 }
 
-/** Limits of the exact method (defaults: 12 inputs, 600 products, 400,000,000 + 2,000,000 search word operations, 32 covers). */
+/**
+ * Work of the proof per form (entry visits of the covering solver): calibrated to stay under about 2 s up
+ * to 10 inputs and 10 s for 11–12 inputs on the development machine. Counted in work, not time, so that
+ * whether a form is proven does not depend on the machine's load.
+ */
+export function defaultProofWork(n: number): number {
+  return n <= 10 ? 100_000_000 : 500_000_000;
+}
+
+/** Limits of the exact method (defaults: 12 inputs, 600 products, `defaultProofWork(n)` + 2,000,000 search word operations, 32 covers). */
 export interface MinimiseOptions {
   exactLimit?: number;
   /** products Petrick's expansion may keep before the depth-first search takes over */
   budget?: number;
-  /** word operations of the depth-first search proving one cover minimal before it settles for the best found (not proven minimal) */
+  /** work of the covering solver proving one cover minimal (entry visits) before it settles for the best found (not proven minimal) */
   work?: number;
   /** word operations of the depth-first search listing the other minimal covers (running out only truncates the list) */
   listWork?: number;
@@ -51,7 +60,7 @@ export function minimiseOnes(n: number, fn: FunctionRows, opts: MinimiseOptions 
     const pick = greedyCover(clauses, primes.map(literals));
     return { covers: [order(pick.map((i) => primes[i]))], exact: false, truncated: false, note: 'too many prime implicants: greedy cover, not proven minimal' };
   }
-  const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work, listWork: opts.listWork, maxCovers: opts.maxCovers });
+  const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work ?? defaultProofWork(n), listWork: opts.listWork, maxCovers: opts.maxCovers });
   const covers = sel.covers.map((c) => order(c.map((i) => primes[i])));
   return { covers: dedupeOrder(covers, n), exact: sel.exact, truncated: sel.truncated, note: sel.note };
 }

@@ -1,5 +1,6 @@
 import { coversRow, literals, type Cube } from './cube';
 import { searchCovers } from './cover-search';
+import { solveCover } from './cover-solver';
 
 /** Which minimal covers were found, and whether they are proven minimal. */
 export interface CoverSelection {
@@ -14,13 +15,16 @@ export interface CoverSelection {
 export interface CoverOptions {
   /** products kept while multiplying Petrick's function out before switching to the depth-first search */
   budget?: number;
-  /** word operations spent proving one cover minimal before giving up with the best found (not proven minimal) */
+  /** work of the covering solver (entry visits) proving one cover minimal before giving up with the best found (not proven minimal) */
   work?: number;
   /** word operations for listing the other minimal covers once one is proven; running out only truncates the list */
   listWork?: number;
   /** at most this many alternative minimal covers are listed */
   maxCovers?: number;
 }
+
+/** Default work of the proof (entry visits of the covering solver). */
+const DEFAULT_WORK = 400_000_000;
 
 interface Problem {
   clauses: number[][]; // per uncovered care row: the primes covering it (sorted)
@@ -55,7 +59,11 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
     const covers = expanded.slice(0, maxCovers).map((extra) => sorted([...base, ...extra]));
     return { covers, exact: true, truncated: expanded.length > maxCovers };
   }
-  const found = searchCovers(prob.clauses, lits, greedy, { work: opts.work ?? 400_000_000, listWork: opts.listWork ?? 2_000_000, maxCovers });
+  const solved = solveCover(prob.clauses, (p) => lits[p], greedy, opts.work ?? DEFAULT_WORK);
+  if (!solved.proven) {
+    return { covers: [sorted([...base, ...solved.cover])], exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
+  }
+  const found = searchCovers(prob.clauses, lits, solved.cover, { work: 0, listWork: opts.listWork ?? 2_000_000, maxCovers, upperIsMinimal: true });
   const covers = found.covers.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {
     return { covers: covers.slice(0, 1), exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
