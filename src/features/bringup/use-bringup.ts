@@ -4,7 +4,7 @@
  * of that record, and which parts to highlight on the canvas (the chosen suspect, else the best one).
  */
 import { useQuery } from '@tanstack/react-query';
-import { useMemo, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import type { BoardFile } from '../../../shared/board';
 import { BringupError, diagnose, testVectors, type DiagnoseResult, type TestVectorsResult } from '../../../shared/bringup';
 import type { BoardRole } from '../../../shared/api';
@@ -16,9 +16,11 @@ function logicKey(board: BoardFile): string {
 }
 
 export function useBringup(boardId: number, role: BoardRole, board: BoardFile) {
-  const key = logicKey(board);
-  // recomputed when the logic changes, not on every move
+  // recomputed when the logic changes, not on every move; deferred (a render after the canvas's, with
+  // no vectors on the first) so that a large board is drawn before its vectors are worked out
+  const key = useDeferredValue(logicKey(board), '');
   const tv = useMemo((): { result: TestVectorsResult | null; error: string | null } => {
+    if (key === '') return { result: null, error: null };
     try {
       return { result: testVectors(board), error: null };
     } catch (err) {

@@ -4,7 +4,8 @@ import { movePart, setPartField, connect } from '../../../../shared/board';
 import { boardToDoc, docToBoard } from '../../../../shared/board';
 import type { BoardFile } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
-import { byId, deriveEdges, deriveNodes, mergeLocal, pinLevels, stabilizeBoard } from './derive-flow';
+import { byId, deriveEdges, deriveNodes, mergeLocal, PIN_BOX, pinLevels, stabilizeBoard } from './derive-flow';
+import { placedShape } from '../lib/geometry';
 import { contractHalfAdder } from '../../../../tests/helpers/boards';
 
 // The half adder of CONTRACTS §1 (our own example board).
@@ -147,5 +148,21 @@ describe('deriveNodes with bench badges', () => {
     const n3 = deriveNodes({ parts, readOnly: false, badges: new Map([['s', { tone: 'conflict' as const, text: 'two drivers' }]]) }, byId(n2));
     expect(n3[4]).not.toBe(n2[4]);
     expect(n3[4].data.badge?.tone).toBe('conflict');
+  });
+});
+
+describe('deriveNodes pin boxes', () => {
+  it('gives each node its size and a handle box per pin, centred on the pin, so React Flow measures nothing', () => {
+    const nodes = deriveNodes({ parts: HALF_ADDER.parts, readOnly: false }, new Map());
+    const g1 = nodes[2];
+    expect(g1.measured).toEqual({ width: 100, height: 60 });
+    const spots = placedShape(HALF_ADDER.parts[2]).pins;
+    expect(g1.handles).toHaveLength(spots.length);
+    g1.handles!.forEach((h, i) => {
+      expect(h.id).toBe(spots[i].pin);
+      expect(h.type).toBe(spots[i].output ? 'source' : 'target');
+      expect(h.position).toBe(spots[i].side);
+      expect([h.x + PIN_BOX / 2, h.y + PIN_BOX / 2]).toEqual([spots[i].x, spots[i].y]);
+    });
   });
 });

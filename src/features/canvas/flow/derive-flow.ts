@@ -6,6 +6,7 @@
 import { allPins, splitPinRef, type BoardFile, type ModulePins, type Part, type PinSet, type Wire } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import type { CompareMark } from '../../../../shared/render';
+import type { NodeHandle, Position } from '@xyflow/react';
 import { placedShape } from '../lib/geometry';
 import { stabilizeModules } from '../modules/stabilize-modules';
 import type { PartBadge, PartNode, WireEdge } from './types';
@@ -48,6 +49,20 @@ function samePins(a: PinSet | undefined, b: PinSet | undefined): boolean {
   return a.inputs.join('\n') === b.inputs.join('\n') && a.outputs.join('\n') === b.outputs.join('\n');
 }
 
+/** Side length of a pin's box on the canvas (canvas.css `.gf-pin`), centred on the pin's spot. */
+export const PIN_BOX = 8;
+
+/** A part's size and its pins as React Flow handle boxes (what it would measure in the page). */
+export function shapeWithHandles(part: Part, pins: PinSet | undefined): { w: number; h: number; handles: NodeHandle[] } {
+  const shape = placedShape(part, pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined);
+  const half = PIN_BOX / 2;
+  const handles = shape.pins.map((spot): NodeHandle => ({
+    id: spot.pin, type: spot.output ? 'source' : 'target', position: spot.side as Position,
+    x: spot.x - half, y: spot.y - half, width: PIN_BOX, height: PIN_BOX,
+  }));
+  return { w: shape.w, h: shape.h, handles };
+}
+
 /** Nodes for `input.parts`, reusing the node in `prev` (by id) wherever nothing it shows has changed. */
 export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, PartNode>): PartNode[] {
   const out: PartNode[] = new Array(input.parts.length);
@@ -75,14 +90,19 @@ export function deriveNodes(input: DeriveNodesInput, prev: ReadonlyMap<string, P
         return;
       }
     }
-    const shape = old && old.data.part === part && old.data.pins === pins ? { w: old.width as number, h: old.height as number }
-      : placedShape(part, pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined);
+    const same = old && old.data.part === part && old.data.pins === pins;
+    const shape = same ? { w: old.width as number, h: old.height as number, handles: old.handles as NodeHandle[] }
+      : shapeWithHandles(part, pins);
     out[i] = {
       id: part.id,
       type: 'part',
       position: old && old.position.x === x && old.position.y === y ? old.position : { x, y },
       width: shape.w,
       height: shape.h,
+      // Size and pin boxes are known from the geometry: React Flow draws the wires at once and never
+      // measures a part in the page (a getBoundingClientRect per pin of every part on opening).
+      measured: same && old.measured ? old.measured : { width: shape.w, height: shape.h },
+      handles: shape.handles,
       draggable: !input.readOnly,
       connectable: !input.readOnly,
       deletable: !input.readOnly,
@@ -138,7 +158,7 @@ export function mergeLocal<T extends Local>(derived: readonly T[], local: readon
     if (!l) next = d;
     else if (bases.get(d.id) === d) next = l;
     else if (d.position === undefined) next = { ...d, selected: l.selected };
-    else next = { ...d, selected: l.selected, measured: l.measured, dragging: l.dragging, position: l.dragging ? l.position : d.position };
+    else next = { ...d, selected: l.selected, measured: d.measured ?? l.measured, dragging: l.dragging, position: l.dragging ? l.position : d.position };
     bases.set(d.id, d);
     if (next !== local[i]) changed = true;
     return next;

@@ -3,8 +3,8 @@
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */
-import { memo, useContext, useEffect, useMemo, useRef, useState } from 'react';
-import { Handle, Position, useUpdateNodeInternals, type NodeProps } from '@xyflow/react';
+import { memo, useContext, useMemo, useState, type MouseEvent } from 'react';
+import { Handle, Position, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
 import { levelColor } from '../lib/colors';
@@ -16,24 +16,13 @@ import { usePartActions } from './part-actions';
 import type { PartNode } from './types';
 import { FarContext } from './zoom-detail';
 
-
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
-function PartNodeView({ id, data, selected }: NodeProps<PartNode>) {
+function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const { part, levels, shown, badge, highlight, remoteColor, readOnly, mark, pins } = data;
   const modulePins = useMemo(() => (pins && part.kind === 'module' ? new Map([[part.module, pins]]) : undefined), [part, pins]);
   const shape = useMemo(() => placedShape(part, modulePins), [part, modulePins]);
   const pinNames = useMemo(() => allPins(part, modulePins), [part, modulePins]);
-  // An instance gains or loses a pin when its module's ports change, often at the same box size: React
-  // Flow measures handles again only on a resize, so a wire to the new pin would not be drawn.
-  const updateInternals = useUpdateNodeInternals();
-  const pinKey = pinNames.join(' ');
-  const measuredPins = useRef(pinKey);
-  useEffect(() => {
-    if (measuredPins.current === pinKey) return;
-    measuredPins.current = pinKey;
-    updateInternals(id);
-  }, [id, pinKey, updateInternals]);
   const actions = usePartActions();
   const [renaming, setRenaming] = useState(false);
   const far = useContext(FarContext);
@@ -47,15 +36,26 @@ function PartNodeView({ id, data, selected }: NodeProps<PartNode>) {
   if (mark) classes.push(`gf-mark gf-mark-${mark}`);
   // A collaborator's selection (box-shadow) shows even when the part is selected here too (dashed outline).
   const outline = remoteColor ? { boxShadow: `0 0 0 2px ${remoteColor}` } : undefined;
+  const onDoubleClick = part.kind === 'module' ? (e: MouseEvent) => { e.stopPropagation(); actions.openModule(part.module); }
+    : part.kind === 'note' || readOnly ? undefined : (e: MouseEvent) => { e.stopPropagation(); setRenaming(true); };
+  const badgeMark = badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null;
+  // Zoomed out: one plain box per part — no symbol, no pins, no label (a few pixels high at this zoom).
+  // The wires still end on the pins: React Flow has the pins' boxes from the node (derive-flow's
+  // shapeWithHandles), which also redraws the wires of an instance whose module gains or loses a port.
+  if (far) {
+    return (
+      <div className={`${classes.join(' ')} gf-far`} data-testid={`part-${part.id}`} data-kind={part.kind}
+        style={{ width: shape.w, height: shape.h, ...outline }} onDoubleClick={onDoubleClick}>
+        {renaming && <PartLabel partId={part.id} label={part.label} editing onDone={() => setRenaming(false)} />}
+        {badgeMark}
+      </div>
+    );
+  }
   return (
     <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
-      style={{ width: shape.w, height: shape.h, ...outline }}
-      onDoubleClick={part.kind === 'module' ? (e) => { e.stopPropagation(); actions.openModule(part.module); }
-        : part.kind === 'note' || readOnly ? undefined : (e) => { e.stopPropagation(); setRenaming(true); }}>
+      style={{ width: shape.w, height: shape.h, ...outline }} onDoubleClick={onDoubleClick}>
       <PartLabel partId={part.id} label={part.label} editing={renaming} onDone={() => setRenaming(false)} />
-      {far ? (
-        <div className="gf-far" data-kind={part.kind} />
-      ) : part.kind === 'note' ? (
+      {part.kind === 'note' ? (
         <NoteSymbol part={part} />
       ) : (
         <svg width={shape.w} height={shape.h} viewBox={`0 0 ${shape.w} ${shape.h}`} className="gf-symbol" overflow="visible">
@@ -68,21 +68,13 @@ function PartNodeView({ id, data, selected }: NodeProps<PartNode>) {
         const style = { left: spot.x, top: spot.y, right: 'auto', bottom: 'auto', transform: 'translate(-50%, -50%)', borderColor: levelColor(level(spot.pin)) };
         const testId = `pin-${part.id}-${spot.pin}`;
         const title = `${part.id}.${spot.pin}`;
-        // Zoomed out the pins are hidden and cannot be wired: a plain marker with the classes and data
-        // attributes the canvas measures pin positions from (wires still end on it) costs no store
-        // subscription, where a live handle costs one per pin on every pan frame.
-        if (far) {
-          const type = spot.output ? 'source' : 'target';
-          return <div key={spot.pin} data-handleid={spot.pin} data-handlepos={POSITION[spot.side]} data-nodeid={part.id} data-testid={testId} title={title}
-            className={`react-flow__handle react-flow__handle-${POSITION[spot.side]} ${type} gf-pin ${spot.output ? 'gf-pin-out' : 'gf-pin-in'} gf-pin-far`} style={style} />;
-        }
         return (
           <Handle key={spot.pin} id={spot.pin} type={spot.output ? 'source' : 'target'} position={POSITION[spot.side]}
             isConnectable={!readOnly} data-testid={testId} title={title}
             className={spot.output ? 'gf-pin gf-pin-out' : 'gf-pin gf-pin-in'} style={style} />
         );
       })}
-      {badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null}
+      {badgeMark}
     </div>
   );
 }

@@ -3,29 +3,30 @@
  * shared/board/edits. Drag positions travel through awareness while dragging and are written to the
  * document once, on drag stop.
  */
-import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
 import {
-  Background, BackgroundVariant, ConnectionMode, ControlButton, Controls, MiniMap, ReactFlow, useReactFlow, useStore,
-  type Connection, type OnSelectionChangeParams,
+  ConnectionMode, ControlButton, Controls, getNodesBounds, getViewportForBounds, MiniMap, ReactFlow,
+  useReactFlow, useStore, type Connection, type OnSelectionChangeParams, type ReactFlowState,
 } from '@xyflow/react';
 import { toast } from 'sonner';
 import { connect, movePart, relabelPart, setPartField } from '../../../../shared/board';
 import { modulePinTable, partsMap } from '../../../../shared/board';
 import { ModulesContext, type ModulesView } from '../modules/modules-context';
-import { INK, SIGNAL } from '../lib/colors';
+import { SIGNAL } from '../lib/colors';
 import { GRID, snap } from '../lib/geometry';
 import { labelProblem } from '../lib/labels';
 import type { TrayChoice } from '../lib/new-part';
 import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
-import { FarContext, zoomedOut } from '../flow/zoom-detail';
+import { FarContext, leastZoom, zoomedOut } from '../flow/zoom-detail';
 import type { PartNode, WireEdge } from '../flow/types';
 import { RemoteCursors } from '../presence/remote-cursors';
 import { throttle, type PeersView } from '../session/awareness';
 import type { BoardSession } from '../session/use-board-session';
 import { TRAY_MIME } from '../tray/tray-items';
 import { HelpSheet } from '../toolbar/help-sheet';
+import { CanvasGrid } from './canvas-grid';
 import { useCanvasCommands } from './use-canvas-commands';
 import { useFlowState, type OverlayProps } from './use-flow-state';
 
@@ -35,6 +36,10 @@ const SNAP: [number, number] = [GRID, GRID];
 const MINIMAP_AUTO_LIMIT = 400;
 
 const minimapColor = () => '#3a4654';
+const FIT_PADDING = 0.15;
+const FIT_MAX_ZOOM = 1.25;
+const paneWidth = (s: ReactFlowState) => s.width;
+const paneHeight = (s: ReactFlowState) => s.height;
 
 export interface BoardCanvasProps extends OverlayProps {
   session: BoardSession;
@@ -78,13 +83,23 @@ export function BoardCanvas(props: BoardCanvasProps) {
     onReady?.({ run: commands.run, nodes: () => nodesRef.current, selectedCount: () => nodesRef.current.filter((n) => n.selected).length });
   }, [onReady, commands.run]);
 
-  // Fit the board into view once, when it first arrives.
+  // The least zoom lets fit-to-view show the whole of a large board (see leastZoom).
+  const paneW = useStore(paneWidth);
+  const paneH = useStore(paneHeight);
+  const bounds = useMemo(() => getNodesBounds(flow.nodes), [flow.nodes]);
+  const minZoom = leastZoom(bounds, paneW, paneH, FIT_PADDING);
+  // Fit the board into view once, when it first arrives: before the browser paints, so the parts are
+  // drawn once, at the fitted zoom (plain boxes on a large board), not first in detail at zoom 1.
   const fitted = useRef(false);
-  useEffect(() => {
-    if (fitted.current || !ready || !session.synced || flow.nodes.length === 0) return;
+  useLayoutEffect(() => {
+    if (fitted.current || !ready || !session.synced || flow.nodes.length === 0 || !paneW || !paneH) return;
     fitted.current = true;
-    requestAnimationFrame(() => void rf.fitView({ padding: 0.15, maxZoom: 1.25 }));
-  }, [ready, session.synced, flow.nodes.length, rf]);
+    void rf.setViewport(getViewportForBounds(bounds, paneW, paneH, minZoom, FIT_MAX_ZOOM, FIT_PADDING));
+  }, [ready, session.synced, flow.nodes.length, rf, bounds, paneW, paneH, minZoom]);
+  // While the view moves the parts and wires are one composited layer (canvas.css .gf-moving).
+  const canvasRef = useRef<HTMLDivElement>(null);
+  const onMoveStart = useCallback(() => canvasRef.current?.classList.add('gf-moving'), []);
+  const onMoveEnd = useCallback(() => canvasRef.current?.classList.remove('gf-moving'), []);
 
   // Symbols act through these; the object never changes, the refs carry the current session.
   const live = useRef({ session, onTryOut: props.onTryOut, tryOut: props.tryOutValues, onOpenModule: props.onOpenModule });
@@ -178,7 +193,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
     <PartActionsContext.Provider value={actions}>
       <ModulesContext.Provider value={modulesView}>
       <FarContext.Provider value={far}>
-      <div className={`gf-canvas relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="board-canvas" data-readonly={readOnly ? 'true' : 'false'}
+      <div ref={canvasRef} className={`gf-canvas relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="board-canvas" data-readonly={readOnly ? 'true' : 'false'}
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
           nodes={flow.nodes}
@@ -193,26 +208,31 @@ export function BoardCanvas(props: BoardCanvasProps) {
           onSelectionChange={onSelectionChange}
           onPaneClick={onPaneClick}
           onInit={() => setReady(true)}
+          onMoveStart={onMoveStart}
+          onMoveEnd={onMoveEnd}
           connectionMode={ConnectionMode.Loose}
           snapToGrid
           snapGrid={SNAP}
-          onlyRenderVisibleElements
+          // Zoomed in, only the parts in view are in the page (full symbols are heavy). Zoomed out the whole
+          // board is plain boxes and mostly in view: culling would only mount and unmount parts at the
+          // edges on every pan frame, each a repaint of the moving layer.
+          onlyRenderVisibleElements={!far}
           nodesDraggable={!readOnly}
           nodesConnectable={!readOnly}
           elementsSelectable
           deleteKeyCode={null}
           selectionKeyCode="Shift"
           multiSelectionKeyCode={['Control', 'Meta']}
-          minZoom={0.1}
+          minZoom={minZoom}
           maxZoom={3}
           colorMode="dark"
           connectionLineStyle={{ stroke: SIGNAL.high, strokeWidth: 2 }}
           defaultEdgeOptions={{ type: 'wire' }}
           proOptions={{ hideAttribution: true }}
         >
-          {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots
-              rasterised again on every pan frame (no GPU). Every fifth dot keeps the grid readable. */}
-          <Background variant={BackgroundVariant.Dots} gap={far ? GRID * 5 : GRID} size={1.2} color={INK.grid} bgColor={INK.canvas} />
+          {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots.
+              Every fifth dot keeps the grid readable. */}
+          <CanvasGrid far={far} />
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
