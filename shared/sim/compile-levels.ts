@@ -76,28 +76,69 @@ function numberNets(root: (s: number) => number, nSlots: number, nNodes: number)
   return { slotNet, nNets };
 }
 
+/**
+ * Part ids → index (the first part with that id), looked up by the part half of a pin reference without
+ * cutting it out of the reference: an open-addressing table over a hash of the id's characters. A board
+ * has a few wire ends per part, and a cut-out string per end was a fifth of compiling a flat board.
+ */
+class IdTable {
+  private readonly slots: Int32Array;
+  private readonly mask: number;
+
+  constructor(private readonly parts: readonly Part[]) {
+    let size = 16;
+    while (size < parts.length * 2) size *= 2;
+    this.mask = size - 1;
+    this.slots = new Int32Array(size).fill(-1);
+    for (let p = 0; p < parts.length; p++) {
+      const id = parts[p].id;
+      let h = IdTable.hash(id, id.length) & this.mask;
+      for (;;) {
+        const q = this.slots[h];
+        if (q < 0) { this.slots[h] = p; break; }
+        if (parts[q].id === id) break; // a repeated id: the first part keeps it
+        h = (h + 1) & this.mask;
+      }
+    }
+  }
+
+  private static hash(text: string, end: number): number {
+    let h = 0x811c9dc5;
+    for (let i = 0; i < end; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+    return h >>> 0;
+  }
+
+  /** Index of the part whose id is ref[0 … end), −1 when none. */
+  find(ref: string, end: number): number {
+    let h = IdTable.hash(ref, end) & this.mask;
+    for (;;) {
+      const q = this.slots[h];
+      if (q < 0) return -1;
+      const id = this.parts[q].id;
+      if (id.length === end && ref.startsWith(id)) return q;
+      h = (h + 1) & this.mask;
+    }
+  }
+}
+
 /** The layout of a board without modules (every part real; wires to unknown parts or pins skipped). */
 export function flatLayout(board: BoardFile): PinLayout {
   const parts = board.parts;
   const n = parts.length;
-  const index = new Map<string, number>();
   const pins: PinSet[] = new Array<PinSet>(n);
   const slotBase = new Int32Array(n + 1);
-  let repeats = false;
   for (let p = 0; p < n; p++) {
-    const part = parts[p];
-    if (!index.has(part.id)) index.set(part.id, p);
-    else repeats = true;
-    const pp = pinsFor(part);
+    const pp = pinsFor(parts[p]);
     pins[p] = pp;
     slotBase[p + 1] = slotBase[p] + pp.inputs.length + pp.outputs.length;
   }
+  const ids = new IdTable(parts);
   const nSlots = slotBase[n];
   const slotOf = (ref: string): number => {
     const dot = ref.lastIndexOf('.');
     if (dot <= 0 || dot === ref.length - 1) return -1;
-    const p = index.get(ref.slice(0, dot));
-    if (p === undefined) return -1;
+    const p = ids.find(ref, dot);
+    if (p < 0) return -1;
     const pp = pins[p];
     const i = pinIndex(pp.inputs, ref, dot + 1);
     if (i >= 0) return slotBase[p] + i;
@@ -113,7 +154,16 @@ export function flatLayout(board: BoardFile): PinLayout {
     if (b >= 0) union(parent, a, b);
   }
   const { slotNet, nNets } = numberNets((s) => find(parent, s), nSlots, nSlots);
-  return { parts: parts as Part[], pins, slotBase, slotNet, nNets, index: () => index, repeats };
+  let index: Map<string, number> | undefined;
+  let repeats = false;
+  for (let p = 0; p < n && !repeats; p++) repeats = ids.find(parts[p].id, parts[p].id.length) !== p;
+  return {
+    parts: parts as Part[], pins, slotBase, slotNet, nNets, repeats,
+    index: () => {
+      if (!index) { index = new Map(); for (let p = 0; p < n; p++) if (!index.has(parts[p].id)) index.set(parts[p].id, p); }
+      return index;
+    },
+  };
 }
 
 /** One module's inside, laid out once per compile and copied for each instance. */
