@@ -28,8 +28,12 @@ const RECORD = join(OUT_DIR, 'build.json');
 const CACHE_DIR = join(OUT_DIR, 'code-cache');
 const command = process.argv[2];
 
-/** The bundle to run and its record entry, when that bundle is current; else null. */
-function current() {
+/**
+ * The bundle to run and its record entry, when that bundle is current; else null. With `check` false, the
+ * bundle the record names whenever it is there (after a build, which a concurrent build may have replaced
+ * with the same code a moment later).
+ */
+function current(check = true) {
   let record;
   try {
     record = JSON.parse(readFileSync(RECORD, 'utf8'));
@@ -41,7 +45,9 @@ function current() {
   const entry = record.bundles[name];
   const file = join(OUT_DIR, name);
   const st = statSync(file, { throwIfNoEntry: false });
-  if (!entry || !st || st.size !== entry.size || st.mtimeMs !== entry.mtimeMs) return null;
+  if (!entry || !st) return null;
+  if (!check) return { file, entry };
+  if (st.size !== entry.size || st.mtimeMs !== entry.mtimeMs) return null;
   for (const source of entry.sources) {
     const s = statSync(join(ROOT, source), { throwIfNoEntry: false });
     if (!s || s.mtimeMs > entry.mtimeMs) return null; // a source changed, moved or was removed
@@ -85,10 +91,15 @@ const bundle = current();
 if (bundle) {
   run(bundle);
 } else {
-  import(require('node:url').pathToFileURL(join(__dirname, 'build-cli.mjs')).href).then(async ({ buildCli }) => {
-    await buildCli();
-    const built = current();
-    if (!built) throw new Error('dist-cli: the build did not leave a current bundle');
-    run(built);
-  });
+  import(require('node:url').pathToFileURL(join(__dirname, 'build-cli.mjs')).href)
+    .then(({ buildCli }) => buildCli())
+    .then(() => {
+      const built = current(false);
+      if (!built) throw new Error('the build left no bundle');
+      run(built);
+    })
+    .catch((err) => {
+      process.stderr.write(`error: internal: cannot build the command line (${String(err?.message ?? err).split('\n')[0]})\n`);
+      process.exitCode = 1;
+    });
 }
