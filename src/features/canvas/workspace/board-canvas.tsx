@@ -19,6 +19,7 @@ import type { TrayChoice } from '../lib/new-part';
 import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
+import { FarWires } from '../flow/far-wires';
 import { FarContext, leastZoom, zoomedOut } from '../flow/zoom-detail';
 import type { PartNode, WireEdge } from '../flow/types';
 import { RemoteCursors } from '../presence/remote-cursors';
@@ -36,6 +37,7 @@ const SNAP: [number, number] = [GRID, GRID];
 const MINIMAP_AUTO_LIMIT = 400;
 
 const minimapColor = () => '#3a4654';
+const NO_WIRES: WireEdge[] = [];
 const FIT_PADDING = 0.15;
 const FIT_MAX_ZOOM = 1.25;
 const paneWidth = (s: ReactFlowState) => s.width;
@@ -197,7 +199,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
           nodes={flow.nodes}
-          edges={flow.edges}
+          edges={far ? NO_WIRES : flow.edges}
           nodeTypes={nodeTypes}
           edgeTypes={edgeTypes}
           onNodesChange={flow.onNodesChange}
@@ -233,6 +235,8 @@ export function BoardCanvas(props: BoardCanvasProps) {
           {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots.
               Every fifth dot keeps the grid readable. */}
           <CanvasGrid far={far} />
+          {/* zoomed out the wires are one drawing, not an edge each (flow/far-wires.tsx) */}
+          {far && <FarWires nodes={flow.nodes} edges={flow.edges} />}
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
