@@ -13,9 +13,9 @@
  *   working set of a block is the largest number of values live at once, not the number of nets.
  * - Ops are flat in one Int32Array, offsets already in words: `[code, out, …]` (layouts in `bit-kernel.ts`).
  */
-import { isInputKind, type Part } from '../board';
+import type { Part } from '../board';
 import type { CompiledPart, Level, Netlist } from '../sim';
-import type { Levelised } from './levelise';
+import type { Cone } from './cone';
 import { OP } from './bit-kernel';
 
 export { OP } from './bit-kernel';
@@ -60,11 +60,11 @@ const KIND_AND = 1;
 const KIND_XOR = 2;
 const KIND_MUX = 3;
 const KIND_ALIAS = 4;
-/** How a combinational kind is compiled: group, output inverted, inputs inverted (OR = AND of inverses). */
-const KINDS: Record<string, readonly [number, number, number] | undefined> = {
-  buffer: [KIND_ALIAS, 0, 0], not: [KIND_ALIAS, 1, 0],
-  and: [KIND_AND, 0, 0], nand: [KIND_AND, 1, 0], or: [KIND_AND, 1, 1], nor: [KIND_AND, 0, 1],
-  xor: [KIND_XOR, 0, 0], xnor: [KIND_XOR, 1, 0], mux2: [KIND_MUX, 0, 0], mux4: [KIND_MUX, 0, 0],
+/** How a combinational kind is compiled: group | output inverted << 3 | inputs inverted << 4 (OR = AND of inverses). */
+const KIND_CODE: Record<string, number | undefined> = {
+  buffer: KIND_ALIAS, not: KIND_ALIAS | 8,
+  and: KIND_AND, nand: KIND_AND | 8, or: KIND_AND | 8 | 16, nor: KIND_AND | 16,
+  xor: KIND_XOR, xnor: KIND_XOR | 8, mux2: KIND_MUX, mux4: KIND_MUX,
 };
 
 /** Where a source net's level comes from. */
@@ -78,24 +78,17 @@ const SRC_ONE = 5;
  * Compiles the program that computes `nets` (the nets the outputs read, none of them stateful) with the
  * given inputs enumerated (first = most significant bit of the row number). `floating` is what a reader
  * of an undriven net sees; `fourValued` keeps the two planes even where one would do (the reference
- * path for tests and the benchmark).
+ * path for tests and the benchmark). Plain loops over typed arrays: in a fresh process this runs
+ * before it is optimised, so its cost is the number of operations per part.
  */
 export function compileBitProgram(
-  netlist: Netlist, lev: Levelised, inputs: CompiledPart[], nets: number[], floating: Level, totalWords: number, fourValued = false,
+  netlist: Netlist, cone: Cone, inputs: CompiledPart[], nets: number[], floating: Level, totalWords: number, fourValued = false,
 ): BitProgram {
   const nNets = netlist.nets.length;
   const parts = netlist.parts;
-  // the part (and pin) driving each net that has exactly one driver
-  const driver = new Int32Array(nNets).fill(-1);
-  const driverPin = new Int32Array(nNets);
-  const driverCount = new Int32Array(nNets);
-  for (let net = 0; net < nNets; net++) driverCount[net] = netlist.nets[net].drivers.length;
-  for (const p of parts) {
-    const outs = p.outputs;
-    for (let pin = 0; pin < outs.length; pin++) if (driverCount[outs[pin]] === 1) { driver[outs[pin]] = p.index; driverPin[outs[pin]] = pin; }
-  }
+  const { driver, driverPin, driverCount, order, kindClass } = cone;
   const inOrder = new Uint8Array(parts.length);
-  for (const p of lev.order) inOrder[p.index] = 1;
+  for (let i = 0; i < order.length; i++) inOrder[order[i]] = 1;
   const shiftOf = new Int32Array(parts.length).fill(-1);
   for (let i = 0; i < inputs.length; i++) shiftOf[inputs[i].index] = inputs.length - 1 - i;
 
@@ -103,135 +96,165 @@ export function compileBitProgram(
   const needed = new Uint8Array(parts.length);
   const seen = new Uint8Array(nNets);
   const source = new Uint8Array(nNets);
-  const stack: number[] = nets.slice();
+  // a net is pushed once (marked seen when pushed), so the stack never holds more than every net
+  const stack = new Int32Array(nNets);
+  let sp = 0;
+  for (let i = 0; i < nets.length; i++) if (!seen[nets[i]]) { seen[nets[i]] = 1; stack[sp++] = nets[i]; }
   let twoValued = !fourValued;
-  while (stack.length) {
-    const net = stack.pop()!;
-    if (seen[net]) continue;
-    seen[net] = 1;
+  let nNeeded = 0;
+  let codeBound = 0;
+  let maxIn = 1;
+  while (sp > 0) {
+    const net = stack[--sp];
     const d = driver[net];
     if (d >= 0 && inOrder[d]) {
       if (needed[d]) continue;
       needed[d] = 1;
       const ins = parts[d].inputs;
-      for (let i = 0; i < ins.length; i++) stack.push(ins[i]);
+      nNeeded++;
+      codeBound += 4 + 2 * ins.length;
+      if (ins.length > maxIn) maxIn = ins.length;
+      for (let i = 0; i < ins.length; i++) if (!seen[ins[i]]) { seen[ins[i]] = 1; stack[sp++] = ins[i]; }
       continue;
     }
     let src: number;
     if (driverCount[net] === 0) src = floating === '0' ? SRC_ZERO : floating === '1' ? SRC_ONE : SRC_FLOAT;
     else if (d < 0) src = SRC_X; // two or more drivers
     else if (shiftOf[d] >= 0) src = SRC_INPUT;
-    else if (isInputKind(parts[d].kind)) src = (sourceBit(parts[d].part) === '1') !== (driverPin[net] !== 0) ? SRC_ONE : SRC_ZERO;
+    else if (kindClass[d] === 2) src = (sourceBit(parts[d].part) === '1') !== (driverPin[net] !== 0) ? SRC_ONE : SRC_ZERO;
     else src = SRC_X; // not expected: stateful nets are not in a combinational cone
     source[net] = src;
     if (src === SRC_X || src === SRC_FLOAT) twoValued = false;
   }
 
-  const b = new ProgramBuilder(twoValued, nNets);
-  const four = !twoValued;
-  // literals of the sources, made when first read: value × 2 + polarity (four-valued: planes swapped)
-  const litOf = (net: number): number => {
-    const l = b.netLit[net];
-    if (l >= 0) return l;
-    let lit: number;
-    switch (source[net]) {
-      case SRC_INPUT: lit = b.input(shiftOf[driver[net]]) * 2 + (driverPin[net] !== 0 ? 1 : 0); break;
-      case SRC_ONE: lit = b.constant(0) * 2 + 1; break;
-      case SRC_ZERO: lit = b.constant(0) * 2; break;
-      default: lit = b.constant(1) * 2; // X (two-valued never gets here)
-    }
-    b.netLit[net] = lit;
-    return lit;
-  };
-
-  const lits: number[] = [];
-  for (const p of lev.order) {
-    if (!needed[p.index]) continue;
-    const how = KINDS[p.kind];
-    if (!how) throw new Error('not combinational');
-    const [group, outInv, inInv] = how;
-    lits.length = 0;
-    for (const net of p.inputs) lits.push(litOf(net) ^ inInv);
+  const e = new Emitter(twoValued, nNets, codeBound, nNeeded + inputs.length * 2 + 2);
+  const lits = new Int32Array(maxIn);
+  for (let i = 0; i < order.length; i++) {
+    if (!needed[order[i]]) continue;
+    const p = parts[order[i]];
+    const how = KIND_CODE[p.kind];
+    if (how === undefined) throw new Error('not combinational');
+    const group = how & 7;
+    const inInv = (how >> 4) & 1;
+    const ins = p.inputs;
+    const k = ins.length;
+    for (let j = 0; j < k; j++) lits[j] = e.litOf(ins[j], source, shiftOf, driver, driverPin) ^ inInv;
     let out: number;
-    if (group === KIND_ALIAS || lits.length === 1) out = lits[0] ^ outInv;
-    else if (group === KIND_AND) out = b.and(lits) ^ outInv;
-    else if (group === KIND_XOR) out = b.xor(lits) ^ outInv;
-    else out = b.mux(lits);
-    b.netLit[p.outputs[0]] = out;
+    if (group === KIND_ALIAS || k === 1) out = lits[0];
+    else if (group === KIND_AND) out = e.and(lits, k);
+    else if (group === KIND_XOR) out = e.xor(lits, k);
+    else out = e.mux(lits, k);
+    e.netLit[p.outputs[0]] = out ^ ((how >> 3) & 1);
   }
-  const outLits = nets.map((net) => (driverCount[net] === 0 ? -1 : litOf(net)));
-  for (const l of outLits) if (l >= 0) b.keep(l >> 1);
+  const outLits = new Int32Array(nets.length);
+  for (let i = 0; i < nets.length; i++) {
+    outLits[i] = driverCount[nets[i]] === 0 ? -1 : e.litOf(nets[i], source, shiftOf, driver, driverPin);
+    if (outLits[i] >= 0) e.keep(outLits[i] >> 1);
+  }
 
-  const slots = b.allocate();
+  const slots = e.allocate();
+  const four = !twoValued;
   const planes = four ? 2 : 1;
   const span = Math.max(1, Math.floor(BLOCK_BUDGET_WORDS / Math.max(1, slots) / planes));
   let W = 4; // at least 4: the kernel's loops run in groups of 4 words
   while (W * 2 <= Math.min(span, MAX_W, totalWords)) W *= 2;
-  const ops = b.finish(W);
-  const at = (lit: number, plane: 0 | 1) => b.slotOf[lit >> 1] * planes * W + (four && (lit & 1) !== plane ? W : 0);
+  const ops = e.finish(W);
+  const slotOf = e.slotOf;
+  const stride = planes * W;
   const outputs = new Int32Array(nets.length * 2);
-  outLits.forEach((l, i) => {
-    outputs[2 * i] = l < 0 ? -1 : at(l, 0);
-    outputs[2 * i + 1] = l < 0 ? 0 : four ? at(l, 1) : -(l & 1);
-  });
-  const fixed: number[] = [];
-  for (const [v, kind] of b.constants) {
-    const o = b.slotOf[v] * planes * W;
-    // two-valued: only the zero word; four-valued: 0 is T = 0, F = 1; X is neither
-    fixed.push(o, 0);
-    if (four) fixed.push(o + W, kind === 0 ? -1 : 0);
+  for (let i = 0; i < nets.length; i++) {
+    const l = outLits[i];
+    if (l < 0) { outputs[2 * i] = -1; continue; }
+    const o = slotOf[l >> 1] * stride;
+    // four-valued: a literal read inverted has its planes swapped
+    outputs[2 * i] = four && (l & 1) ? o + W : o;
+    outputs[2 * i + 1] = four ? ((l & 1) ? o : o + W) : -(l & 1);
   }
-  const inputWords: number[] = [];
-  for (const [v, shift] of b.inputs) inputWords.push(b.slotOf[v] * planes * W, shift);
-  return { twoValued, W, size: Math.max(1, slots * planes * W), slots, ops, fixed: Int32Array.from(fixed), inputs: Int32Array.from(inputWords), outputs };
+  const fixed = new Int32Array(e.nConst * planes * 2);
+  for (let i = 0, f = 0; i < e.nConst; i++) {
+    const o = slotOf[e.constVal[i]] * stride;
+    // two-valued: only the zero word; four-valued: 0 is T = 0, F = 1; X is neither
+    fixed[f++] = o;
+    fixed[f++] = 0;
+    if (four) { fixed[f++] = o + W; fixed[f++] = e.constKind[i] === 0 ? -1 : 0; }
+  }
+  const inputWords = new Int32Array(e.nInputs * 2);
+  for (let i = 0; i < e.nInputs; i++) { inputWords[2 * i] = slotOf[e.inputVal[i]] * stride; inputWords[2 * i + 1] = e.inputShift[i]; }
+  return { twoValued, W, size: Math.max(1, slots * stride), slots, ops, fixed, inputs: inputWords, outputs };
 }
 
 /**
  * Builds the op list on values (not yet slots), then gives each value a slot by liveness and writes
- * the offsets. A reference to a value in the op list is recorded with its position and plane.
+ * the offsets. Every reference to a value in the op list is recorded with its position and plane.
  */
-class ProgramBuilder {
+class Emitter {
   readonly netLit: Int32Array;
-  /** constant values: [value, 0 = zero, 1 = X] */
-  readonly constants: [number, number][] = [];
-  /** input values: [value, bit of the row number] */
-  readonly inputs: [number, number][] = [];
+  /** constant values (the zero word; four-valued also X) and their kinds (0 zero, 1 X) */
+  readonly constVal = new Int32Array(2);
+  readonly constKind = new Int32Array(2);
+  nConst = 0;
+  /** enumerated inputs' values and their bits of the row number */
+  readonly inputVal: Int32Array;
+  readonly inputShift: Int32Array;
+  nInputs = 0;
   slotOf = new Int32Array(0);
-  private readonly code: number[] = [];
-  /** per reference: its position in `code`; value × 4 + kind (0 output, 1 T plane or word, 2 F plane) */
-  private readonly refPos: number[] = [];
-  private readonly refVal: number[] = [];
+  private readonly code: Int32Array;
+  private len = 0;
+  /** per reference: its position in `code`, and value × 4 + kind (0 output, 1 T plane or word, 2 F plane) */
+  private readonly refPos: Int32Array;
+  private readonly refVal: Int32Array;
+  private nRefs = 0;
   /** first reference of each op */
-  private readonly opRef: number[] = [];
-  private lastUse: number[] = [];
-  private readonly permanent: number[] = [];
+  private readonly opRef: Int32Array;
+  private nOps = 0;
+  private readonly lastUse: Int32Array;
+  private readonly permanent: Uint8Array;
   private values = 0;
   private zero = -1;
   private unknown = -1;
 
-  constructor(private readonly two: boolean, nNets: number) {
+  constructor(private readonly two: boolean, nNets: number, codeBound: number, valueBound: number) {
     this.netLit = new Int32Array(nNets).fill(-1);
+    this.code = new Int32Array(codeBound);
+    this.refPos = new Int32Array(codeBound);
+    this.refVal = new Int32Array(codeBound);
+    this.opRef = new Int32Array(valueBound + 1);
+    this.lastUse = new Int32Array(valueBound).fill(-1);
+    this.permanent = new Uint8Array(valueBound);
+    this.inputVal = new Int32Array(valueBound);
+    this.inputShift = new Int32Array(valueBound);
   }
 
-  private value(permanent: boolean): number {
-    const v = this.values++;
-    this.lastUse.push(-1);
-    if (permanent) this.permanent.push(v);
-    return v;
-  }
-
-  input(shift: number): number {
-    const v = this.value(true);
-    this.inputs.push([v, shift]);
-    return v;
+  /** A net's literal (value × 2 + inverted); a source's value is made when it is first read. */
+  litOf(net: number, source: Uint8Array, shiftOf: Int32Array, driver: Int32Array, driverPin: Int32Array): number {
+    const l = this.netLit[net];
+    if (l >= 0) return l;
+    let lit: number;
+    switch (source[net]) {
+      case SRC_INPUT: {
+        const v = this.values++;
+        this.permanent[v] = 1;
+        this.inputVal[this.nInputs] = v;
+        this.inputShift[this.nInputs++] = shiftOf[driver[net]];
+        lit = v * 2 + (driverPin[net] !== 0 ? 1 : 0);
+        break;
+      }
+      case SRC_ONE: lit = this.constant(0) * 2 + 1; break;
+      case SRC_ZERO: lit = this.constant(0) * 2; break;
+      default: lit = this.constant(1) * 2; // X (two-valued never gets here)
+    }
+    this.netLit[net] = lit;
+    return lit;
   }
 
   /** The zero value (kind 0) or the X value (kind 1, four-valued only). */
-  constant(kind: 0 | 1): number {
+  private constant(kind: 0 | 1): number {
     if (kind === 0 && this.zero >= 0) return this.zero;
     if (kind === 1 && this.unknown >= 0) return this.unknown;
-    const v = this.value(true);
-    this.constants.push([v, kind]);
+    const v = this.values++;
+    this.permanent[v] = 1;
+    this.constVal[this.nConst] = v;
+    this.constKind[this.nConst++] = kind;
     if (kind === 0) this.zero = v; else this.unknown = v;
     return v;
   }
@@ -242,79 +265,84 @@ class ProgramBuilder {
   }
 
   private begin(code: number): number {
-    this.opRef.push(this.refPos.length);
-    this.code.push(code, 0);
-    const out = this.value(false);
-    this.ref(this.code.length - 1, out, 0);
+    this.opRef[this.nOps++] = this.nRefs;
+    this.code[this.len++] = code;
+    const out = this.values++;
+    this.ref(out, 0);
     return out;
   }
 
-  private ref(pos: number, v: number, kind: number): void {
-    this.refPos.push(pos);
-    this.refVal.push(v * 4 + kind);
-    if (kind !== 0) this.lastUse[v] = this.opRef.length - 1;
+  /** Appends a reference to value v (kind: 0 output, 1 T plane or word, 2 F plane). */
+  private ref(v: number, kind: number): void {
+    this.refPos[this.nRefs] = this.len++;
+    this.refVal[this.nRefs++] = v * 4 + kind;
+    if (kind !== 0) this.lastUse[v] = this.nOps - 1;
   }
 
   /** A word (two-valued) or the T plane of a literal (four-valued). */
   private word(lit: number): void {
-    this.code.push(0);
-    this.ref(this.code.length - 1, lit >> 1, this.two || (lit & 1) === 0 ? 1 : 2);
+    this.ref(lit >> 1, this.two || (lit & 1) === 0 ? 1 : 2);
   }
 
   /** The F plane of a four-valued literal. */
   private fword(lit: number): void {
-    this.code.push(0);
-    this.ref(this.code.length - 1, lit >> 1, (lit & 1) === 0 ? 2 : 1);
+    this.ref(lit >> 1, (lit & 1) === 0 ? 2 : 1);
   }
 
-  /** AND of literals; returns the result's literal. */
-  and(lits: number[]): number {
-    const k = lits.length;
+  private push(x: number): void {
+    this.code[this.len++] = x;
+  }
+
+  /** AND of k literals; returns the result's literal. */
+  and(lits: Int32Array, k: number): number {
     if (!this.two) {
       const out = this.begin(OP.and4);
-      this.code.push(k);
-      for (const l of lits) { this.word(l); this.fword(l); }
+      this.push(k);
+      for (let i = 0; i < k; i++) { this.word(lits[i]); this.fword(lits[i]); }
       return out * 2;
     }
     const out = this.begin(k === 2 ? OP.and2 : k === 3 ? OP.and3 : OP.andk);
-    if (k > 3) this.code.push(k);
-    for (const l of lits) { this.word(l); this.code.push(-(l & 1)); }
+    if (k > 3) this.push(k);
+    for (let i = 0; i < k; i++) { this.word(lits[i]); this.push(-(lits[i] & 1)); }
     return out * 2;
   }
 
-  /** XOR of literals; returns the result's literal. */
-  xor(lits: number[]): number {
-    const k = lits.length;
+  /** XOR of k literals; returns the result's literal. */
+  xor(lits: Int32Array, k: number): number {
     if (!this.two) {
       const out = this.begin(OP.xor4);
-      this.code.push(k);
-      for (const l of lits) { this.word(l); this.fword(l); }
+      this.push(k);
+      for (let i = 0; i < k; i++) { this.word(lits[i]); this.fword(lits[i]); }
       return out * 2;
     }
     const out = this.begin(k === 2 ? OP.xor2 : k === 3 ? OP.xor3 : OP.xork);
-    if (k > 3) this.code.push(k);
+    if (k > 3) this.push(k);
     let pol = 0;
-    for (const l of lits) { this.word(l); pol ^= l & 1; }
+    for (let i = 0; i < k; i++) { this.word(lits[i]); pol ^= lits[i] & 1; }
     return out * 2 + pol;
   }
 
   /** A multiplexer: select literals (sel0 first), then data literals; returns the result's literal. */
-  mux(lits: number[]): number {
-    const sels = lits.length === 3 ? 1 : 2;
+  mux(lits: Int32Array, k: number): number {
+    const sels = k === 3 ? 1 : 2;
     if (!this.two) {
       const out = this.begin(sels === 1 ? OP.mux2f : OP.mux4f);
-      for (const l of lits) { this.word(l); this.fword(l); }
+      for (let i = 0; i < k; i++) { this.word(lits[i]); this.fword(lits[i]); }
       return out * 2;
     }
-    // an inverted select swaps the data inputs it chooses between
-    const data = lits.slice(sels);
+    // an inverted select swaps the data inputs it chooses between (lits is scratch: swapped in place)
     for (let s = 0; s < sels; s++) {
       if ((lits[s] & 1) === 0) continue;
-      for (let d = 0; d < data.length; d++) if ((d & (1 << s)) === 0) [data[d], data[d | (1 << s)]] = [data[d | (1 << s)], data[d]];
+      for (let d = 0; d < k - sels; d++) {
+        if ((d & (1 << s)) !== 0) continue;
+        const x = lits[sels + d];
+        lits[sels + d] = lits[sels + (d | (1 << s))];
+        lits[sels + (d | (1 << s))] = x;
+      }
     }
     const out = this.begin(sels === 1 ? OP.mux2 : OP.mux4);
     for (let s = 0; s < sels; s++) this.word(lits[s] & ~1);
-    for (const l of data) { this.word(l); this.code.push(-(l & 1)); }
+    for (let i = sels; i < k; i++) { this.word(lits[i]); this.push(-(lits[i] & 1)); }
     return out * 2;
   }
 
@@ -322,22 +350,22 @@ class ProgramBuilder {
   allocate(): number {
     const slotOf = new Int32Array(this.values).fill(-1);
     let slots = 0;
-    for (const v of this.permanent) slotOf[v] = slots++;
+    for (let v = 0; v < this.values; v++) if (this.permanent[v]) slotOf[v] = slots++;
     const permanent = slots;
-    const free: number[] = [];
-    const { refVal, opRef, lastUse } = this;
-    const nOps = opRef.length;
+    const free = new Int32Array(this.values + 1);
+    let nFree = 0;
+    const { refVal, opRef, lastUse, nOps, nRefs } = this;
     for (let i = 0; i < nOps; i++) {
       const r0 = opRef[i];
-      const r1 = i + 1 < nOps ? opRef[i + 1] : refVal.length;
-      // inputs read at word j before the output is written at word j: the output may take a freed input's slot
+      const r1 = i + 1 < nOps ? opRef[i + 1] : nRefs;
+      // inputs are read at word j before the output is written at word j: the output may take a freed input's slot
       for (let r = r0 + 1; r < r1; r++) {
         const v = refVal[r] >> 2;
-        if (lastUse[v] === i && slotOf[v] >= permanent) { free.push(slotOf[v]); lastUse[v] = -2; }
+        if (lastUse[v] === i && slotOf[v] >= permanent) { free[nFree++] = slotOf[v]; lastUse[v] = -2; }
       }
       const out = refVal[r0] >> 2;
-      slotOf[out] = free.length ? free.pop()! : slots++;
-      if (lastUse[out] === -1) free.push(slotOf[out]); // read by nothing
+      slotOf[out] = nFree > 0 ? free[--nFree] : slots++;
+      if (lastUse[out] === -1) free[nFree++] = slotOf[out]; // read by nothing
     }
     this.slotOf = slotOf;
     return slots;
@@ -345,13 +373,10 @@ class ProgramBuilder {
 
   /** The op list with offsets in words for W words per plane. */
   finish(W: number): Int32Array {
-    const ops = Int32Array.from(this.code);
-    const planes = this.two ? 1 : 2;
-    const { refPos, refVal, slotOf } = this;
-    for (let r = 0; r < refPos.length; r++) {
-      const kind = refVal[r] & 3;
-      ops[refPos[r]] = slotOf[refVal[r] >> 2] * planes * W + (kind === 2 ? W : 0);
-    }
+    const ops = this.code.slice(0, this.len);
+    const stride = this.two ? W : 2 * W;
+    const { refPos, refVal, slotOf, nRefs } = this;
+    for (let r = 0; r < nRefs; r++) ops[refPos[r]] = slotOf[refVal[r] >> 2] * stride + ((refVal[r] & 3) === 2 ? W : 0);
     return ops;
   }
 }

@@ -1,7 +1,7 @@
 import { Simulator, type Netlist } from '../sim';
 import { BitParallelEvaluator } from './bit-parallel';
 import { compileBitProgram } from './bit-program';
-import { levelise, type Levelised } from './levelise';
+import { tableCone } from './cone';
 import { familyFloating } from './floating';
 import type { TableSpec } from './table-spec';
 
@@ -46,8 +46,8 @@ export interface EnumerateOptions {
 export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: EnumerateOptions = {}): Generator<TableProgress, TruthTable> {
   const k = spec.inputs.length;
   const rowCount = 2 ** k;
-  const lev: Levelised = levelise(netlist);
-  const sequential = spec.outputs.map((o) => lev.stateful[o.inputs[0]] === 1);
+  const cone = tableCone(netlist, spec.outputs.map((o) => o.inputs[0]));
+  const sequential = spec.outputs.map((_, i) => cone.stateful[i] === 1);
   const useEvent = spec.outputs.map((_, i) => opts.eventOnly === true || sequential[i]);
   const values = spec.outputs.map(() => new Uint8Array(rowCount));
   const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 8192) / 32) * 32);
@@ -56,7 +56,7 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
   const direct = spec.outputs.flatMap((o, i) => (useEvent[i] ? [] : [i]));
   if (direct.length) {
     const totalWords = Math.ceil(rowCount / 32);
-    const prog = compileBitProgram(netlist, lev, spec.inputs, direct.map((i) => spec.outputs[i].inputs[0]), familyFloating(netlist.family), totalWords, opts.fourValued);
+    const prog = compileBitProgram(netlist, cone, spec.inputs, direct.map((i) => spec.outputs[i].inputs[0]), familyFloating(netlist.family), totalWords, opts.fourValued);
     const bp = new BitParallelEvaluator(prog);
     const out = direct.map((i) => values[i]);
     const wordsPer = chunk / 32;

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { CODE_CHARS, enumerateTable, levelise, resolveSpec } from '../../shared/analysis';
+import { CODE_CHARS, enumerateTable, resolveSpec } from '../../shared/analysis';
 import { compileBitProgram } from '../../shared/analysis/bit-program';
+import { tableCone } from '../../shared/analysis/cone';
 import { familyOf, compileBoard } from '../../shared/sim';
 import { randomCircuit, type RandomKind } from '../helpers/random-circuit';
 import { randomBoardArb } from './random-board';
@@ -13,7 +14,8 @@ const column = (values: Uint8Array) => Array.from(values, (v) => CODE_CHARS[v]).
 function twoValued(board: ReturnType<typeof randomCircuit>): boolean {
   const netlist = compileBoard(board);
   const spec = resolveSpec(netlist);
-  return compileBitProgram(netlist, levelise(netlist), spec.inputs, spec.outputs.map((o) => o.inputs[0]), familyOf(netlist.family).floating, 1).twoValued;
+  const nets = spec.outputs.map((o) => o.inputs[0]);
+  return compileBitProgram(netlist, tableCone(netlist, nets), spec.inputs, nets, familyOf(netlist.family).floating, 1).twoValued;
 }
 
 describe('two-valued fast path', () => {
