@@ -86,10 +86,13 @@ export class Room {
   private quarantineStored(): QuarantineReport | null {
     try {
       const q = quarantineDoc(this.doc, new ServerOrigin(null, 'quarantine'));
-      if (!q.removed.length && !q.repaired.wires.length && !q.repaired.relabelled.length && !q.problems.length) return null;
+      const { wires, relabelled, parts } = q.repaired;
+      if (!q.removed.length && !wires.length && !relabelled.length && !parts.length && !q.problems.length) return null;
+      // entries inside a module are named <module>/<id>
       console.warn(
         `collab: board ${this.boardId}: the stored board did not pass the board check; removed ${q.removed.length} entr${q.removed.length === 1 ? 'y' : 'ies'}` +
-          ` (${q.removed.map((r) => `${r.where} ${JSON.stringify(r.key).slice(0, 40)}`).join(', ')}), repaired ${q.repaired.wires.length} wire(s) and ${q.repaired.relabelled.length} label(s):` +
+          ` (${q.removed.map((r) => `${r.where} ${JSON.stringify(r.key).slice(0, 40)}`).join(', ')}), repaired ${wires.length} wire(s) and ${relabelled.length} label(s)` +
+          `${parts.length ? `, removed ${parts.length} part(s) the modules' hierarchy does not allow (${parts.slice(0, 10).join(', ')})` : ''}:` +
           ` ${q.problems.slice(0, 5).map((p) => p.message).join('; ')}`,
       );
       return { ...q, at: new Date().toISOString() };
@@ -117,7 +120,10 @@ export class Room {
   private onAfterTransaction = (tr: Y.Transaction): void => {
     if (!this.conns.has(tr.origin as WebSocket)) return;
     const lists = new Set<unknown>([this.doc.getMap('parts'), this.doc.getMap('wires')]);
-    const touched = [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || keys.has('inputs') || (lists.has(type) && keys.size > 0));
+    // inside a module too: a wire to a part someone deleted there, two ports given one label, a nesting cycle
+    const modules = this.doc.share.get('modules') ?? null; // a root, as the transaction names it
+    const touched = (modules !== null && tr.changedParentTypes.has(modules))
+      || [...tr.changed.entries()].some(([type, keys]) => keys.has('label') || keys.has('inputs') || (lists.has(type) && keys.size > 0));
     if (touched) queueMicrotask(this.repair);
   };
 

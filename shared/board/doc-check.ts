@@ -19,6 +19,7 @@ import { PART_FIELDS, docModulePins, metaMap, partsMap, pinExists, readPart, wir
 import { repairBoard } from './edits-bulk';
 import { SIMLOG_ROOT, checkSimLog } from './sim-log';
 import { MODULES_ROOT, checkModulesRoot } from './module-doc-check';
+import { preview, quarantineModules } from './module-repair';
 
 /** The room's simulation record (sim-log.ts), a root of its own with its own check. */
 function simLogProblems(doc: Y.Doc): DocProblem[] {
@@ -243,25 +244,20 @@ export function checkDoc(doc: Y.Doc): DocProblem[] {
 /** What `quarantineDoc` removed and why. */
 export interface Quarantine {
   problems: DocProblem[];
-  /** entries removed, with a short JSON preview of what they held (for the report) */
-  removed: { where: DocProblem['where']; key: string; preview: string }[];
-  repaired: { wires: string[]; relabelled: string[] };
-}
-
-function preview(value: unknown): string {
-  let text: string;
-  try {
-    text = value instanceof Y.AbstractType ? JSON.stringify(value.toJSON()) : JSON.stringify(value) ?? String(value);
-  } catch {
-    text = String(value);
-  }
-  return text.length > 200 ? text.slice(0, 200) + '…' : text;
+  /**
+   * entries removed, with a short JSON preview of what they held (for the report); inside a module
+   * `where` is `modules` and `key` is `<module>/<part or wire id>` (or the module, or `<module>/<field>`)
+   */
+  removed: { where: DocProblem['where'] | 'modules'; key: string; preview: string }[];
+  /** what the merge repair changed (`repairBoard`); inside a module named `<module>/<id>` */
+  repaired: { wires: string[]; relabelled: string[]; parts: string[] };
 }
 
 /**
  * Makes the document a valid board: removes every part, wire and meta value with a shape problem
- * (one transaction with `origin`), then repairs the merge problems (`repairBoard`). Content outside
- * parts/wires/meta is reported, not removed (the board never reads it). Never throws.
+ * (one transaction with `origin`) and every entry under `modules` with one (`quarantineModules`), then
+ * repairs the merge problems, inside modules too (`repairBoard`). Content outside parts/wires/meta/modules
+ * is reported, not removed (the board never reads it). Never throws.
  */
 export function quarantineDoc(doc: Y.Doc, origin: unknown): Quarantine {
   const problems = checkDoc(doc);
@@ -277,6 +273,9 @@ export function quarantineDoc(doc: Y.Doc, origin: unknown): Quarantine {
         map.delete(p.key);
       }
     }, origin);
+  }
+  for (const r of quarantineModules(doc, origin, { part: checkPartEntry, wire: checkWireEntry })) {
+    removed.push({ where: 'modules', key: r.where === 'module' && r.key === r.module ? r.module : `${r.module}/${r.key}`, preview: r.preview });
   }
   const repaired = repairBoard(doc, origin);
   return { problems, removed, repaired };

@@ -7,6 +7,7 @@ import type { BoardFile, Fragment, Part, Wire } from './schema';
 import { splitPinRef } from './pins';
 import { newPartId, newWireId } from './ids';
 import { isInputKind, isOutputKind } from './kinds';
+import { repairModules } from './module-repair';
 import {
   PART_FIELDS, docModulePins, metaMap, moduleToYMap, modulesMap, nextOrder, partToYMap, partsMap, pinExists, readModules, readPart, readWire,
   sortedEntries, wireToYMap, wiresMap,
@@ -172,11 +173,21 @@ export function removeDanglingWires(doc: Y.Doc, origin: unknown): string[] {
   return gone;
 }
 
-/** The server's repair after merging concurrent edits: dangling wires removed, signal labels unique. */
-export function repairBoard(doc: Y.Doc, origin: unknown): { wires: string[]; relabelled: string[] } {
-  let result = { wires: [] as string[], relabelled: [] as string[] };
+/**
+ * The server's repair after merging concurrent edits: the modules' hierarchy first (`repairModules`:
+ * instances of a module that is gone or closing a nesting cycle removed, port and signal labels unique
+ * inside each module, wires inside modules to what is gone removed), then the top level's dangling wires
+ * and signal labels. Inside a module an id is named `<module>/<id>`.
+ */
+export function repairBoard(doc: Y.Doc, origin: unknown): { wires: string[]; relabelled: string[]; parts: string[] } {
+  let result = { wires: [] as string[], relabelled: [] as string[], parts: [] as string[] };
   doc.transact(() => {
-    result = { wires: removeDanglingWires(doc, origin), relabelled: dedupeSignalLabels(doc, origin) };
+    const inside = repairModules(doc, origin);
+    result = {
+      wires: [...inside.wires, ...removeDanglingWires(doc, origin)],
+      relabelled: [...inside.relabelled, ...dedupeSignalLabels(doc, origin)],
+      parts: inside.parts,
+    };
   }, origin);
   return result;
 }

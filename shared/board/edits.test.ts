@@ -271,9 +271,9 @@ describe('repairBoard', () => {
     Y.applyUpdate(d1, Y.encodeStateAsUpdate(d2));
     expect(wiresMap(d1).has((r as { id: string }).id)).toBe(true); // the merge kept the dangling wire
     const log = txLog(d1);
-    expect(repairBoard(d1, ME)).toEqual({ wires: [(r as { id: string }).id], relabelled: [] });
+    expect(repairBoard(d1, ME)).toEqual({ wires: [(r as { id: string }).id], relabelled: [], parts: [] });
     expect(log).toEqual([ME]);
-    expect(repairBoard(d1, ME)).toEqual({ wires: [], relabelled: [] });
+    expect(repairBoard(d1, ME)).toEqual({ wires: [], relabelled: [], parts: [] });
   });
 });
 

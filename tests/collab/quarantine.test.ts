@@ -55,7 +55,7 @@ describe('a stored board that fails the board check', () => {
     await c.synced;
     const room = server.ctx.boardRegistry.rooms.get(boardId)!;
     expect(room.quarantine?.removed.map((r) => `${r.where}:${r.key}`).sort()).toEqual(['meta:title', 'parts:u1', 'parts:x', 'wires:w2']);
-    expect(room.quarantine?.repaired).toEqual({ wires: ['w1'], relabelled: ['sw2'] });
+    expect(room.quarantine?.repaired).toEqual({ wires: ['w1'], relabelled: ['sw2'], parts: [] });
     await waitFor(() => !partsMap(c.doc).has('x') && partsMap(c.doc).size === 2, 'the client to get the repaired board');
     await server.ctx.boardRegistry.flushAll();
     // what is stored now loads clean: the removal was stored like any other edit
