@@ -1,7 +1,8 @@
 /**
  * Exact minimisation of seeded random functions (heavy rows of `npm run bench analysis`): how many SOP
- * and POS forms the search proves minimal, and the time per form. Work budgets are counted in word
- * operations, so "proven" does not depend on the machine's load; the times do.
+ * and POS forms the search proves minimal, and the time per form. The proof's budget per form is counted
+ * in work (`defaultProofWork(n)`: entry visits of the covering solver), so "proven" does not depend on the
+ * machine's load; the times do.
  */
 import type { BenchRow } from './run';
 import { minimiseOnes, minimiseZeros, type FunctionRows } from '../shared/analysis';
