@@ -98,27 +98,33 @@ function checkScope(
     if (problem) problems.push({ id: part.id, path: `${at}parts[${i}].label`, message: `${where}${part.id}: ${problem}` });
     else labels.set(label, part.id);
   });
+  // a part's pins are listed once per check, not at every wire end (a 1,000-part board has some 4,000 ends)
+  const pinsByPart = new Map<Part, readonly string[]>();
+  const pinsOnce = (part: Part): readonly string[] => {
+    let pins = pinsByPart.get(part);
+    if (!pins) pinsByPart.set(part, (pins = allPins(part, modulePins)));
+    return pins;
+  };
   const wireIds = new Set<string>();
   wires.forEach((wire, i) => {
     if (wireIds.has(wire.id)) problems.push({ id: wire.id, path: `${at}wires[${i}].id`, message: `${where}duplicate wire id "${wire.id}"` });
     wireIds.add(wire.id);
     for (const end of ['from', 'to'] as const) {
-      const path = `${at}wires[${i}].${end}`;
       const ref = splitPinRef(wire[end]);
       if (!ref) {
-        problems.push({ id: wire.id, path, message: `${where}${wire.id}: "${wire[end]}" is not of the form part.pin` });
+        problems.push({ id: wire.id, path: `${at}wires[${i}].${end}`, message: `${where}${wire.id}: "${wire[end]}" is not of the form part.pin` });
         continue;
       }
       const part = parts.get(ref.part);
       if (!part) {
-        problems.push({ id: wire.id, path, message: `${where}${wire.id}: wire to missing part "${ref.part}"` });
+        problems.push({ id: wire.id, path: `${at}wires[${i}].${end}`, message: `${where}${wire.id}: wire to missing part "${ref.part}"` });
         continue;
       }
       // an instance of a missing module is reported once, as such, not at every wire to it
       if (part.kind === 'module' && !modulePins.has(part.module)) continue;
-      if (!allPins(part, modulePins).includes(ref.pin)) {
+      if (!pinsOnce(part).includes(ref.pin)) {
         const what = part.kind === 'module' ? `instance of module "${part.module}"` : part.kind;
-        problems.push({ id: wire.id, path, message: `${where}${wire.id}: part "${part.id}" (${what}) has no pin "${ref.pin}"` });
+        problems.push({ id: wire.id, path: `${at}wires[${i}].${end}`, message: `${where}${wire.id}: part "${part.id}" (${what}) has no pin "${ref.pin}"` });
       }
     }
   });
