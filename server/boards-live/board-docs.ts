@@ -7,13 +7,18 @@ import { ServerOrigin, type BoardMeta, type BoardStore } from './store';
 
 /**
  * A board's content outside the socket protocol: load it into a document, read or write a whole board
- * file, rename it. Through the live room when one is open (so every connected screen updates and the
- * room stores the change in order), else straight through the store under the board's lock.
+ * file, rename it, edit it (`editBoardDoc`). Through the live room when one is open (so every connected
+ * screen updates and the room stores the change in order), else straight through the store under the
+ * board's lock. Either way what the server writes goes through the whole check and repair
+ * (`quarantineDoc`) before anyone sees it: in a room in the write's own transaction
+ * (`Room.serverWrite`), without one by `editStored` after the edit, stored with it.
  */
 
 /** A board open in a live room. */
 export interface LiveDoc {
   doc: Y.Doc;
+  /** Runs `edit` and then the whole check and repair in one transaction with `origin` (room.ts). */
+  serverWrite(origin: ServerOrigin, edit: (doc: Y.Doc) => void): unknown;
   /** Resolves when every applied update (and the meta projection after it) is stored. */
   flush(): Promise<void>;
 }
@@ -69,6 +74,8 @@ async function editStored(deps: BoardDocsDeps, boardId: number, userId: number |
   // content stored before updates were checked is removed first, and that removal stored with the edit
   quarantineDoc(doc, new ServerOrigin(null, 'quarantine'));
   await edit(doc);
+  // and what the edit wrote is checked and repaired as a live room does after a server write (room.ts)
+  quarantineDoc(doc, new ServerOrigin(null, 'repair'));
   const meta = metaOf(doc);
   doc.destroy();
   if (!updates.length) return;
@@ -104,7 +111,7 @@ export async function writeBoardFile(deps: BoardDocsDeps, boardId: number, file:
     const origin = new ServerOrigin(userId, 'write-board-file');
     const live = deps.live(boardId);
     if (live) {
-      replaceWithBoard(live.doc, file, origin);
+      live.serverWrite(origin, (doc) => replaceWithBoard(doc, file, origin));
       return live.flush();
     }
     await editStored(deps, boardId, userId, (doc) => {
@@ -124,7 +131,7 @@ export async function writeBoardMeta(deps: BoardDocsDeps, boardId: number, meta:
     const origin = new ServerOrigin(userId, 'rename');
     const live = deps.live(boardId);
     if (live) {
-      setMeta(live.doc, meta, origin);
+      live.serverWrite(origin, (doc) => setMeta(doc, meta, origin));
       return live.flush();
     }
     await editStored(deps, boardId, userId, async (doc) => {
@@ -132,6 +139,24 @@ export async function writeBoardMeta(deps: BoardDocsDeps, boardId: number, meta:
       await ensureBoardMeta(deps.store, boardId, doc, new ServerOrigin(null, 'board-row'));
       setMeta(doc, meta, origin);
     });
+  });
+}
+
+/**
+ * A server edit of a board's document (the library recording a module's origin, …): `edit` runs with a
+ * `ServerOrigin(userId, reason)` — in the open room as one transaction with the check and repair, so
+ * every connected screen gets it at once, else on the stored board under its lock. Resolves once it is
+ * stored. `edit` should change nothing when what it is about is gone (a module deleted meanwhile).
+ */
+export async function editBoardDoc(deps: BoardDocsDeps, boardId: number, userId: number | null, reason: string, edit: (doc: Y.Doc) => void): Promise<void> {
+  await deps.locks.run(boardId, async () => {
+    const origin = new ServerOrigin(userId, reason);
+    const live = deps.live(boardId);
+    if (live) {
+      live.serverWrite(origin, edit);
+      return live.flush();
+    }
+    await editStored(deps, boardId, userId, (doc) => doc.transact(() => edit(doc), origin));
   });
 }
 

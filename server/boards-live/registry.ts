@@ -1,6 +1,7 @@
+import type * as Y from 'yjs';
 import type { BoardFile } from '../../shared/board';
 import {
-  compactStoredBoard, ensureBoardMeta, loadBoardDoc, readBoardFile, writeBoardFile, writeBoardMeta, type BoardDocsDeps,
+  compactStoredBoard, editBoardDoc, ensureBoardMeta, loadBoardDoc, readBoardFile, writeBoardFile, writeBoardMeta, type BoardDocsDeps,
 } from './board-docs';
 import { BoardLocks } from './locks';
 import { Room } from './room';
@@ -100,6 +101,14 @@ export class BoardRegistry {
   /** Renames the board or changes its family in its document; the board row follows. */
   writeMeta(boardId: number, meta: Partial<BoardMeta>, userId: number | null): Promise<void> {
     return writeBoardMeta(this.docs, boardId, meta, userId);
+  }
+
+  /**
+   * A server edit of the board's document (`editBoardDoc`): live in its room when open, checked and
+   * repaired in the same transaction; resolves once stored.
+   */
+  editBoardDoc(boardId: number, userId: number | null, reason: string, edit: (doc: Y.Doc) => void): Promise<void> {
+    return editBoardDoc(this.docs, boardId, userId, reason, edit);
   }
 
   /** Compacts a board that has no open room; returns its remaining row count. */

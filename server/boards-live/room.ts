@@ -59,6 +59,12 @@ export class Room {
   private readonly guard: UpdateGuard;
   private destroyed = false;
   private metaChanged = false;
+  /** a server write happened and its check and repair has not run yet */
+  private serverWritePending = false;
+  /** `serverWrite` is running: its check and repair is part of its own transaction */
+  private writing = false;
+  /** the origins of the room's own repairs (their edits need no repair after them) */
+  private readonly ownOrigins = { repair: new ServerOrigin(null, 'repair'), quarantine: new ServerOrigin(null, 'quarantine') };
   private readonly unsubscribe: () => void;
 
   constructor(
@@ -84,29 +90,77 @@ export class Room {
    * removed by a server edit (stored like any other) and reported, so the room and its export work.
    */
   private quarantineStored(): QuarantineReport | null {
+    return this.settle(this.ownOrigins.quarantine, 'the stored board did not pass the board check', true);
+  }
+
+  /**
+   * Runs the whole board check and repair (`quarantineDoc`: shape problems removed, then the merge repair
+   * inside modules and on the top level) with `origin`; logs and returns what changed (and, with
+   * `reportProblems`, problems it leaves, such as content outside the board). Total: a failure is
+   * logged, never thrown.
+   */
+  private settle(origin: ServerOrigin, what: string, reportProblems: boolean): QuarantineReport | null {
     try {
-      const q = quarantineDoc(this.doc, new ServerOrigin(null, 'quarantine'));
+      const q = quarantineDoc(this.doc, origin);
       const { wires, relabelled, parts } = q.repaired;
-      if (!q.removed.length && !wires.length && !relabelled.length && !parts.length && !q.problems.length) return null;
+      // content outside the board's roots is reported, never removed: said once, when the room opens
+      if (!q.removed.length && !wires.length && !relabelled.length && !parts.length && !(reportProblems && q.problems.length)) return null;
       // entries inside a module are named <module>/<id>
       console.warn(
-        `collab: board ${this.boardId}: the stored board did not pass the board check; removed ${q.removed.length} entr${q.removed.length === 1 ? 'y' : 'ies'}` +
+        `collab: board ${this.boardId}: ${what}; removed ${q.removed.length} entr${q.removed.length === 1 ? 'y' : 'ies'}` +
           ` (${q.removed.map((r) => `${r.where} ${JSON.stringify(r.key).slice(0, 40)}`).join(', ')}), repaired ${wires.length} wire(s) and ${relabelled.length} label(s)` +
           `${parts.length ? `, removed ${parts.length} part(s) the modules' hierarchy does not allow (${parts.slice(0, 10).join(', ')})` : ''}:` +
           ` ${q.problems.slice(0, 5).map((p) => p.message).join('; ')}`,
       );
       return { ...q, at: new Date().toISOString() };
     } catch (err) {
-      console.error(`collab: board ${this.boardId}: checking the stored board failed:`, err);
+      console.error(`collab: board ${this.boardId}: checking the board (${what}) failed:`, err);
       return null;
     }
   }
+
+  /**
+   * A server write (a whole board file, a restore or import, a rename, a library origin: board-docs.ts):
+   * `edit` and the whole check and repair after it run in ONE transaction with `origin`, so the room, its
+   * sockets and its stored rows only ever see the repaired board, as one update. Returns what the repair
+   * changed, if anything (also logged). Total as to the repair; an `edit` that throws still gets it.
+   */
+  serverWrite(origin: ServerOrigin, edit: (doc: Y.Doc) => void): QuarantineReport | null {
+    let report: QuarantineReport | null = null;
+    this.writing = true;
+    try {
+      this.doc.transact(() => {
+        try {
+          edit(this.doc);
+        } finally {
+          report = this.settle(origin, 'a server write left the board invalid', false);
+        }
+      }, origin);
+    } finally {
+      this.writing = false;
+    }
+    return report;
+  }
+
+  /**
+   * Any other server edit of the room's document (a `ServerOrigin` transaction made straight on
+   * `room.doc`) is not checked like a socket's update: after it, the whole check and repair runs as its
+   * own edit, so the room never keeps a board it would refuse to export. It runs in a microtask after
+   * the write, or at once when the writer flushes, so that what `flush()` resolves for includes it.
+   * Returns what it changed, if anything.
+   */
+  settleServerWrite = (): QuarantineReport | null => {
+    if (!this.serverWritePending) return null;
+    this.serverWritePending = false;
+    if (this.log.isDiscarded || this.destroyed) return null;
+    return this.settle(this.ownOrigins.repair, 'a server write left the board invalid', false);
+  };
 
   /** The merge repair, total: a failure is logged, never thrown. */
   private repair = (): void => {
     if (this.log.isDiscarded || this.destroyed) return;
     try {
-      repairBoard(this.doc, new ServerOrigin(null, 'repair'));
+      repairBoard(this.doc, this.ownOrigins.repair);
     } catch (err) {
       console.error(`collab: board ${this.boardId}: the repair pass failed:`, err);
     }
@@ -118,6 +172,12 @@ export class Room {
    * repairs the merge as an ordinary edit everyone receives.
    */
   private onAfterTransaction = (tr: Y.Transaction): void => {
+    if (tr.origin instanceof ServerOrigin) {
+      if (this.writing || tr.origin === this.ownOrigins.repair || tr.origin === this.ownOrigins.quarantine || this.serverWritePending) return;
+      this.serverWritePending = true;
+      queueMicrotask(this.settleServerWrite);
+      return;
+    }
     if (!this.conns.has(tr.origin as WebSocket)) return;
     const lists = new Set<unknown>([this.doc.getMap('parts'), this.doc.getMap('wires')]);
     // inside a module too: a wire to a part someone deleted there, two ports given one label, a nesting cycle
@@ -153,8 +213,9 @@ export class Room {
     this.broadcast(encoding.toUint8Array(enc), origin);
   };
 
-  /** Resolves when every applied update is in the database. */
+  /** Resolves when every applied update is in the database (a server write's repair included). */
   flush(): Promise<void> {
+    this.settleServerWrite();
     return this.log.flush();
   }
 
