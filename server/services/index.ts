@@ -4,7 +4,7 @@ import { createAuthService, type AuthService } from './auth';
 import { createAuthzService, type AuthzService } from './authz';
 import { createBoardsService, type BoardMetaWriter, type BoardsService } from './boards';
 import type { AppEvents } from './events';
-import { createLibraryService, type BoardFileReader, type LibraryService } from './library';
+import { createLibraryService, type BoardDocEditor, type BoardFileReader, type LibraryService } from './library';
 import { createInvitationsService, type InvitationsService } from './invitations';
 import type { Mailer } from './mail';
 import { createMembersService, type MembersService } from './members';
@@ -23,7 +23,7 @@ export interface Services {
   library: LibraryService;
 }
 
-export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer, boardMeta: BoardMetaWriter & BoardFileReader): Services {
+export function createServices(db: Db, config: AppConfig, events: AppEvents, mailer: Mailer, boardMeta: BoardMetaWriter & BoardFileReader & BoardDocEditor): Services {
   const boards = createBoardsService(db, events, boardMeta);
   const invitations = createInvitationsService(db, events, mailer, boards);
   const authz = createAuthzService(db);

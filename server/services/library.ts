@@ -1,5 +1,6 @@
+import * as Y from 'yjs';
 import { libraryOriginId, type ApiLibraryContent, type ApiLibraryModule, type PublishLibraryModuleBody } from '../../shared/api';
-import { parseBoardFile, type BoardFile, type Module } from '../../shared/board';
+import { ModuleOriginSchema, modulesMap, parseBoardFile, type BoardFile, type Module, type ModuleOrigin } from '../../shared/board';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as libraryDb from '../db/library';
@@ -9,6 +10,14 @@ import type { AuthzService } from './authz';
 /** What the library reads of a board: its content as a board file (the board registry gives it). */
 export interface BoardFileReader {
   readBoardFile(boardId: number): Promise<BoardFile>;
+}
+
+/**
+ * How the library writes into a board: a server edit of its document (the board registry's
+ * `editBoardDoc`: live in an open room, checked and repaired in the same transaction; resolves once stored).
+ */
+export interface BoardDocEditor {
+  editBoardDoc(boardId: number, userId: number | null, reason: string, edit: (doc: Y.Doc) => void): Promise<void>;
 }
 
 /** Largest content of one entry (the module and the modules it uses, as JSON text). */
@@ -21,6 +30,8 @@ export interface LibraryService {
    * Publishes a module of a board the user can edit (403 otherwise) into the board owner's library: a new
    * entry at version 1, or the same entry at the next version when that module was published before
    * (its `origin` names an entry of this library, or the entry was published from this board and module).
+   * The board's module then records the entry as its origin (`{library, version}` of the new version), a
+   * server edit every open screen of the board receives, so the board does not count as an older copy.
    * 400 `invalid_input` for a module the board lacks, 400 `invalid_module` naming the ids (a nesting cycle,
    * a missing module, a port clash…), 413 `too_large` beyond LIBRARY_CONTENT_LIMIT.
    */
@@ -64,8 +75,12 @@ function moduleClosure(modules: readonly Module[], moduleId: string): Module[] {
   return out;
 }
 
-/** Checks the content with the board file's own checks (a board with no parts of its own holding the modules). */
-function checkContent(modules: Module[], family: BoardFile['family']): Module[] {
+/**
+ * Checks the content with the board file's own checks (a board with no parts of its own holding the
+ * modules); 400 `invalid_module` naming the ids. The board it comes from already passed them (every
+ * server write and client edit is checked and repaired), so this is the library's own guard of what it stores.
+ */
+export function checkLibraryContent(modules: Module[], family: BoardFile['family']): Module[] {
   const parsed = parseBoardFile({ format: 'gatefold-board', version: 1, title: 'library', family, parts: [], wires: [], modules });
   if (parsed.ok) return parsed.board.modules ?? [];
   const fields: Record<string, string> = {};
@@ -80,7 +95,22 @@ function readContent(row: libraryDb.LibraryModuleRow): Module[] {
   return JSON.parse(row.content) as Module[];
 }
 
-export function createLibraryService(db: Db, authz: AuthzService, boards: BoardFileReader): LibraryService {
+/**
+ * The edit that records `origin` on the board's module `moduleId` after it was published: nothing when the
+ * module is gone meanwhile, or already records this entry at this version or a later one (two publishes
+ * finishing out of order never lower it).
+ */
+function recordOrigin(moduleId: string, origin: ModuleOrigin): (doc: Y.Doc) => void {
+  return (doc) => {
+    const module = modulesMap(doc).get(moduleId);
+    if (!(module instanceof Y.Map)) return;
+    const now = ModuleOriginSchema.safeParse(module.get('origin'));
+    if (now.success && now.data.library === origin.library && now.data.version >= origin.version) return;
+    module.set('origin', { library: origin.library, version: origin.version });
+  };
+}
+
+export function createLibraryService(db: Db, authz: AuthzService, boards: BoardFileReader & BoardDocEditor): LibraryService {
   const readable = async (userId: number, id: number): Promise<libraryDb.LibraryModuleRow> => {
     const row = await libraryDb.findLibraryModule(db, id);
     if (!row || !(await libraryDb.canReadLibrary(db, row.owner_id, userId))) throw notFound('library_module_not_found', 'No such module in your team library');
@@ -108,7 +138,7 @@ export function createLibraryService(db: Db, authz: AuthzService, boards: BoardF
 
       // the entry's own module carries no origin (a copy records where it came from); modules it uses keep theirs
       const { origin, ...own } = module;
-      const modules = checkContent([own, ...moduleClosure(board.modules ?? [], moduleId).slice(1)], board.family);
+      const modules = checkLibraryContent([own, ...moduleClosure(board.modules ?? [], moduleId).slice(1)], board.family);
       const content = JSON.stringify(modules);
       if (Buffer.byteLength(content) > LIBRARY_CONTENT_LIMIT) {
         throw new HttpError(413, 'too_large', `This module and the modules it uses take ${Buffer.byteLength(content)} bytes; the library takes at most ${LIBRARY_CONTENT_LIMIT}`);
@@ -133,7 +163,15 @@ export function createLibraryService(db: Db, authz: AuthzService, boards: BoardF
         const fresh = { owner_id: ownerId, title, version: 1, content, source_board_id: boardId, source_module_id: moduleId, created_at: now, updated_at: now };
         row = { id: await libraryDb.insertLibraryModule(db, fresh), ...fresh };
       }
-      return { entry: await withContent(row, userId), created: !previous };
+      const entry = await withContent(row, userId);
+      // the board's module is now this entry at this version: record it, so the board is not shown an update
+      // of its own module. The entry is published either way: a failure here is logged, not the caller's.
+      try {
+        await boards.editBoardDoc(boardId, userId, 'library-publish', recordOrigin(moduleId, entry.origin));
+      } catch (err) {
+        console.error(`library: entry ${row.id} v${row.version} published, but recording its origin on board ${boardId} module "${moduleId}" failed:`, err);
+      }
+      return { entry, created: !previous };
     },
 
     async get(userId, id) {

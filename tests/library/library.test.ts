@@ -1,9 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { moduleMaps, modulesMap, parseBoardFile, type BoardFile, type Module } from '../../shared/board';
 import type { ApiLibraryContent, ApiLibraryModule } from '../../shared/api';
 import { startTestServer, type TestServer } from '../helpers/test-app';
-import { addMember, api, connectClient, createBoard, signUp, waitFor, type User } from '../collab/helpers';
+import { addMember, api, connectClient, createBoard, exportText, signUp, waitFor, type User } from '../collab/helpers';
 import { HALF_ADDER_MODULE } from '../modules/boards';
+import { checkLibraryContent } from '../../server/services/library';
+import { HttpError } from '../../server/lib/errors';
+import { libraryStanding, standingText } from '../../src/features/library/library-status';
 
 let server: TestServer;
 let owner: User;
@@ -135,6 +138,65 @@ describe('team library: publish, list, get', () => {
   });
 });
 
+describe('team library: the published module records its origin', () => {
+  const exported = async (boardId: number) => JSON.parse(await exportText(server, owner, boardId)) as BoardFile;
+  const moduleOf = async (boardId: number, id: string) => (await exported(boardId)).modules!.find((m) => m.id === id)!;
+  /** What the Library drawer says of the board's module, from the library list the client reads. */
+  const standing = async (boardId: number, id: string) => libraryStanding(await list(owner), boardId, await moduleOf(boardId, id));
+
+  it('publish records {library, version} on the board module (stored board, then live in an open room); publishing again raises both; the board is up to date', async () => {
+    const boardId = await boardWith(adderBoard());
+    // no room open: the origin is written into the stored board
+    const first = (await json<{ module: ApiLibraryContent }>(await publish(owner, { boardId, moduleId: 'full' }), 201)).module;
+    expect(server.ctx.boardRegistry.rooms.has(boardId)).toBe(false);
+    expect((await moduleOf(boardId, 'full')).origin).toEqual({ library: String(first.id), version: 1 });
+    // only the module that was published: the one it nests keeps none
+    expect((await moduleOf(boardId, 'half')).origin).toBeUndefined();
+    // the entry's own content carries no origin (a copy records where it came from)
+    expect(first.modules[0].origin).toBeUndefined();
+    let s = await standing(boardId, 'full');
+    expect(s.stale).toBe(false);
+    expect(standingText(s)).toBe('library v1');
+
+    // an open screen gets the new origin as an edit when the module is published again
+    const client = connectClient(server, boardId, owner.cookie);
+    try {
+      await client.synced;
+      const second = (await json<{ module: ApiLibraryContent }>(await publish(owner, { boardId, moduleId: 'full' }), 200)).module;
+      expect([second.id, second.version]).toEqual([first.id, 2]);
+      expect((await moduleOf(boardId, 'full')).origin).toEqual({ library: String(first.id), version: 2 });
+      await waitFor(() => (modulesMap(client.doc).get('full')?.get('origin') as { version?: number } | undefined)?.version === 2, 'the open screen to get origin v2');
+      expect(parseBoardFile(await exported(boardId)).ok).toBe(true);
+      s = await standing(boardId, 'full');
+      expect(s).toMatchObject({ stale: false });
+      expect(s.entry?.version).toBe(2);
+      expect(standingText(s)).toBe('library v2');
+    } finally {
+      client.destroy();
+    }
+  });
+
+  it('a copy published again records the new version; the board it was last published from now holds an older copy', async () => {
+    const boardA = await boardWith(adderBoard());
+    const v1 = (await json<{ module: ApiLibraryContent }>(await publish(owner, { boardId: boardA, moduleId: 'full' }), 201)).module;
+    // board B holds a copy of v1 (as placing it from the library records it), edited and published again
+    const boardB = await boardWith(adderBoard({ ...FULL_ADDER_MODULE, title: 'Full adder, Room 14 bench', origin: { library: String(v1.id), version: 1 } } as Module));
+    expect(standingText(await standing(boardB, 'full'))).toBe('copy v1 · library v1');
+    const v2 = (await json<{ module: ApiLibraryContent }>(await publish(owner, { boardId: boardB, moduleId: 'full' }), 200)).module;
+    expect([v2.id, v2.version, v2.sourceBoardId]).toEqual([v1.id, 2, boardB]);
+    // board B holds v2 itself: no "update from library" for it
+    expect((await moduleOf(boardB, 'full')).origin).toEqual({ library: String(v1.id), version: 2 });
+    const b = await standing(boardB, 'full');
+    expect(b.stale).toBe(false);
+    expect(standingText(b)).toBe('library v2');
+    // board A's module is v1 of an entry that now holds board B's v2: an update applies there
+    expect((await moduleOf(boardA, 'full')).origin).toEqual({ library: String(v1.id), version: 1 });
+    const a = await standing(boardA, 'full');
+    expect(a.stale).toBe(true);
+    expect(standingText(a)).toBe('copy v1 · library v2');
+  });
+});
+
 describe('team library: roles and bad input', () => {
   it('deletes by the library owner only', async () => {
     const boardId = await boardWith(adderBoard());
@@ -173,30 +235,48 @@ describe('team library: roles and bad input', () => {
     expect(Object.keys(path.error.fields)).toEqual(['id']);
   });
 
-  it('a module in a nesting cycle or using a missing module is a 400 naming the ids', async () => {
-    // written by the server itself into an open room, bypassing the import check: a stored board holding
-    // these is repaired when it is read, and a client's edit making them is repaired by the room
-    // (tests/collab/quarantine-modules.test.ts); the library checks what it publishes all the same
+  it('a board written with a nesting cycle and a missing module is repaired before the library reads it; the library refuses such content itself', async () => {
     const loopA = { id: 'loop_a', title: 'A', parts: [{ id: 'p', kind: 'port', dir: 'in', label: 'X', x: 0, y: 0 }, { id: 'i1', kind: 'module', module: 'loop_b', x: 100, y: 0 }], wires: [] };
     const loopB = { id: 'loop_b', title: 'B', parts: [{ id: 'q', kind: 'port', dir: 'in', label: 'X', x: 0, y: 0 }, { id: 'i2', kind: 'module', module: 'loop_a', x: 100, y: 0 }], wires: [] };
     const orphan = { id: 'orphan', title: 'Orphan', parts: [{ id: 'i3', kind: 'module', module: 'gone', x: 0, y: 0 }], wires: [] };
-    const raw = { format: 'gatefold-board', version: 1, title: 'Room 14 broken', family: 'ideal', parts: [], wires: [], modules: [loopA, loopB, orphan] } as unknown as BoardFile;
+    const modules = [loopA, loopB, orphan] as unknown as Module[];
+    const raw = { format: 'gatefold-board', version: 1, title: 'Room 14 broken', family: 'ideal', parts: [], wires: [], modules } as unknown as BoardFile;
+    expect(parseBoardFile(raw).ok).toBe(false);
+
+    // the server writes it into an open room, bypassing the import check: the write is repaired in its own
+    // transaction (tests/collab/server-writes.test.ts), so the board the library reads is a valid one
     const boardId = await createBoard(server, owner, raw.title);
     const client = connectClient(server, boardId, owner.cookie);
     await client.synced;
-    await server.ctx.boardRegistry.writeBoardFile(boardId, raw, owner.id);
+    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+    try {
+      await server.ctx.boardRegistry.writeBoardFile(boardId, raw, owner.id);
+    } finally {
+      warn.mockRestore();
+    }
     const stored = await server.ctx.boardRegistry.readBoardFile(boardId);
-    expect(stored.modules?.map((m) => m.id).sort()).toEqual(['loop_a', 'loop_b', 'orphan']);
-
-    const cycle = await json<{ error: { code: string; message: string; fields: Record<string, string> } }>(await publish(owner, { boardId, moduleId: 'loop_a' }), 400);
-    expect(cycle.error.code).toBe('invalid_module');
-    expect(cycle.error.message).toContain('loop_a → loop_b → loop_a');
-    expect(Object.keys(cycle.error.fields)).toContain('loop_a');
-
-    const gone = await json<{ error: { code: string; message: string; fields: Record<string, string> } }>(await publish(owner, { boardId, moduleId: 'orphan' }), 400);
-    expect(gone.error.code).toBe('invalid_module');
-    expect(gone.error.fields.i3).toContain('missing module "gone"');
-    expect((await list(owner)).some((m) => m.sourceBoardId === boardId)).toBe(false);
+    expect(parseBoardFile(stored).ok).toBe(true);
+    expect(stored.modules?.map((m) => [m.id, m.parts.map((p) => p.id)])).toEqual([['loop_a', ['p', 'i1']], ['loop_b', ['q']], ['orphan', []]]);
+    const published = (await json<{ module: ApiLibraryContent }>(await publish(owner, { boardId, moduleId: 'loop_a' }), 201)).module;
+    expect(published.modules.map((m) => m.id)).toEqual(['loop_a', 'loop_b']);
     client.destroy();
+
+    // the library's own check of what it stores: the same content as it would be unrepaired is a 400 naming the ids
+    const refusal = (content: Module[]): HttpError => {
+      try {
+        checkLibraryContent(content, 'ideal');
+      } catch (err) {
+        if (err instanceof HttpError) return err;
+        throw err;
+      }
+      throw new Error('the content was accepted');
+    };
+    const cycle = refusal([loopA, loopB] as unknown as Module[]);
+    expect([cycle.status, cycle.code]).toEqual([400, 'invalid_module']);
+    expect(cycle.message).toContain('loop_a → loop_b → loop_a');
+    expect(Object.keys(cycle.fields ?? {})).toContain('loop_a');
+    const gone = refusal([orphan] as unknown as Module[]);
+    expect([gone.status, gone.code]).toEqual([400, 'invalid_module']);
+    expect(gone.fields?.i3).toContain('missing module "gone"');
   });
 });

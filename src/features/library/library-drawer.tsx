@@ -12,7 +12,7 @@ import type * as Y from 'yjs';
 import type { ApiLibraryModule } from '../../../shared/api';
 import { fetchLibraryEntry, libraryQueryOptions, useDeleteLibraryModule } from './api';
 import { copiesAmong, placeFromLibrary, updateFromLibrary } from './library-edits';
-import { libraryStanding, standingText } from './library-status';
+import { copyIsStale, libraryStanding, standingText } from './library-status';
 import { PublishModuleButton } from './publish-module';
 import { useBoardModules } from './use-board-modules';
 
@@ -92,7 +92,7 @@ export function LibraryDrawer({ doc, boardId, origin, canEdit, placeAt, scope }:
           <ul className="space-y-1">
             {list.data?.map((entry) => {
               const copy = copies.get(String(entry.id));
-              const stale = copy !== undefined && copy.version < entry.version;
+              const stale = copy !== undefined && copyIsStale(entry, boardId, copy);
               return (
                 <li key={entry.id} className="rounded border border-mat-700 p-1.5" data-testid={`library-entry-${entry.id}`}>
                   <div className="flex items-baseline justify-between gap-1">

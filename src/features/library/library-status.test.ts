@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ApiLibraryModule } from '../../../shared/api';
-import { libraryStanding, standingText } from './library-status';
+import { copyIsStale, libraryStanding, standingText } from './library-status';
 
 const entry = (id: number, version: number, sourceBoardId: number | null, sourceModuleId: string | null): ApiLibraryModule => ({
   id, ownerId: 1, ownerName: 'Mara Quinn', title: `Entry ${id}`, version, sourceBoardId, sourceModuleId,
@@ -26,5 +26,24 @@ describe('libraryStanding', () => {
     expect(libraryStanding(entries, 12, { id: 'ff', origin: { library: '4', version: 1 } }).stale).toBe(false);
     // an entry the user can no longer read (deleted): the copy still says what it holds
     expect(standingText(libraryStanding(entries, 12, { id: 'x', origin: { library: '99', version: 5 } }))).toBe('copy v5');
+  });
+
+  it('a module the entry was last published from is its source, not a copy: it records the new version and is never stale', () => {
+    // published from board 7 as v2: the server recorded {library: "3", version: 2} on the module
+    const s = libraryStanding(entries, 7, { id: 'half', origin: { library: '3', version: 2 } });
+    expect(s).toEqual({ entry: entries[0], stale: false });
+    expect(standingText(s)).toBe('library v2');
+    // a copy that was edited and published again before origins were recorded still says v1: not stale either
+    expect(libraryStanding(entries, 7, { id: 'half', origin: { library: '3', version: 1 } }).stale).toBe(false);
+    expect(copyIsStale(entries[0], 7, { moduleId: 'half', version: 1 })).toBe(false);
+  });
+
+  it('once the entry is published from another board, the board it was published from before holds an older copy', () => {
+    // entry 3 v2 now comes from board 7; board 5 published v1 and recorded it
+    const s = libraryStanding(entries, 5, { id: 'half', origin: { library: '3', version: 1 } });
+    expect(s).toEqual({ entry: entries[0], copyVersion: 1, stale: true });
+    expect(standingText(s)).toBe('copy v1 · library v2');
+    expect(copyIsStale(entries[0], 5, { moduleId: 'half', version: 1 })).toBe(true);
+    expect(copyIsStale(entries[0], 5, { moduleId: 'half', version: 2 })).toBe(false);
   });
 });

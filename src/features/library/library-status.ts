@@ -11,18 +11,36 @@ export interface LibraryStanding {
   stale: boolean;
 }
 
+/** Whether `entry` was last published from this board's module `moduleId` (its content is that module's). */
+export function publishedFrom(entry: Pick<ApiLibraryModule, 'sourceBoardId' | 'sourceModuleId'>, boardId: number, moduleId: string): boolean {
+  return entry.sourceBoardId === boardId && entry.sourceModuleId === moduleId;
+}
+
 /**
- * The entry of a module: for a copy the entry its origin names; otherwise the entry last published from
- * this board and module (the server raises that entry's version when it is published again).
+ * Whether the board's copy of `entry` (the version its module's origin records) is older than the entry:
+ * "update from library" applies. Never for the module the entry was last published from: publishing
+ * records the new version as the module's origin, and a module published before that was recorded (or
+ * whose recording failed) holds what the entry holds all the same.
+ */
+export function copyIsStale(entry: Pick<ApiLibraryModule, 'version' | 'sourceBoardId' | 'sourceModuleId'>, boardId: number, copy: { moduleId: string; version: number }): boolean {
+  return entry.version > copy.version && !publishedFrom(entry, boardId, copy.moduleId);
+}
+
+/**
+ * The entry of a module: the entry its origin names (a copy, or a module published from this board, which
+ * the server marks with the entry's new version when it publishes it); without an origin the entry last
+ * published from this board and module (published before origins were recorded).
  */
 export function libraryStanding(entries: readonly ApiLibraryModule[] | undefined, boardId: number, module: Pick<Module, 'id' | 'origin'>): LibraryStanding {
   const list = entries ?? [];
   if (module.origin) {
     const { library, version } = module.origin;
     const entry = list.find((e) => String(e.id) === library);
-    return { entry, copyVersion: version, stale: entry !== undefined && entry.version > version };
+    // the module this entry was last published from is the entry's source, not a copy of it
+    if (entry && publishedFrom(entry, boardId, module.id)) return { entry, stale: false };
+    return { entry, copyVersion: version, stale: entry !== undefined && copyIsStale(entry, boardId, { moduleId: module.id, version }) };
   }
-  const entry = list.find((e) => e.sourceBoardId === boardId && e.sourceModuleId === module.id);
+  const entry = list.find((e) => publishedFrom(e, boardId, module.id));
   return { entry, stale: false };
 }
 
