@@ -3,8 +3,9 @@
  * of the parts tray), placed on another board (copied in with its origin and version) where a lamp follows
  * a switch through it, published again from its open module (the module bar) after a port was added
  * inside, and "Update from library" brings the new version to the copy: the instance gets the new pin and
- * works through it. A viewer of the board sees neither the drawer nor a publish button, and the server
- * refuses their publish.
+ * works through it. Published from the copy's board, the copy records the new version: no "Update from
+ * library" for the module the entry was just published from. A viewer of the board sees neither the
+ * drawer nor a publish button, and the server refuses their publish.
  */
 import type { Locator, Page } from '@playwright/test';
 import type { BoardFile } from '../../shared/board';
@@ -98,6 +99,11 @@ test('publish a module, place it on another board, publish a new version, update
   await expect(entry).toContainText('Signal follower');
   await expect(entry.getByTestId('library-version')).toHaveText('v1');
   const entryId = Number((await entry.getAttribute('data-testid'))!.replace('library-entry-', ''));
+  // the board's module records what it now is in the library (it arrives as an edit of the open board)
+  await expect(entry.getByTestId('library-copy')).toHaveText(' · on this board: v1');
+  await expect(page.getByTestId(`library-update-${entryId}`)).toHaveCount(0);
+  const published = await (await page.request.get(`/api/boards/${board1}/export`)).json() as BoardFile;
+  expect(published.modules).toEqual([expect.objectContaining({ id: 'follower', origin: { library: String(entryId), version: 1 } })]);
   await page.getByTestId('library-drawer').screenshot({ path: 'test-results/library-01-drawer.png' });
 
   // Board 2: place it from the library; wired between the key and the bell, the bell follows the key.
@@ -168,6 +174,18 @@ test('publish a module, place it on another board, publish a new version, update
   expect(updated.modules).toEqual([expect.objectContaining({ id: 'follower', origin: { library: String(entryId), version: 2 } })]);
   expect(updated.modules![0].parts.map((p) => p.kind).sort()).toEqual(['buffer', 'not', 'port', 'port', 'port']);
   await page.screenshot({ path: 'test-results/library-03-updated.png' });
+
+  // Published again from this board's copy: the entry is v3, and the copy records v3 — it is what the
+  // library holds, so no "Update from library" is offered for it.
+  const copyRow = page.getByTestId('board-module-follower');
+  await copyRow.getByRole('button', { name: 'Publish to library' }).click();
+  await expect(page.getByText('Published “Signal follower” to the library as v3')).toBeVisible();
+  await expect(page.getByTestId(`library-entry-${entryId}`).getByTestId('library-version')).toHaveText('v3');
+  await expect(page.getByTestId(`library-entry-${entryId}`).getByTestId('library-copy')).toHaveText(' · on this board: v3');
+  await expect(copyRow.getByTestId('module-standing')).toHaveText('library v3');
+  await expect(page.getByTestId(`library-update-${entryId}`)).toHaveCount(0);
+  const republished = await (await page.request.get(`/api/boards/${board2}/export`)).json() as BoardFile;
+  expect(republished.modules).toEqual([expect.objectContaining({ id: 'follower', origin: { library: String(entryId), version: 3 } })]);
 
   // A viewer of board 2: no parts tray, no library drawer, no publish in the module bar; the server refuses it too.
   const headers = { Origin: gatefold.baseURL };
