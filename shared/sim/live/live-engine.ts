@@ -57,6 +57,8 @@ export class LiveEngine {
   private dueAt = 0;
   /** what the last structural edit did to stored state */
   private changes: StateChange[] = [];
+  /** the LiveSimulation's `elapsed` when the recorder last took it */
+  private elapsedSeen = 0;
 
   constructor(private readonly post: (msg: LiveUpdate, transfer?: Transferable[]) => void, timers: Timers, opts: Omit<LiveOptions, 'onCompile' | 'onRisingEdge'> = {}) {
     this.live = new LiveSimulation(timers, {
@@ -68,7 +70,28 @@ export class LiveEngine {
       this.live.halfCycles(n, RUN_BUDGET_MS);
       this.flush();
     });
-    this.room = new RoomRun(this.live);
+    this.room = new RoomRun(this.live, { quietly: (replay) => this.quietly(replay) });
+  }
+
+  /**
+   * Runs a replay of the room's record off the timing strip. A replay recomputes the state the strip
+   * already shows (a new circuit after an edit, inside a module or not; the record's first entries; entries
+   * reordered; back from a try-out), from power-on: recording it would show every input change and clock
+   * edge of the record a second time. Afterwards the strip goes on at the time it had and records each
+   * signal's level now, so only what the replay changed shows, as one step.
+   */
+  private quietly(replay: () => void): void {
+    const at = this.recorder.base + (this.live.sim?.time ?? 0);
+    this.recorder.muted = true;
+    try {
+      replay();
+    } finally {
+      this.recorder.muted = false;
+    }
+    const { sim, netlist } = this.live;
+    if (!sim || !netlist) return;
+    this.recorder.base = at - sim.time;
+    this.recorder.attach(netlist, sim.time, (net) => sim.level(net));
   }
 
   /** Following the room's run (not in a private try-out of the clock). */
@@ -115,13 +138,15 @@ export class LiveEngine {
     switch (msg.type) {
       case 'load': {
         const before = live.sim && live.netlist ? { sim: live.sim, netlist: live.netlist } : null;
-        if (live.load(msg.board, msg.tryOut)) this.attach();
+        const fresh = live.load(msg.board, msg.tryOut);
         // A new circuit replays the room's run, so its stored state is what every screen (and a late
-        // joiner) gets for this circuit; what that changed is reported.
+        // joiner) gets for this circuit; what that changed is reported. The strip records the state after
+        // the replay (quietly), not the new circuit's power-on before it.
         if (this.inRoom && live.sim && live.netlist && live.sim !== before?.sim && this.entries.length) {
+          this.listen();
           this.room.replay(this.entries);
           if (before) this.changes = stateChanges(before, { sim: live.sim, netlist: live.netlist });
-        }
+        } else if (fresh) this.attach();
         break;
       }
       case 'room': {
@@ -180,7 +205,9 @@ export class LiveEngine {
   private compiled(netlist: Netlist): void {
     this.unsubscribe?.();
     this.unsubscribe = undefined;
-    this.recorder.base = this.live.elapsed;
+    // the strip's time goes on: the time the earlier Simulator ran after the recorder's last base, and a pause
+    this.recorder.base += this.live.elapsed - this.elapsedSeen;
+    this.elapsedSeen = this.live.elapsed;
     const port = (p: Netlist['parts'][number], pin: string): LivePort => ({ partId: p.id, label: p.name, kind: p.kind, net: netlist.nets[netlist.netOf(p.id, pin)].name });
     const family = familyOf(netlist.family);
     this.post({
@@ -200,8 +227,16 @@ export class LiveEngine {
   private attach(): void {
     const { sim, netlist } = this.live;
     if (!sim || !netlist) return;
-    this.unsubscribe = sim.onChange((time, net, level) => this.recorder.record(time, net, level));
+    this.listen();
     this.recorder.attach(netlist, sim.time, (net) => sim.level(net));
+  }
+
+  /** Hands the current Simulator's net changes to the recorder. */
+  private listen(): void {
+    const { sim } = this.live;
+    if (!sim) return;
+    this.unsubscribe?.();
+    this.unsubscribe = sim.onChange((time, net, level) => this.recorder.record(time, net, level));
   }
 
   /** Posts the current state (levels, report, badges, values, new trace) to the page. */

@@ -53,6 +53,8 @@ export class LiveSimulation {
   /** the room's input values (its simulation record, room-run.ts), under the try-out and over the document's */
   private shared = new Map<string, boolean>();
   private applied = new Map<string, boolean>();
+  /** input changes taken from the document (no record or try-out value over it) since the last power-on of the room's run */
+  private fromDocument = new Map<string, boolean[]>();
   private driven = new Set<string>();
   private unsettled = false;
   private lastEdgeAt = -Infinity;
@@ -143,6 +145,7 @@ export class LiveSimulation {
   /** Power-on again as the room's run does at a reset: clock low and uncounted, `inputs`, stored state to power-on. */
   powerOnWith(inputs: Iterable<[string, boolean]>): void {
     if (!this.sim) return;
+    this.fromDocument.clear();
     this.clock.restart();
     this.setShared(inputs, { replace: true, gap: false });
     this.resetState();
@@ -231,6 +234,21 @@ export class LiveSimulation {
     return this.tryOut.get(part.id) ?? this.shared.get(part.id) ?? documentValue(part) ?? false;
   }
 
+  /** Whether an input part's value now is the document's own (no clock, try-out or room value over it). */
+  private fromDoc(part: Part): boolean {
+    return documentValue(part) !== undefined && !this.driven.has(part.id) && !this.tryOut.has(part.id) && !this.shared.has(part.id);
+  }
+
+  /**
+   * The input changes this simulation took straight from the document since the room's run last powered
+   * on, per part in order (at most the last 64 each): an editor's change reaches a screen as a document
+   * edit and as an entry of the room's record, in either order; when the record comes second and makes
+   * the screen replay (RoomRun), these say which of its entries the screen has already shown.
+   */
+  documentChanges(): ReadonlyMap<string, readonly boolean[]> {
+    return this.fromDocument;
+  }
+
   /**
    * Sets every input whose value differs from what the simulator has, then settles (after a pause with
    * `gap`, spending at most `eventBudget` events when given).
@@ -238,15 +256,22 @@ export class LiveSimulation {
   private apply(gap: boolean, eventBudget?: number): boolean {
     const sim = this.sim;
     if (!sim || !this.netlist) return false;
-    const changes: [string, boolean][] = [];
+    const changes: [Part, boolean][] = [];
     for (const input of this.netlist.inputs) {
       const part = this.current.get(input.id) ?? input.part;
       const value = this.inputValue(part);
-      if (this.applied.get(part.id) !== value) changes.push([part.id, value]);
+      if (this.applied.get(part.id) !== value) changes.push([part, value]);
     }
     if (!changes.length) return false;
     if (gap) this.idle(this.half);
-    for (const [id, value] of changes) {
+    for (const [part, value] of changes) {
+      const id = part.id;
+      if (this.applied.has(id) && this.fromDoc(part)) {
+        const seen = this.fromDocument.get(id) ?? [];
+        seen.push(value);
+        if (seen.length > 64) seen.shift();
+        this.fromDocument.set(id, seen);
+      }
       sim.setInput(id, value);
       this.applied.set(id, value);
     }

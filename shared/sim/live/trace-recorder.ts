@@ -15,7 +15,8 @@ export interface TraceBatch {
 /**
  * The worker's side of the timing strip: records changes of the subscribed nets as flat
  * [row, time, level code] triples until the next state message takes them. Times are continuous over
- * recompiles: each new Simulator starts at 0, so the recorder adds the time the earlier ones ran.
+ * recompiles and replays: each new Simulator starts at 0 and a replay runs a Simulator's time on, so the
+ * engine sets `base` to keep the strip's time going on from where it was.
  */
 export class TraceRecorder {
   private signals: string[] = [];
@@ -27,6 +28,8 @@ export class TraceRecorder {
   private reset: TraceBatch['traceReset'];
   /** simulated time of the Simulators before the current one */
   base = 0;
+  /** while true nothing is recorded: the engine is recomputing what the strip already shows (a replay) */
+  muted = false;
 
   /** A new choice of signals, recorded from the next `attach` on. */
   subscribe(signals: string[]): void {
@@ -66,13 +69,13 @@ export class TraceRecorder {
   /** A net changed (the Simulator's change listener). */
   record(time: number, net: number, level: Level): void {
     const rows = this.netRows.get(net);
-    if (!rows || this.trace.length >= TRACE_BUDGET) return;
+    if (!rows || this.muted || this.trace.length >= TRACE_BUDGET) return;
     for (const i of rows) this.trace.push(i, this.base + time, levelCode(level));
   }
 
   /** A rising clock edge at simulator time `time`. */
   edge(time: number): void {
-    this.edges.push(this.base + time);
+    if (!this.muted) this.edges.push(this.base + time);
   }
 
   /** Everything recorded since the last call. */
