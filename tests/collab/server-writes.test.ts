@@ -194,6 +194,27 @@ describe('server writes into an open room', () => {
     }
   });
 
+  it('a rename is checked too: a good one changes the title alone, a title no board file allows does not stay', async () => {
+    const { boardId, client } = await openBoard('Door lamp, renamed');
+    const room = server.ctx.boardRegistry.rooms.get(boardId)!;
+    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+    try {
+      await server.ctx.boardRegistry.writeMeta(boardId, { title: 'Room 14 door lamp, east wing' }, owner.id);
+      expect(docToBoard(room.doc)).toEqual({ ...DOOR, title: 'Room 14 door lamp, east wing' });
+      expect(warn).not.toHaveBeenCalled();
+      // straight through the registry (the HTTP route refuses it first): 300 characters are no title
+      await server.ctx.boardRegistry.writeMeta(boardId, { title: 'x'.repeat(300) }, owner.id);
+      expect(boardProblems(room.doc)).toEqual([]);
+      expect(docToBoard(room.doc).title).not.toBe('x'.repeat(300));
+      expect(await storedProblems(boardId)).toEqual([]);
+      await waitFor(() => client.doc.getMap('meta').get('title') !== 'Room 14 door lamp, east wing', 'the client to get the second rename');
+      expect(boardProblems(client.doc)).toEqual([]);
+    } finally {
+      warn.mockRestore();
+      client.destroy();
+    }
+  });
+
   it('repairs a server edit made straight on the room document, before any socket message is handled', async () => {
     const { boardId, client } = await openBoard('Door lamp, server edit');
     const room = server.ctx.boardRegistry.rooms.get(boardId)!;
