@@ -8,16 +8,22 @@
  *   into independent components (no shared column), each solved on its own.
  * - **Lower bound**: Lagrangian relaxation of the row constraints, L(λ) = Σ λ_r + Σ_j min(0, c_j − Σ_{r ∈ j} λ_r),
  *   valid for every λ ≥ 0, raised by subgradient optimisation (common practice, no source: the textbook
- *   Lagrangian relaxation of set covering, as in Beasley's set-covering algorithm, from memory).
+ *   Lagrangian relaxation of set covering, as in Beasley's set-covering algorithm, from memory); when
+ *   that does not prune, the LP relaxation of the node's open part solved by our simplex (`cover-lp.ts`),
+ *   whose dual multipliers are then the λ (in the literal stage the term count is an equality — stage 1
+ *   proved that no cover has fewer — which lifts the bound well above the subgradient's).
  * - **Reduced-cost fixing**: a column whose reduced cost lifts the bound to the best known is struck; a
  *   column whose removal would do so is taken.
- * - **Incumbent** from the Lagrangian solution: the columns of negative reduced cost, completed greedily,
- *   redundant columns dropped, single-column swaps to cheaper ones.
- * - **Branch and bound** on the open row with fewest columns, its columns in order of reduced cost (branch i
- *   takes column i and strikes columns 1..i−1), each child warm-started from its parent's multipliers.
+ * - **Incumbents** from the LP solution (columns by LP value, made irredundant) and from the reduced
+ *   costs: the columns of negative reduced cost, completed greedily, redundant columns dropped,
+ *   single-column swaps to cheaper ones.
+ * - **Branch and bound** on the free column whose LP value is nearest 1/2 (take it, then strike it);
+ *   without an LP solution, on the open row with fewest columns, its columns in order of reduced cost
+ *   (branch i takes column i and strikes columns 1..i−1); each child warm-started from its parent's
+ *   multipliers.
  *
- * Work is counted in entry visits (one per row–column incidence touched), not time, so whether a cover is
- * proven does not depend on the machine's load.
+ * Work is counted in entry visits (one per row–column incidence touched; four simplex tableau updates count
+ * as one), not time, so whether a cover is proven does not depend on the machine's load.
  */
 
 /** What the covering solver found. */
@@ -193,6 +199,8 @@ function components(rows: number[][]): number[][][] {
   return [...groups.values()];
 }
 
+import { solveCoverLp, type CoverLp } from './cover-lp';
+
 const FREE = 0;
 const IN = 1;
 const OUT = 2;
@@ -227,6 +235,8 @@ class BranchAndBound {
   nodes = 0;
   // scratch
   private readonly rc: Float64Array;
+  /** the LP's primal solution at the current node (per column) */
+  private readonly x: Float64Array;
   /** the term bound of a capped search: unit costs, its reduced costs, its multipliers per depth */
   private readonly unit: Float64Array;
   private readonly rcU: Float64Array;
@@ -257,6 +267,7 @@ class BranchAndBound {
     this.state = new Uint8Array(this.C);
     this.covered = new Int32Array(this.R);
     this.rc = new Float64Array(this.C);
+    this.x = new Float64Array(this.C);
     this.unit = new Float64Array(this.C).fill(1);
     this.rcU = new Float64Array(this.C);
     this.g = new Float64Array(this.R + 1);
@@ -497,6 +508,26 @@ class BranchAndBound {
     this.offer(set);
   }
 
+  /** A cover by rounding the LP solution: free columns by LP value (highest first) while they cover an open row, then made irredundant. */
+  private heuristicX(): void {
+    const { cnt } = this;
+    cnt.fill(0);
+    const set: number[] = [];
+    const add = (p: number) => { set.push(p); for (let k = this.colStart[p]; k < this.colStart[p + 1]; k++) cnt[this.colRow[k]]++; };
+    const free: number[] = [];
+    for (let p = 0; p < this.C; p++) if (this.state[p] === IN) add(p); else if (this.state[p] === FREE) free.push(p);
+    free.sort((a, b) => this.x[b] - this.x[a] || this.rc[a] - this.rc[b] || a - b);
+    for (const p of free) {
+      let open = false;
+      for (let k = this.colStart[p]; k < this.colStart[p + 1] && !open; k++) if (!cnt[this.colRow[k]]) open = true;
+      if (open) add(p);
+    }
+    this.spend(this.colRow.length);
+    for (let i = 0; i < this.R; i++) if (!cnt[i]) return;
+    this.improve(set, cnt);
+    this.offer(set);
+  }
+
   /** Drops redundant columns (costliest first) and swaps a column for a cheaper free one covering the rows only it covers. */
   private improve(set: number[], cnt: Int32Array): void {
     const mark = new Uint8Array(this.C);
@@ -551,6 +582,7 @@ class BranchAndBound {
     const finish = () => this.undo(mark);
     const lambdaU = this.capped ? Float64Array.from(this.lambdaU[depth] ?? parentLambda) : lambda;
     let bound = 0;
+    let haveX = false;
     for (let round = 0; ; round++) {
       if (!this.propagate()) return finish();
       if (this.cost >= this.best) return finish();
@@ -570,10 +602,45 @@ class BranchAndBound {
       }
       bound = this.subgradient(lambda, this.w, this.capped, this.best - this.cost, this.rc, its, depth === 0 ? HEUR_EVERY : 0);
       if (this.out) return finish();
+      if (!prunes(bound, this.best - this.cost) && round === 0) {
+        const saved = Float64Array.from(lambda);
+        const lp = this.lpBound(lambda);
+        haveX = true;
+        if (lp > bound) bound = lp; else { lambda.set(saved); bound = this.evaluate(lambda, this.w, this.capped, this.rc); }
+        this.heuristicX();
+      }
       this.heuristic();
       const need = this.best - this.cost;
       if (prunes(bound, need)) return finish();
       if (!this.fix(bound, this.rc, need) || round >= 4) break;
+    }
+    if (haveX) {
+      // branch on the free column whose LP value is nearest 1/2: take it, then strike it
+      let q = -1;
+      let qx = 0;
+      for (let p = 0; p < this.C; p++) {
+        if (this.state[p] !== FREE) continue;
+        const v = this.x[p];
+        if (v > 1e-6 && v < 1 - 1e-6) {
+          const score = 0.5 - Math.abs(v - 0.5);
+          if (score > qx) { qx = score; q = p; }
+        }
+      }
+      if (q >= 0) {
+        const r = this.rc[q];
+        this.lambdaU[depth + 1] = lambdaU;
+        if (!prunes(bound + Math.max(r, 0), this.best - this.cost)) {
+          const inner = this.trail.length;
+          this.setIn(q);
+          this.node(lambda, depth + 1);
+          this.undo(inner);
+        }
+        if (!this.out && !prunes(bound - Math.min(r, 0), this.best - this.cost)) {
+          this.setOut(q);
+          this.node(lambda, depth + 1);
+        }
+        return finish();
+      }
     }
     // branch on the open row with fewest free columns (larger multiplier on a tie)
     let pick = -1;
@@ -603,6 +670,49 @@ class BranchAndBound {
       this.setOut(p);
     }
     finish();
+  }
+
+  /**
+   * The LP bound of the open part: the simplex's multipliers, if their Lagrangian value beats the one of
+   * `lambda`, are written into `lambda` (rows of this search; μ last) and `rc`; returns their value.
+   */
+  /**
+   * The LP bound of the open part (our simplex on the dual of the open rows and free columns, from
+   * scratch: after fixing, a node's open part is much smaller than the root's). The simplex's multipliers
+   * are written into `lambda` (rows of this search; μ last) and `rc`, its primal solution into `x`;
+   * returns their Lagrangian value (a valid bound whatever the rounding in the tableau).
+   */
+  private lpBound(lambda: Float64Array): number {
+    const rowId = new Int32Array(this.R).fill(-1);
+    const cols: number[] = [];
+    const lp = this.openLp(this.w, this.capped, rowId, cols);
+    const res = solveCoverLp(lp);
+    // a tableau entry update costs about a quarter of an entry visit of the Lagrangian (measured)
+    this.spend(Math.ceil(res.work / 4));
+    this.x.fill(0);
+    cols.forEach((p, j) => { this.x[p] = res.x[j]; });
+    const trial = new Float64Array(this.R + 1);
+    for (let i = 0; i < this.R; i++) trial[i] = rowId[i] >= 0 ? res.y[rowId[i]] : 0;
+    if (this.capped) trial[this.R] = res.y[lp.rows];
+    const v = this.evaluate(trial, this.w, this.capped, this.rc);
+    lambda.set(trial);
+    return v;
+  }
+
+  /** The open part (free columns, uncovered rows) as an LP. */
+  openLp(w: Float64Array, withCap: boolean, rowId = new Int32Array(this.R).fill(-1), cols: number[] = []): CoverLp {
+    let R = 0;
+    for (let i = 0; i < this.R; i++) if (!this.covered[i]) rowId[i] = R++;
+    for (let p = 0; p < this.C; p++) if (this.state[p] === FREE) cols.push(p);
+    const colStart = new Int32Array(cols.length + 1);
+    const entries: number[] = [];
+    const cost = new Float64Array(cols.length);
+    cols.forEach((p, j) => {
+      for (let k = this.colStart[p]; k < this.colStart[p + 1]; k++) { const r = rowId[this.colRow[k]]; if (r >= 0) entries.push(r); }
+      colStart[j + 1] = entries.length;
+      cost[j] = w[p];
+    });
+    return { rows: R, cols: cols.length, colStart, colRow: Int32Array.from(entries), cost, cap: withCap ? this.cap - this.taken : Infinity, exact: withCap };
   }
 
   private openRows(): number {
