@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { boardOf, diagnose, faultList, prepareDiagnosis, handInputs, readOutputs, runSteps, testVectors, withStuckPin } from '../../shared/bringup';
 import { compileBoard, mulberry32 } from '../../shared/sim';
 
-// The 1-bit processor (158 gates in modules, no reset input) is left out: its vectors are random walks from
+// The 1-bit processor (171 gates in modules, no reset input) is left out: its vectors are random walks from
 // power-on that leave most suspects explaining every observation, so single-fault ranking there is not
 // meaningful yet (said in the closing note of the bring-up work); the other demo boards are the target.
 const examples = readdirSync(new URL('../../examples/', import.meta.url))

@@ -1,8 +1,10 @@
 /**
  * Builds the tube group's demo 1-bit processor (examples/one-bit-processor.gatefold.json) from NOR gates
  * only, in modules: a NOR D flip-flop with load enable (six instances), an instruction decoder, a logic
- * unit of 16 operations and a 4-step program ROM. Run `npx tsx tests/helpers/one-bit-processor.ts` to
- * write the example file again.
+ * unit of 16 operations and a 4-step program ROM. No gate output drives more than four loads (the fan-out
+ * of the tube family 'tube-drl-nor'; an inverter's two tied inputs count as two): the decoder predecodes,
+ * the ROM decodes the step once, and two driver gates at the top take the load off flip-flop outputs.
+ * Run `npx tsx tests/helpers/one-bit-processor.ts` to write the example file again.
  */
 import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -63,34 +65,38 @@ export const INSTRUCTIONS: Array<{ op: number; name: string; effect: string; f: 
 /** The demo program in the ROM, step 0 first: a blinker — while DIN is on, OUT changes every pass. */
 export const PROGRAM = ['IEN', 'OEN', 'XOR', 'STO'] as const;
 
-/** NOR D flip-flop with load enable: a D mux, a master NOR latch open while CLK is 0, a slave open while CLK is 1 (rising edge). */
+/**
+ * NOR D flip-flop with load enable: a D mux, a master NOR latch open while CLK is 0, a slave open while
+ * CLK is 1 (rising edge). The mux is D' = (NOT LE + D)(LE + Q), two levels of NOR straight from D, so D is
+ * one load (no inverter on it) and the outputs keep room to drive others: inside, Q feeds QN's latch gate
+ * and the mux (two loads), QN feeds Q's latch gate (one), of the tube family's four.
+ */
 function flipFlopModule() {
   const s = new Sheet();
   // Q and QN first: the power-on resolution (decision 002) settles a held latch with its first gate low, so Q = 0.
-  s.add({ id: 'g_q', kind: 'nor', inputs: 2, x: 920, y: 80 });
-  s.add({ id: 'g_qn', kind: 'nor', inputs: 2, x: 920, y: 200 });
-  const d = s.port('p_d', 'in', 'D', 0, 40);
-  const le = s.port('p_le', 'in', 'LE', 0, 160);
-  const clk = s.port('p_clk', 'in', 'CLK', 0, 280);
-  const nle = s.nor('g_nle', 120, 160, [le]);
-  const nd = s.nor('g_nd', 120, 40, [d]);
-  const take = s.nor('g_take', 260, 40, [nle, nd]); // LE AND D
-  const keep = s.nor('g_keep', 260, 160, [le, 'g_qn.out']); // NOT LE AND Q
-  const ndm = s.nor('g_ndm', 400, 100, [take, keep]); // NOT D'
-  const dm = s.nor('g_dm', 520, 40, [ndm]); // D'
-  const sm = s.nor('g_sm', 520, 160, [ndm, clk]); // set master: D' AND NOT CLK
-  const rm = s.nor('g_rm', 520, 280, [dm, clk]); // reset master
-  const qm = s.nor('g_qm', 640, 160, [rm, 'g_qnm.out']);
-  s.nor('g_qnm', 640, 280, [sm, qm]);
-  const nclk = s.nor('g_nclk', 520, 400, [clk]);
-  const ss = s.nor('g_ss', 780, 80, ['g_qnm.out', nclk]); // set slave: Qm AND CLK
-  const rs = s.nor('g_rs', 780, 200, [qm, nclk]);
+  s.add({ id: 'g_q', kind: 'nor', inputs: 2, x: 1280, y: 80 });
+  s.add({ id: 'g_qn', kind: 'nor', inputs: 2, x: 1280, y: 220 });
+  const d = s.port('p_d', 'in', 'D', 0, 20);
+  const le = s.port('p_le', 'in', 'LE', 0, 140);
+  const clk = s.port('p_clk', 'in', 'CLK', 0, 380);
+  const nle = s.nor('g_nle', 160, 200, [le]);
+  const a = s.nor('g_a', 320, 20, [d, nle]); // NOT (D OR NOT LE)
+  const b = s.nor('g_b', 320, 140, [le, 'g_q.out']); // NOT (LE OR Q)
+  const dm = s.nor('g_dm', 480, 80, [a, b]); // D' = LE ? D : Q
+  const ndm = s.nor('g_ndm', 640, 20, [dm]);
+  const sm = s.nor('g_sm', 800, 20, [ndm, clk]); // set master: D' AND NOT CLK
+  const rm = s.nor('g_rm', 800, 260, [dm, clk]); // reset master
+  const qm = s.nor('g_qm', 960, 80, [rm, 'g_qnm.out']);
+  s.nor('g_qnm', 960, 200, [sm, qm]);
+  const nclk = s.nor('g_nclk', 480, 360, [clk]);
+  const ss = s.nor('g_ss', 1120, 180, ['g_qnm.out', nclk]); // set slave: Qm AND CLK
+  const rs = s.nor('g_rs', 1120, 60, [qm, nclk]);
   s.wire(rs, 'g_q.in0');
   s.wire('g_qn.out', 'g_q.in1');
   s.wire(ss, 'g_qn.in0');
   s.wire('g_q.out', 'g_qn.in1');
-  s.wire('g_q.out', s.port('p_q', 'out', 'Q', 1060, 80));
-  s.wire('g_qn.out', s.port('p_qn', 'out', 'QN', 1060, 200));
+  s.wire('g_q.out', s.port('p_q', 'out', 'Q', 1440, 90));
+  s.wire('g_qn.out', s.port('p_qn', 'out', 'QN', 1440, 230));
   return { id: 'nor_dff', title: 'NOR D flip-flop with load enable', parts: s.parts, wires: s.wires };
 }
 
@@ -111,54 +117,111 @@ function logicUnitModule() {
   return { id: 'logic_unit', title: 'Logic unit, 16 operations', parts: s.parts, wires: s.wires };
 }
 
-/** Instruction decoder: 16 opcode lines (NOR of four literals each), then each control line from them. */
+/** The control lines of the decoder and the instructions that set each. */
+const CONTROLS: Array<[string, (n: number) => boolean]> = [
+  ...[0, 1, 2, 3].map((k): [string, (n: number) => boolean] => [`F${k}`, (n) => INSTRUCTIONS[n].f[3 - k] === '1']),
+  ['LDR', (n) => Boolean(INSTRUCTIONS[n].ldr)],
+  ['LDI', (n) => Boolean(INSTRUCTIONS[n].ldi)],
+  ['LDO', (n) => Boolean(INSTRUCTIONS[n].ldo)],
+  ['WR', (n) => Boolean(INSTRUCTIONS[n].wr)],
+];
+
+/**
+ * Instruction decoder, built so that no gate drives more than four loads (the tube family's fan-out):
+ * - the two halves of the opcode are predecoded apart: H a is 1 when I3 I2 = a, L b when I1 I0 = b, each a
+ *   NOR of the two literals that are 0 there; the fourth line of each half is the NOR of the other three
+ *   (one of the four is always 1), which spares the true literals a load;
+ * - inverters give NOT H a, NOT L b; opcode line n = a·4 + b is the NOR of NOT H a and NOT L b, each inverted
+ *   line feeding at most four opcode lines;
+ * - each control line is the NOR of the opcode lines where it is 0 (a one-hot NOR gives the OR of the
+ *   others), or, with more than eight such lines, the NOR of the lines where it is 1 and an inverter; a line
+ *   set by one opcode is that opcode line itself. WR (opcodes 111x) is the NOR of NOT I3, NOT I2, NOT I1, and
+ *   LDR (0 for 11xx) the NOR of the IEN and OEN lines and WR. Opcode lines no control line reads are not built.
+ */
 function decoderModule() {
   const s = new Sheet();
-  const i = [0, 1, 2, 3].map((k) => s.port(`p_i${k}`, 'in', `I${k}`, 0, 40 + 80 * (3 - k)));
-  const ni = i.map((ik, k) => s.nor(`g_ni${k}`, 140, 40 + 80 * (3 - k), [ik]));
-  // opcode line n: 1 when every literal that is 0 for n is 0
-  const line = Array.from({ length: 16 }, (_, n) =>
-    s.nor(`g_op${n}`, 320, 40 + 60 * n, [3, 2, 1, 0].map((k) => ((n >> k) & 1 ? ni[k] : i[k]))));
-  const outputs: Array<[string, (n: number) => boolean]> = [
-    ...[0, 1, 2, 3].map((k): [string, (n: number) => boolean] => [`F${k}`, (n) => INSTRUCTIONS[n].f[3 - k] === '1']),
-    ['LDR', (n) => Boolean(INSTRUCTIONS[n].ldr)],
-    ['LDI', (n) => Boolean(INSTRUCTIONS[n].ldi)],
-    ['LDO', (n) => Boolean(INSTRUCTIONS[n].ldo)],
-    ['WR', (n) => Boolean(INSTRUCTIONS[n].wr)],
-  ];
-  outputs.forEach(([label, on], j) => {
-    const y = 40 + 120 * j;
-    const ones = line.filter((_, n) => on(n));
-    const zeros = line.filter((_, n) => !on(n));
-    const id = label.toLowerCase();
-    // a NOR of the opcode lines where the output is 0 gives it at once; with more than eight such lines,
-    // a NOR of the lines where it is 1 and an inverter
-    const out = zeros.length <= 8
-      ? s.nor(`g_${id}`, 520, y, zeros)
-      : s.nor(`g_${id}`, 660, y, [s.nor(`g_n${id}`, 520, y, ones)]);
-    s.wire(out, s.port(`p_${id}`, 'out', label, 800, y));
+  // ports I3 first, as the ROM gives them
+  const i = [3, 2, 1, 0].map((k) => s.port(`p_i${k}`, 'in', `I${k}`, 0, 40 + 100 * (3 - k))).reverse();
+  const ni = i.map((ik, k) => s.nor(`g_ni${k}`, 160, 60 + 100 * (3 - k), [ik]));
+  const lits = (hi: number, lo: number, v: number) => [(v >> 1) & 1 ? ni[hi] : i[hi], v & 1 ? ni[lo] : i[lo]];
+  // predecode: half h (0 high: I3 I2, 1 low: I1 I0), value v
+  const halves = [[3, 2, 'h'], [1, 0, 'l']] as const;
+  const pre = halves.map(([hi, lo, name], h) => {
+    const y0 = 40 + 360 * h;
+    const lines: string[] = [];
+    for (const v of [1, 2, 3]) lines[v] = s.nor(`g_${name}${v}`, 320, y0 + 80 * (v - 1), lits(hi, lo, v));
+    lines[0] = s.nor(`g_${name}0`, 480, y0, [lines[1], lines[2], lines[3]]);
+    return lines;
   });
+  const npre = halves.map(([, , name], h) => [0, 1, 2, 3].map((v) =>
+    s.nor(`g_n${name}${v}`, 640, 40 + 360 * h + 80 * v, [pre[h][v]])));
+  const zerosOf = (on: (n: number) => boolean) => Array.from({ length: 16 }, (_, n) => n).filter((n) => !on(n));
+  const onesOf = (on: (n: number) => boolean) => Array.from({ length: 16 }, (_, n) => n).filter((n) => on(n));
+  // which opcode lines each control line reads
+  const plan = CONTROLS.map(([label, on]) => {
+    if (label === 'WR' || label === 'LDR') return { label, lines: label === 'LDR' ? [12, 13] : [], form: label };
+    const ones = onesOf(on);
+    if (ones.length === 1) return { label, lines: ones, form: 'line' };
+    const zeros = zerosOf(on);
+    return zeros.length <= 8 ? { label, lines: zeros, form: 'zeros' } : { label, lines: ones, form: 'ones' };
+  });
+  const used = new Set(plan.flatMap((p) => p.lines));
+  const line: string[] = [];
+  let row = 0;
+  for (let n = 0; n < 16; n++) {
+    if (!used.has(n)) continue;
+    line[n] = s.nor(`g_op${n}`, 800, 40 + 80 * row++, [npre[0][n >> 2], npre[1][n & 3]]);
+  }
+  let y = 40;
+  const order = ['F0', 'F1', 'F2', 'F3', 'LDR', 'LDI', 'LDO', 'WR'];
+  for (const p of [...plan].sort((a, b) => order.indexOf(a.label) - order.indexOf(b.label))) {
+    const id = p.label.toLowerCase();
+    let out: string;
+    if (p.form === 'line') {
+      out = line[p.lines[0]];
+      s.wire(out, s.port(`p_${id}`, 'out', p.label, 1280, y));
+      y += 80;
+      continue;
+    }
+    const inputs = p.form === 'WR' ? [ni[3], ni[2], ni[1]] : p.form === 'LDR' ? [...p.lines.map((n) => line[n]), 'g_wr.out'] : p.lines.map((n) => line[n]);
+    const h = (inputs.length + 1) * 20;
+    out = p.form === 'ones'
+      ? s.nor(`g_${id}`, 1120, y + h / 2 - 30, [s.nor(`g_n${id}`, 960, y, inputs)])
+      : s.nor(`g_${id}`, 960, y, inputs);
+    s.wire(out, s.port(`p_${id}`, 'out', p.label, 1280, y + h / 2 - 20));
+    y += h + 40;
+  }
   return { id: 'decoder', title: 'Instruction decoder', parts: s.parts, wires: s.wires };
 }
 
-/** Program ROM, 4 steps × 4 bits: one constant per bit, picked by the step (a 2-bit Johnson count). */
+/**
+ * Program ROM, 4 steps × 4 bits, one constant per bit. The step lines S0…S3 come from the 2-bit Johnson
+ * count (00, 01, 11, 10): three as the NOR of the two literals that are 0 in that step, S1 as the NOR of the
+ * other three; inverters give NOT S, each feeding the four zero terms of its step. Zero term (step s, bit k)
+ * = S s AND NOT bit = NOR(NOT S s, constant); bit k is the NOR of its four zero terms.
+ */
 function romModule() {
   const s = new Sheet();
-  const q1 = s.port('p_q1', 'in', 'Q1', 0, 40);
-  const qn1 = s.port('p_qn1', 'in', 'QN1', 0, 120);
-  const q0 = s.port('p_q0', 'in', 'Q0', 0, 200);
-  const qn0 = s.port('p_qn0', 'in', 'QN0', 0, 280);
-  // step s is the count Q1 Q0 = 00, 01, 11, 10; the literals that are 0 in each step
-  const stepLits = [[q1, q0], [q1, qn0], [qn1, qn0], [qn1, q0]];
+  const q1 = s.port('p_q1', 'in', 'Q1', 0, 20);
+  const qn1 = s.port('p_qn1', 'in', 'QN1', 0, 100);
+  const q0 = s.port('p_q0', 'in', 'Q0', 0, 180);
+  const qn0 = s.port('p_qn0', 'in', 'QN0', 0, 260);
+  const st: string[] = [];
+  st[0] = s.nor('g_s0', 160, 0, [q1, q0]);
+  st[3] = s.nor('g_s3', 160, 80, [qn1, q0]);
+  st[2] = s.nor('g_s2', 160, 200, [qn1, qn0]);
+  st[1] = s.nor('g_s1', 320, 300, [st[0], st[2], st[3]]);
+  // the inverters stepped to the right, so that their wires down to the zero terms run apart
+  const nst = [0, 1, 2, 3].map((k) => s.nor(`g_ns${k}`, 480 + 40 * k, [0, 300, 200, 80][k], [st[k]]));
   const words = PROGRAM.map((name) => INSTRUCTIONS.find((ins) => ins.name === name)!.op);
   for (let k = 3; k >= 0; k--) {
-    const y0 = 40 + 320 * (3 - k);
+    const y0 = 400 * (3 - k);
     // zero term (step s, bit k): 1 in step s when the stored bit is 0; the bit is the NOR of the zero terms
-    const zeroTerms = stepLits.map((lits, st) => {
-      const c = s.add({ id: `c_s${st}_b${k}`, kind: 'const', value: (words[st] >> k) & 1, x: 160, y: y0 + 80 * st - 20 });
-      return s.nor(`g_z${st}_b${k}`, 320, y0 + 80 * st - 20, [...lits, `${c}.out`]);
+    const zeroTerms = [0, 1, 2, 3].map((sn) => {
+      const c = s.add({ id: `c_s${sn}_b${k}`, kind: 'const', value: (words[sn] >> k) & 1, x: 840, y: y0 + 100 * sn + 40 });
+      return s.nor(`g_z${sn}_b${k}`, 960, y0 + 100 * sn, [nst[sn], `${c}.out`]);
     });
-    s.wire(s.nor(`g_b${k}`, 480, y0 + 100, zeroTerms), s.port(`p_i${k}`, 'out', `I${k}`, 620, y0 + 100));
+    s.wire(s.nor(`g_b${k}`, 1120, y0 + 140, zeroTerms), s.port(`p_i${k}`, 'out', `I${k}`, 1280, y0 + 160));
   }
   return { id: 'rom', title: 'Program ROM, 4 steps × 4 bits', parts: s.parts, wires: s.wires };
 }
@@ -177,38 +240,43 @@ function note(): string {
 
 export function buildOneBitProcessor(): BoardFile {
   const s = new Sheet();
-  s.add({ id: 'din', kind: 'switch', label: 'DIN', x: 40, y: 440, on: false });
-  s.add({ id: 'clk', kind: 'clock', label: 'CLK', x: 40, y: 80 });
-  s.add({ id: 'one', kind: 'const', value: 1, x: 40, y: 200 });
+  s.add({ id: 'din', kind: 'switch', label: 'DIN', x: 80, y: 520, on: false });
+  s.add({ id: 'clk', kind: 'clock', label: 'CLK', x: 40, y: 40 });
+  s.add({ id: 'one', kind: 'const', value: 1, x: 40, y: 180 });
   // program counter: two flip-flops, always loading (LE = 1), counting 00 → 01 → 11 → 10
   s.add({ id: 'pc0', kind: 'module', module: 'nor_dff', x: 200, y: 40 });
   s.add({ id: 'pc1', kind: 'module', module: 'nor_dff', x: 200, y: 200 });
-  s.add({ id: 'rom', kind: 'module', module: 'rom', x: 400, y: 120 });
-  s.add({ id: 'dec', kind: 'module', module: 'decoder', x: 600, y: 120 });
-  s.add({ id: 'ien', kind: 'module', module: 'nor_dff', x: 600, y: 440 });
-  s.add({ id: 'oen', kind: 'module', module: 'nor_dff', x: 600, y: 600 });
-  const dMask = s.nor('g_d', 800, 440, ['din.outn', 'ien.QN']); // D = DIN AND IEN
-  s.add({ id: 'lu', kind: 'module', module: 'logic_unit', x: 1000, y: 200 });
-  s.add({ id: 'rr', kind: 'module', module: 'nor_dff', x: 1200, y: 120 });
-  const nwr = s.nor('g_nwr', 1000, 600, ['dec.WR']);
-  const we = s.nor('g_we', 1200, 600, [nwr, 'oen.QN']); // WR AND OEN
-  s.add({ id: 'out', kind: 'module', module: 'nor_dff', x: 1400, y: 400 });
+  // STEP0's driver: pc0's Q already feeds its own latch, its mux and pc1, so the ROM and the lamp take QN inverted
+  const step0 = s.nor('g_step0', 400, 80, ['pc0.QN']);
+  s.add({ id: 'rom', kind: 'module', module: 'rom', x: 560, y: 200 });
+  s.add({ id: 'dec', kind: 'module', module: 'decoder', x: 1080, y: 200 });
+  s.add({ id: 'ien', kind: 'module', module: 'nor_dff', x: 1300, y: 440 });
+  s.add({ id: 'oen', kind: 'module', module: 'nor_dff', x: 1340, y: 600 });
+  // RR's driver for the logic unit (A is four loads there); rr's own Q keeps its latch, its mux and the lamp
+  const rrDrive = s.nor('g_rr', 1300, 140, ['rr.QN']);
+  const nwr = s.nor('g_nwr', 1460, 380, ['dec.WR']);
+  const dMask = s.nor('g_d', 1500, 540, ['din.outn', 'ien.QN']); // D = DIN AND IEN
+  s.add({ id: 'lu', kind: 'module', module: 'logic_unit', x: 1680, y: 160 });
+  const we = s.nor('g_we', 1680, 620, [nwr, 'oen.QN']); // WR AND OEN
+  s.add({ id: 'rr', kind: 'module', module: 'nor_dff', x: 1900, y: 300 });
+  s.add({ id: 'out', kind: 'module', module: 'nor_dff', x: 1900, y: 520 });
   const lamps: Array<[string, string, string, number, number]> = [
-    ['l_s1', 'STEP1', 'pc1.Q', 400, 40], ['l_s0', 'STEP0', 'pc0.Q', 400, 0],
-    ['l_i3', 'I3', 'rom.I3', 800, 0], ['l_i2', 'I2', 'rom.I2', 860, 0], ['l_i1', 'I1', 'rom.I1', 920, 0], ['l_i0', 'I0', 'rom.I0', 980, 0],
-    ['l_ien', 'IEN', 'ien.Q', 1000, 440], ['l_oen', 'OEN', 'oen.Q', 1000, 720],
-    ['l_rr', 'RR', 'rr.Q', 1400, 120], ['l_we', 'WRITE', we, 1400, 600], ['l_out', 'OUT', 'out.Q', 1600, 400],
+    ['l_s0', 'STEP0', step0, 560, 80], ['l_s1', 'STEP1', 'pc1.Q', 400, 340],
+    // the instruction lamps stepped up and to the left, so that no lamp's wire crosses another lamp
+    ['l_i3', 'I3', 'rom.I3', 760, 20], ['l_i2', 'I2', 'rom.I2', 840, 80], ['l_i1', 'I1', 'rom.I1', 920, 140], ['l_i0', 'I0', 'rom.I0', 1000, 180],
+    ['l_ien', 'IEN', 'ien.Q', 1500, 460], ['l_oen', 'OEN', 'oen.Q', 1540, 700],
+    ['l_rr', 'RR', 'rr.Q', 2120, 320], ['l_we', 'WRITE', we, 1900, 680], ['l_out', 'OUT', 'out.Q', 2120, 540],
   ];
   // wires
   for (const ff of ['pc0', 'pc1', 'ien', 'oen', 'rr', 'out']) s.wire('clk.out', `${ff}.CLK`);
   s.wire('one.out', 'pc0.LE'); s.wire('one.out', 'pc1.LE');
   s.wire('pc1.QN', 'pc0.D'); s.wire('pc0.Q', 'pc1.D');
-  s.wire('pc1.Q', 'rom.Q1'); s.wire('pc1.QN', 'rom.QN1'); s.wire('pc0.Q', 'rom.Q0'); s.wire('pc0.QN', 'rom.QN0');
+  s.wire('pc1.Q', 'rom.Q1'); s.wire('pc1.QN', 'rom.QN1'); s.wire(step0, 'rom.Q0'); s.wire('pc0.QN', 'rom.QN0');
   for (const k of [0, 1, 2, 3]) s.wire(`rom.I${k}`, `dec.I${k}`);
   for (const k of [0, 1, 2, 3]) s.wire(`dec.F${k}`, `lu.F${k}`);
   s.wire('din.out', 'ien.D'); s.wire('dec.LDI', 'ien.LE');
   s.wire('din.out', 'oen.D'); s.wire('dec.LDO', 'oen.LE');
-  s.wire('rr.Q', 'lu.A'); s.wire(dMask, 'lu.B');
+  s.wire(rrDrive, 'lu.A'); s.wire(dMask, 'lu.B');
   s.wire('lu.Y', 'rr.D'); s.wire('dec.LDR', 'rr.LE');
   s.wire('lu.Y', 'out.D'); s.wire(we, 'out.LE');
   for (const [id, label, from, x, y] of lamps) {

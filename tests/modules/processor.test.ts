@@ -2,14 +2,19 @@
  * The tube group's demo 1-bit processor (examples/one-bit-processor.gatefold.json): every gate a NOR,
  * built from modules. Its program is run through the command line and through our simulator, clock by
  * clock, and checked against a small interpreter written here from the instruction table on the board's
- * note (not from the simulator). The build sheet plans one 6AU6 per NOR gate.
+ * note (not from the simulator). Its decoder alone is run by Icarus Verilog against the same table. The
+ * build sheet plans one 6AU6 per NOR gate, with no output driving more than the family's four loads, and
+ * the board is laid out without parts over each other.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { flattenBoard, parseBoardFile, type BoardFile } from '../../shared/board';
-import { compileBoard, Simulator } from '../../shared/sim';
+import { flattenBoard, parseBoardFile, splitPinRef, type BoardFile } from '../../shared/board';
+import { compileBoard, Simulator, toHierarchicalVerilog } from '../../shared/sim';
 import { analyzeBoard } from '../../shared/analysis';
+import { familyFacts } from '../../shared/build/families';
 import { runCli } from '../cli/run-cli';
+import { runIverilog } from '../sim/iverilog';
+import { layoutReport } from '../helpers/board-layout';
 import { buildOneBitProcessor, EXAMPLE_FILE } from '../helpers/one-bit-processor';
 
 const FILE = EXAMPLE_FILE.pathname;
@@ -42,6 +47,12 @@ const OPS: Array<[string, Exec]> = [
   ['STO', (s) => { if (s.oen) s.out = s.rr; }],
   ['STON', (s) => { if (s.oen) s.out = 1 - s.rr; }],
 ];
+/** The logic unit's result Y(RR, D) each instruction writes (RR for the register ones, OUT for STO and STON); none for IEN, OEN. */
+const RESULT: Record<string, (rr: number, d: number) => number> = {
+  NOP: (rr) => rr, LD: (_, d) => d, LDN: (_, d) => 1 - d, AND: (rr, d) => rr & d, ANDN: (rr, d) => rr & (1 - d),
+  OR: (rr, d) => rr | d, ORN: (rr, d) => rr | (1 - d), XOR: (rr, d) => rr ^ d, XNOR: (rr, d) => 1 - (rr ^ d),
+  NOT: (rr) => 1 - rr, CLR: () => 0, SET: () => 1, STO: (rr) => rr, STON: (rr) => 1 - rr,
+};
 // the counter steps 00 → 01 → 11 → 10 (a two-stage Johnson counter: common practice, no source)
 const STEP_CODE = ['00', '01', '11', '10'];
 
@@ -191,19 +202,116 @@ describe('1-bit processor demo', () => {
     }
   });
 
+  it('the decoder alone gives each opcode its control lines, under Icarus Verilog as under our analysis', () => {
+    // the decoder module on a board of its own: I3…I0 on switches, its eight control lines on lamps
+    const dec = load().modules!.find((m) => m.id === 'decoder')!;
+    const ins = ['I3', 'I2', 'I1', 'I0'];
+    const outs = ['F0', 'F1', 'F2', 'F3', 'LDR', 'LDI', 'LDO', 'WR'];
+    const parsed = parseBoardFile({
+      format: 'gatefold-board', version: 1, title: 'Decoder alone', family: 'ideal', modules: [dec],
+      parts: [
+        ...ins.map((label, i) => ({ id: label.toLowerCase(), kind: 'switch', label, x: 0, y: 80 * i, on: false })),
+        { id: 'u', kind: 'module', module: 'decoder', x: 200, y: 0 },
+        ...outs.map((label, i) => ({ id: `l_${label.toLowerCase()}`, kind: 'lamp', label, x: 400, y: 60 * i })),
+      ],
+      wires: [
+        ...ins.map((label) => ({ id: `w_${label}`, from: `${label.toLowerCase()}.out`, to: `u.${label}` })),
+        ...outs.map((label) => ({ id: `w_${label}`, from: `u.${label}`, to: `l_${label.toLowerCase()}.in` })),
+      ],
+    });
+    if (!parsed.ok) throw new Error(parsed.problems.map((p) => p.message).join('; '));
+    const table = analyzeBoard(parsed.board, { inputs: ins });
+    // Icarus Verilog (Debian's iverilog, an independent IEEE Std 1364 simulator) runs the hierarchical export
+    const icarus = runIverilog(toHierarchicalVerilog(parsed.board), table.inputs, table.outputs, table.rows.map((r) => [...r.in].map(Number)));
+    expect(icarus).toEqual(table.rows.map((r) => r.out));
+    // what each opcode must give, from the instruction table: Fk = Y at k = 2·RR + D for the instructions
+    // that write a result, LDR for the twelve register instructions, LDI for IEN, LDO for OEN, WR for the stores
+    expect(table.outputs).toEqual(outs);
+    for (const row of table.rows) {
+      const op = Number.parseInt(row.in, 2);
+      const name = OPS[op][0];
+      const got = Object.fromEntries(outs.map((o, i) => [o, row.out[i]]));
+      const f = RESULT[name];
+      const want = {
+        ...(f ? Object.fromEntries([0, 1, 2, 3].map((k) => [`F${k}`, String(f(k >> 1, k & 1))])) : {}),
+        LDR: op < 12 ? '1' : '0', LDI: name === 'IEN' ? '1' : '0', LDO: name === 'OEN' ? '1' : '0', WR: name === 'STO' || name === 'STON' ? '1' : '0',
+      };
+      expect([name, Object.fromEntries(Object.keys(want).map((k) => [k, got[k]]))]).toEqual([name, want]);
+    }
+  });
+
   it('build sheet for the tube family: one tube per NOR gate, heater current = tubes × 0.3 A', async () => {
     const board = load();
     const nors = flattenBoard(board).parts.filter((p) => p.kind === 'nor').length;
-    // 6 flip-flops × 15 + decoder + logic unit 12 + ROM 20 + 3 at the top
-    expect(nors).toBeGreaterThan(6 * 15 + 12 + 20);
+    // six flip-flops of 14 NOR gates, the decoder, the logic unit (12), the ROM, five at the top: 171 in all
+    const inside = (id: string) => board.modules!.find((m) => m.id === id)!.parts.filter((p) => p.kind === 'nor').length;
+    const top = board.parts.filter((p) => p.kind === 'nor').length;
+    expect(inside('nor_dff')).toBe(14);
+    expect(nors).toBe(6 * inside('nor_dff') + inside('decoder') + inside('logic_unit') + inside('rom') + top);
     const r = await runCli(['build-sheet', FILE, '--family', 'tube-drl-nor']);
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
-    const sheet = JSON.parse(r.stdout) as { builtAs: { gates: number }; devices: { tubes: number }; heater: { amps: number; tubes: number } };
+    const sheet = JSON.parse(r.stdout) as {
+      builtAs: { gates: number }; devices: { tubes: number }; heater: { amps: number; tubes: number };
+      fanOut: { limit: number; warnings: unknown[] };
+      criticalPath: { parts: string[]; levels: number; delayNs: number; tpdNs: number };
+      maxClockHz: { typical: number; worstCase: number };
+    };
     expect(sheet.builtAs.gates).toBe(nors);
     expect(sheet.devices.tubes).toBe(nors);
     // 6AU6 heater: 6.3 V, 0.3 A (RCA receiving tube data, from memory)
     expect(sheet.heater.tubes).toBe(nors);
     expect(sheet.heater.amps).toBeCloseTo(nors * 0.3, 6);
+    // no output drives more than the family's fan-out (four diode-resistor inputs per plate load)
+    expect(sheet.fanOut.limit).toBe(4);
+    expect(sheet.fanOut.warnings).toEqual([]);
+    // the critical path starts at the clock and is counted in gate delays; the drivers and the predecoding
+    // lengthen it a little (47 levels, about 53 kHz before them), it stays in the tens of kilohertz
+    expect(sheet.criticalPath.parts[0]).toBe('clk');
+    expect(sheet.criticalPath.delayNs).toBe(sheet.criticalPath.levels * sheet.criticalPath.tpdNs);
+    expect(sheet.criticalPath.levels).toBeLessThanOrEqual(56);
+    expect(sheet.maxClockHz.typical).toBeCloseTo(1e9 / sheet.criticalPath.delayNs, 2);
+    expect(sheet.maxClockHz.typical).toBeGreaterThan(40_000);
+  });
+
+  it('no gate output drives more than four loads, counted here net by net on the flat board', () => {
+    // each gate input and each lamp is one load; an inverter's two tied inputs are two (as the build sheet counts)
+    const limit = familyFacts('tube-drl-nor')!.fanOut.value!;
+    expect(limit).toBe(4);
+    const flat = flattenBoard(load());
+    const kind = new Map(flat.parts.map((p) => [p.id, p.kind]));
+    const parent = new Map<string, string>();
+    const find = (x: string): string => { let r = x; while (parent.has(r)) r = parent.get(r)!; return r; };
+    for (const w of flat.wires) { const a = find(w.from); const b = find(w.to); if (a !== b) parent.set(a, b); }
+    const nets = new Map<string, { drivers: string[]; loads: string[] }>();
+    for (const w of flat.wires) {
+      for (const ref of [w.from, w.to]) {
+        const net = nets.get(find(ref)) ?? { drivers: [], loads: [] };
+        nets.set(find(ref), net);
+        const { part, pin } = splitPinRef(ref)!;
+        const list = pin.startsWith('out') ? net.drivers : net.loads;
+        if (!list.includes(ref)) list.push(ref);
+        expect(kind.has(part)).toBe(true);
+      }
+    }
+    const gateNets = [...nets.values()].filter((n) => n.drivers.some((d) => kind.get(splitPinRef(d)!.part) === 'nor'));
+    expect(gateNets.length).toBeGreaterThan(150);
+    const over = gateNets.filter((n) => n.loads.length > limit).map((n) => `${n.drivers.join('+')}: ${n.loads.length}`);
+    expect(over).toEqual([]);
+    for (const n of gateNets) expect(n.drivers).toHaveLength(1);
+  });
+
+  it('is laid out for the canvas: no part over another, few wires drawn through a part', () => {
+    const board = load();
+    const circuits = [{ id: 'top', circuit: board }, ...board.modules!.map((m) => ({ id: m.id, circuit: m }))];
+    let crossings = 0;
+    for (const { id, circuit } of circuits) {
+      const report = layoutReport(board, circuit);
+      expect([id, report.overlaps]).toEqual([id, []]);
+      crossings += report.crossings.length;
+    }
+    // measured when the drivers went in: 38 (mostly the clock fanning out and the logic unit's literals);
+    // the board before had 20 overlapping parts and 314 wires through parts
+    expect(crossings).toBeLessThanOrEqual(40);
   });
 });
