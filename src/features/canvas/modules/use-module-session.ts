@@ -8,6 +8,7 @@ import { useMemo, useRef } from 'react';
 import { moduleDoc, type BoardFile, type Module } from '../../../../shared/board';
 import { stabilizeBoard } from '../flow/derive-flow';
 import type { BoardSession } from '../session/use-board-session';
+import { markModuleView } from './open-module';
 
 export interface ModuleScope {
   session: BoardSession;
@@ -23,6 +24,7 @@ export function useModuleSession(session: BoardSession, moduleId: string | null)
     let doc;
     try {
       doc = moduleDoc(session.doc, module.id);
+      markModuleView(doc, module.id);
     } catch {
       return { session, module: null };
     }

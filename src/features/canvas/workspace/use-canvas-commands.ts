@@ -6,6 +6,8 @@ import { useCallback, useEffect, useRef } from 'react';
 import { toast } from 'sonner';
 import { addPart, copyFragment, deleteSelection, makeModule, modulesMap, pasteFragment, rotateParts } from '../../../../shared/board';
 import { fragmentOrigin, parseFragment, rememberFragment, rememberedFragment } from '../io/clipboard';
+import { fitFragmentToLevel, leftOutNotice, placementRefusal } from '../io/level-fit';
+import { openModuleOf } from '../modules/open-module';
 import type { Fragment } from '../../../../shared/board';
 import { snap } from '../lib/geometry';
 import { newPart, type TrayChoice } from '../lib/new-part';
@@ -40,10 +42,15 @@ export function useCanvasCommands(deps: Deps) {
     const { session, pointer, selectOnly } = ref.current;
     if (session.readOnly) return;
     if (!fragment || !fragment.parts.length) { toast.message('Nothing to paste: copy some parts first'); return; }
+    // what this level may not hold (switches in a module, ports on the top level) stays out, and the user hears why
+    const inModule = openModuleOf(session.doc) !== null;
+    const fit = fitFragmentToLevel(fragment, inModule);
+    if (fit.leftOut.length) toast.warning(leftOutNotice(fit.leftOut, inModule, fit.fragment.parts.length), { id: 'paste-left-out' });
+    if (!fit.fragment.parts.length) return;
     const o = fragmentOrigin(fragment);
     const at = shift ? { x: o.x + shift.x, y: o.y + shift.y } : pointer.current ?? { x: o.x + 40, y: o.y + 40 };
     const offset = { x: snap(at.x - o.x), y: snap(at.y - o.y) };
-    const { partIds } = pasteFragment(session.doc, fragment, offset, session.origin);
+    const { partIds } = pasteFragment(session.doc, fit.fragment, offset, session.origin);
     selectOnly(partIds);
   }, []);
 
@@ -113,6 +120,8 @@ export function useCanvasCommands(deps: Deps) {
   const place = useCallback((choice: TrayChoice, at: { x: number; y: number }) => {
     const { session, selectOnly } = ref.current;
     if (session.readOnly) return;
+    const refused = placementRefusal(choice.kind, openModuleOf(session.doc) !== null);
+    if (refused) { toast.warning(refused, { id: 'place-refused' }); return; }
     try {
       const part = newPart(choice, snap(at.x), snap(at.y), session.board.parts);
       const id = addPart(session.doc, part, session.origin);
