@@ -135,7 +135,9 @@ const drawnInPage = ({ boxes, wait }: { boxes: [string, number, number, number, 
   const rf = document.querySelector('.react-flow');
   if (!vp || !rf || document.querySelector('[data-testid="sync-note"]')) return wait ? null : { inView: 0, drawn: 0, zoom: 0, fitted: false };
   const m = new DOMMatrixReadOnly(getComputedStyle(vp).transform);
-  const present = new Set([...document.querySelectorAll('.react-flow__node')].map((n) => n.getAttribute('data-id')));
+  // a part is a React Flow node zoomed in, a box of the canvas's own far drawing zoomed out (flow/far-parts.tsx)
+  const present = new Set([...document.querySelectorAll('.react-flow__node')].map((n) => n.getAttribute('data-id'))
+    .concat([...document.querySelectorAll('[data-far-id]')].map((n) => n.getAttribute('data-far-id'))));
   let inView = 0;
   let drawn = 0;
   for (const [id, x, y, w, h] of boxes) {
@@ -157,7 +159,7 @@ async function allDrawn(page: Page, board: BoardFile): Promise<Drawn> {
     return (await handle.jsonValue()) as Drawn;
   } catch (err) {
     const seen = (await page.evaluate(drawnInPage, { boxes, wait: false }))!;
-    const nodes = await page.evaluate(() => document.querySelectorAll('.react-flow__node').length);
+    const nodes = await page.evaluate(() => document.querySelectorAll('.react-flow__node, [data-far-id]').length);
     throw new Error(`parts in view never all drawn: ${seen.drawn} of ${seen.inView} in view (${nodes} nodes in the page, zoom ${seen.zoom.toFixed(3)}, ${seen.fitted ? 'fitted' : 'not fitted'}) (${(err as Error).message.split('\n')[0]})`);
   }
 }
@@ -191,14 +193,14 @@ async function openOnce(page: Page, id: number, board: BoardFile, profileTo?: st
     await page.waitForSelector('[data-testid="board-workspace"]', { timeout: 300_000 });
     await page.waitForSelector('[data-testid="sync-note"]', { state: 'detached', timeout: 120_000 });
     const synced = Date.now() - t0;
-    await page.waitForSelector('.react-flow__node', { timeout: 120_000 });
+    await page.waitForSelector('.react-flow__node, [data-far-id]', { timeout: 120_000 });
     const first = Date.now() - t0;
     const drawn = await allDrawn(page, board);
     return { synced, first, full: Date.now() - t0, drawn };
   };
   const check = async (drawn: Drawn) => {
     // Fit-to-view shows the whole board, in the plain-box mode, with every wire drawn.
-    const seen = await page.evaluate(() => ({ far: document.querySelectorAll('.gf-far').length, wires: document.querySelectorAll('.react-flow__edge').length }));
+    const seen = await page.evaluate(() => ({ far: document.querySelectorAll('.gf-far-part').length, wires: document.querySelectorAll('.react-flow__edge').length }));
     if (drawn.inView < all || seen.far < all || seen.wires < board.wires.length)
       throw new Error(`at fit view: ${drawn.inView} of ${all} parts in view, ${seen.far} plain boxes, ${seen.wires} of ${board.wires.length} wires`);
   };

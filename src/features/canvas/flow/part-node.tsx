@@ -3,7 +3,7 @@
  * its label in JetBrains Mono, badges from the bench and outlines for selection and highlights.
  * Memoised: React Flow re-renders it only when its node object changes.
  */
-import { memo, useContext, useMemo, useState, type MouseEvent } from 'react';
+import { memo, useMemo, useState, type MouseEvent } from 'react';
 import { Handle, Position, type NodeProps } from '@xyflow/react';
 import { allPins } from '../../../../shared/board';
 import type { Level } from '../../../../shared/sim';
@@ -14,7 +14,6 @@ import { NoteSymbol } from '../symbols/note-symbol';
 import { PartLabel } from './label-editor';
 import { usePartActions } from './part-actions';
 import type { PartNode } from './types';
-import { FarContext } from './zoom-detail';
 
 const POSITION: Record<Side, Position> = { left: Position.Left, right: Position.Right, top: Position.Top, bottom: Position.Bottom };
 
@@ -25,7 +24,6 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const pinNames = useMemo(() => allPins(part, modulePins), [part, modulePins]);
   const actions = usePartActions();
   const [renaming, setRenaming] = useState(false);
-  const far = useContext(FarContext);
   const level = (pin: string): Level | undefined => {
     const c = levels[pinNames.indexOf(pin)];
     return c === '0' || c === '1' || c === 'X' || c === 'Z' ? c : undefined;
@@ -39,18 +37,6 @@ function PartNodeView({ data, selected }: NodeProps<PartNode>) {
   const onDoubleClick = part.kind === 'module' ? (e: MouseEvent) => { e.stopPropagation(); actions.openModule(part.module); }
     : part.kind === 'note' || readOnly ? undefined : (e: MouseEvent) => { e.stopPropagation(); setRenaming(true); };
   const badgeMark = badge ? <div className={`gf-badge gf-badge-${badge.tone}`} title={badge.text} data-testid={`badge-${part.id}`}>!</div> : null;
-  // Zoomed out: one plain box per part — no symbol, no pins, no label (a few pixels high at this zoom).
-  // The wires still end on the pins: React Flow has the pins' boxes from the node (derive-flow's
-  // shapeWithHandles), which also redraws the wires of an instance whose module gains or loses a port.
-  if (far) {
-    return (
-      <div className={`${classes.join(' ')} gf-far`} data-testid={`part-${part.id}`} data-kind={part.kind}
-        style={{ width: shape.w, height: shape.h, ...outline }} onDoubleClick={onDoubleClick}>
-        {renaming && <PartLabel partId={part.id} label={part.label} editing onDone={() => setRenaming(false)} />}
-        {badgeMark}
-      </div>
-    );
-  }
   return (
     <div className={classes.join(' ')} data-testid={`part-${part.id}`} data-kind={part.kind}
       style={{ width: shape.w, height: shape.h, ...outline }} onDoubleClick={onDoubleClick}>

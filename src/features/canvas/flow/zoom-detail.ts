@@ -1,9 +1,8 @@
 /**
  * Whether the canvas is zoomed out far enough to draw plain boxes. Read ONCE per canvas (one store
- * subscription in the canvas) and handed to the parts through a context: a `useStore` in every part
- * would run a thousand selectors on every pan frame of a 1,000-part board.
+ * subscription in the canvas): zoomed out the canvas draws the parts itself (flow/far-parts.tsx), a
+ * `useStore` in every part would run a thousand selectors on every pan frame of a 1,000-part board.
  */
-import { createContext } from 'react';
 import type { ReactFlowState } from '@xyflow/react';
 
 /** Below this zoom a part is drawn as a plain box: a thousand detailed symbols cost whole frames to paint. */
@@ -11,9 +10,6 @@ export const DETAIL_ZOOM = 0.45;
 
 /** Store selector: true while zoomed out below DETAIL_ZOOM. */
 export const zoomedOut = (s: ReactFlowState): boolean => s.transform[2] < DETAIL_ZOOM;
-
-/** True while the canvas is zoomed out (plain boxes); provided by the board canvas. */
-export const FarContext = createContext(false);
 
 /** The canvas's least zoom on an ordinary board. */
 export const LEAST_ZOOM = 0.1;

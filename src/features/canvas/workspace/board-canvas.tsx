@@ -20,7 +20,8 @@ import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
 import { FarWires } from '../flow/far-wires';
-import { FarContext, leastZoom, zoomedOut } from '../flow/zoom-detail';
+import { FarParts } from '../flow/far-parts';
+import { leastZoom, zoomedOut } from '../flow/zoom-detail';
 import type { PartNode, WireEdge } from '../flow/types';
 import { RemoteCursors } from '../presence/remote-cursors';
 import { throttle, type PeersView } from '../session/awareness';
@@ -42,6 +43,18 @@ const FIT_PADDING = 0.15;
 const FIT_MAX_ZOOM = 1.25;
 const paneWidth = (s: ReactFlowState) => s.width;
 const paneHeight = (s: ReactFlowState) => s.height;
+
+/**
+ * Zoomed out the parts are drawn by FarParts; React Flow keeps them as hidden nodes, which it neither
+ * mounts nor watches on a pan frame (with onlyRenderVisibleElements a hidden node is never "in view").
+ * One hidden copy per node object, so an unchanged part stays the same object for React Flow.
+ */
+const hiddenCopies = new WeakMap<PartNode, PartNode>();
+function hiddenNode(n: PartNode): PartNode {
+  let h = hiddenCopies.get(n);
+  if (!h) { h = { ...n, hidden: true }; hiddenCopies.set(n, h); }
+  return h;
+}
 
 export interface BoardCanvasProps extends OverlayProps {
   session: BoardSession;
@@ -169,6 +182,26 @@ export function BoardCanvas(props: BoardCanvasProps) {
     sendDrag.flush();
   }, [doc, origin, readOnly, sendDrag]);
 
+  // Zoomed out, FarParts selects and drags the parts (React Flow has them hidden).
+  const { setNodes, setEdges } = flow;
+  const onFarPick = useCallback((id: string, additive: boolean) => {
+    setNodes((ns) => ns.map((n) => {
+      const selected = additive ? (n.id === id ? !n.selected : !!n.selected) : n.id === id;
+      return selected === !!n.selected ? n : { ...n, selected };
+    }));
+    if (!additive) setEdges((es) => (es.some((e) => e.selected) ? es.map((e) => (e.selected ? { ...e, selected: false } : e)) : es));
+  }, [setNodes, setEdges]);
+  const onFarDrag = useCallback((moves: { id: string; x: number; y: number }[], done: boolean) => {
+    const at = new Map(moves.map((m) => [m.id, done ? { x: snap(m.x), y: snap(m.y) } : { x: m.x, y: m.y }]));
+    setNodes((ns) => ns.map((n) => { const p = at.get(n.id); return p ? { ...n, position: p, dragging: !done } : n; }));
+    if (!done) { sendDrag(moves); return; }
+    if (!readOnly) movePart(doc, [...at].map(([id, p]) => ({ id, ...p })), origin);
+    sendDrag(null);
+    sendDrag.flush();
+  }, [setNodes, sendDrag, readOnly, doc, origin]);
+  const onFarOpenModule = useCallback((moduleId: string) => live.current.onOpenModule?.(moduleId), []);
+  const rfNodes = useMemo(() => (far ? flow.nodes.map(hiddenNode) : flow.nodes), [far, flow.nodes]);
+
   const onSelectionChange = useCallback(({ nodes }: OnSelectionChangeParams) => {
     aw.setLocalStateField('selection', nodes.map((n) => n.id));
   }, [aw]);
@@ -194,11 +227,10 @@ export function BoardCanvas(props: BoardCanvasProps) {
   return (
     <PartActionsContext.Provider value={actions}>
       <ModulesContext.Provider value={modulesView}>
-      <FarContext.Provider value={far}>
       <div ref={canvasRef} className={`gf-canvas relative h-full w-full ${armed ? 'gf-armed' : ''}`} data-testid="board-canvas" data-readonly={readOnly ? 'true' : 'false'}
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
-          nodes={flow.nodes}
+          nodes={rfNodes}
           edges={far ? NO_WIRES : flow.edges}
           nodeTypes={nodeTypes}
           edgeTypes={edgeTypes}
@@ -215,10 +247,10 @@ export function BoardCanvas(props: BoardCanvasProps) {
           connectionMode={ConnectionMode.Loose}
           snapToGrid
           snapGrid={SNAP}
-          // Zoomed in, only the parts in view are in the page (full symbols are heavy). Zoomed out the whole
-          // board is plain boxes and mostly in view: culling would only mount and unmount parts at the
-          // edges on every pan frame, each a repaint of the moving layer.
-          onlyRenderVisibleElements={!far}
+          // Zoomed in, only the parts in view are in the page (full symbols are heavy). Zoomed out the parts
+          // are hidden nodes (drawn by FarParts, all of them: culling would only add and remove boxes at the
+          // edges on every pan frame, each a repaint of the moving layer), which React Flow then skips.
+          onlyRenderVisibleElements
           nodesDraggable={!readOnly}
           nodesConnectable={!readOnly}
           elementsSelectable
@@ -237,6 +269,8 @@ export function BoardCanvas(props: BoardCanvasProps) {
           <CanvasGrid far={far} />
           {/* zoomed out the wires are one drawing, not an edge each (flow/far-wires.tsx) */}
           {far && <FarWires nodes={flow.nodes} edges={flow.edges} />}
+          {/* zoomed out the parts are plain boxes in one drawing, not a React Flow node each (flow/far-parts.tsx) */}
+          {far && <FarParts nodes={flow.nodes} draggable={!readOnly} onPick={onFarPick} onDrag={onFarDrag} onOpenModule={onFarOpenModule} />}
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
@@ -251,7 +285,6 @@ export function BoardCanvas(props: BoardCanvasProps) {
         </ReactFlow>
         {helpOpen && <HelpSheet readOnly={readOnly} onClose={() => onHelp(false)} />}
       </div>
-      </FarContext.Provider>
       </ModulesContext.Provider>
     </PartActionsContext.Provider>
   );
