@@ -60,9 +60,10 @@ export function lagrangianValue(p: CoverLp, y: Float64Array): number {
 }
 
 /**
- * Solves the dual packing LP. `maxPivots` bounds the work; the multipliers reached are returned either way.
+ * Solves the dual packing LP. `maxWork` (tableau entries touched) and `maxPivots` bound the work; the
+ * multipliers reached are returned either way (a valid, weaker bound when stopped early).
  */
-export function solveCoverLp(p: CoverLp, maxPivots = 20_000): LpResult {
+export function solveCoverLp(p: CoverLp, maxWork = Infinity, maxPivots = 50_000): LpResult {
   const capped = Number.isFinite(p.cap);
   const both = capped && !!p.exact;
   // dual variables (tableau columns): y, then μ⁺ (cap ≤), then μ⁻ (cap ≥, when exact)
@@ -90,7 +91,7 @@ export function solveCoverLp(p: CoverLp, maxPivots = 20_000): LpResult {
   let unbounded = false;
   const rowK = new Float64Array(n);
   const nzIdx = new Int32Array(n);
-  while (pivots < maxPivots) {
+  while (pivots < maxPivots && work < maxWork) {
     // entering column: largest d (Dantzig), or the lowest label with d > 0 (Bland) while degenerate
     let k = -1;
     if (degenerate < 50) {

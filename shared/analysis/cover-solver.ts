@@ -201,6 +201,13 @@ function components(rows: number[][]): number[][][] {
 
 import { solveCoverLp, type CoverLp } from './cover-lp';
 
+/**
+ * Largest open part (open rows × free columns) given to the simplex: its dense tableau takes 8 bytes an
+ * entry (2 million: 16 MB), and larger parts take too many pivots to pay for themselves; they keep the
+ * subgradient bound.
+ */
+const LP_ENTRIES = 2_000_000;
+
 const FREE = 0;
 const IN = 1;
 const OUT = 2;
@@ -602,7 +609,7 @@ class BranchAndBound {
       }
       bound = this.subgradient(lambda, this.w, this.capped, this.best - this.cost, this.rc, its, depth === 0 ? HEUR_EVERY : 0);
       if (this.out) return finish();
-      if (!prunes(bound, this.best - this.cost) && round === 0) {
+      if (!prunes(bound, this.best - this.cost) && round === 0 && this.openRows() * this.freeColumns() <= LP_ENTRIES) {
         const saved = Float64Array.from(lambda);
         const lp = this.lpBound(lambda);
         haveX = true;
@@ -686,7 +693,7 @@ class BranchAndBound {
     const rowId = new Int32Array(this.R).fill(-1);
     const cols: number[] = [];
     const lp = this.openLp(this.w, this.capped, rowId, cols);
-    const res = solveCoverLp(lp);
+    const res = solveCoverLp(lp, Math.max(0, this.budget.left) * 4);
     // a tableau entry update costs about a quarter of an entry visit of the Lagrangian (measured)
     this.spend(Math.ceil(res.work / 4));
     this.x.fill(0);
@@ -713,6 +720,12 @@ class BranchAndBound {
       cost[j] = w[p];
     });
     return { rows: R, cols: cols.length, colStart, colRow: Int32Array.from(entries), cost, cap: withCap ? this.cap - this.taken : Infinity, exact: withCap };
+  }
+
+  private freeColumns(): number {
+    let n = 0;
+    for (let p = 0; p < this.C; p++) if (this.state[p] === FREE) n++;
+    return n;
   }
 
   private openRows(): number {
