@@ -84,9 +84,8 @@ const SRC_ONE = 5;
 export function compileBitProgram(
   netlist: Netlist, cone: Cone, inputs: CompiledPart[], nets: number[], floating: Level, totalWords: number, fourValued = false,
 ): BitProgram {
-  const nNets = netlist.nets.length;
   const parts = netlist.parts;
-  const { driver, driverPin, driverCount, order, kindClass } = cone;
+  const { driver, driverPin, driverCount, order, kindClass, nNets } = cone;
   const inOrder = new Uint8Array(parts.length);
   for (let i = 0; i < order.length; i++) inOrder[order[i]] = 1;
   const shiftOf = new Int32Array(parts.length).fill(-1);

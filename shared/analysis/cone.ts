@@ -24,6 +24,8 @@ export interface Cone {
   driverPin: Int32Array;
   /** per part: 1 combinational, 2 input, 3 storage, 0 other (outputs, notes) */
   kindClass: Uint8Array;
+  /** net ids are below this (one past the highest net of any pin) */
+  nNets: number;
 }
 
 const COMBINATIONAL = 1;
@@ -45,7 +47,7 @@ function classOf(kind: string): number {
 export function tableCone(netlist: Netlist, nets: number[]): Cone {
   const parts = netlist.parts;
   const nParts = parts.length;
-  const nNets = netlist.nets.length;
+  const nNets = netBound(netlist);
   const kindClass = new Uint8Array(nParts);
   const driverCount = new Int32Array(nNets);
   const driver = new Int32Array(nNets).fill(-1);
@@ -59,8 +61,25 @@ export function tableCone(netlist: Netlist, nets: number[]): Cone {
       if (driverCount[net]++ === 0) { driver[net] = i; driverPin[net] = k; } else driver[net] = -1;
     }
   }
-  const base = { driverCount, driver, driverPin, kindClass };
+  const base = { driverCount, driver, driverPin, kindClass, nNets };
   return depthFirst(netlist, nets, base) ?? fromLevelised(netlist, nets, base);
+}
+
+/**
+ * One past the highest net id on any pin. Not `netlist.nets.length`: the netlist describes its nets
+ * (drivers, readers, names: an object and strings per net) only when they are first read, which in a
+ * fresh process costs more than the whole combinational table; the table needs only the ids.
+ */
+function netBound(netlist: Netlist): number {
+  const parts = netlist.parts;
+  let max = -1;
+  for (let i = 0; i < parts.length; i++) {
+    const ins = parts[i].inputs;
+    for (let k = 0; k < ins.length; k++) if (ins[k] > max) max = ins[k];
+    const outs = parts[i].outputs;
+    for (let k = 0; k < outs.length; k++) if (outs[k] > max) max = outs[k];
+  }
+  return max + 1;
 }
 
 /** 0 not yet known, 2 clean, 3 stateful (nets and parts); 1: a part being visited. */
@@ -75,7 +94,7 @@ function depthFirst(netlist: Netlist, nets: number[], base: Base): Cone | undefi
   const parts = netlist.parts;
   const nParts = parts.length;
   const partState = new Uint8Array(nParts);
-  const netState = new Uint8Array(netlist.nets.length);
+  const netState = new Uint8Array(base.nNets);
   const order = new Int32Array(nParts);
   let placed = 0;
   // frames: a part (−1: the requested nets) and the next of its input nets

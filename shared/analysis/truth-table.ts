@@ -1,5 +1,6 @@
 import { Simulator, type Netlist } from '../sim';
 import { BitParallelEvaluator } from './bit-parallel';
+import { WasmEvaluator } from './wasm-kernel';
 import { compileBitProgram } from './bit-program';
 import { tableCone } from './cone';
 import { familyFloating } from './floating';
@@ -21,7 +22,12 @@ export interface TruthTable {
   sequential: boolean[];
   /** per output: the path that computed it */
   method: ('bit-parallel' | 'event')[];
+  /** which kernel ran the bit-parallel outputs (absent when none did) */
+  kernel?: TableKernel;
 }
+
+/** The bit-parallel kernels: WebAssembly (`wasm-kernel.ts`) or the JS loops (`bit-kernel.ts`). */
+export type TableKernel = 'wasm' | 'js';
 
 /** Progress of an enumeration. */
 export interface TableProgress { done: number; total: number }
@@ -34,6 +40,8 @@ export interface EnumerateOptions {
   eventOnly?: boolean;
   /** keep the four-valued planes where the two-valued path would do (tests and the benchmark compare them) */
   fourValued?: boolean;
+  /** the kernel to use; default: WebAssembly where it compiles here, else JS */
+  kernel?: TableKernel;
 }
 
 /**
@@ -53,11 +61,13 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
   const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 8192) / 32) * 32);
   const total = rowCount * (useEvent.some((u) => !u) ? 1 : 0) + rowCount * (useEvent.some((u) => u) ? 1 : 0);
   let done = 0;
+  let kernel: TableKernel | undefined;
   const direct = spec.outputs.flatMap((o, i) => (useEvent[i] ? [] : [i]));
   if (direct.length) {
     const totalWords = Math.ceil(rowCount / 32);
     const prog = compileBitProgram(netlist, cone, spec.inputs, direct.map((i) => spec.outputs[i].inputs[0]), familyFloating(netlist.family), totalWords, opts.fourValued);
-    const bp = new BitParallelEvaluator(prog);
+    const bp = (opts.kernel !== 'js' ? WasmEvaluator.create(prog) : undefined) ?? new BitParallelEvaluator(prog);
+    kernel = bp instanceof WasmEvaluator ? 'wasm' : 'js';
     const out = direct.map((i) => values[i]);
     const wordsPer = chunk / 32;
     for (let w0 = 0; w0 < totalWords; w0 += wordsPer) {
@@ -88,6 +98,7 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
     inputs: spec.inputs.map((p) => p.name), outputs: spec.outputs.map((p) => p.name),
     inputIds: spec.inputs.map((p) => p.id), outputIds: spec.outputs.map((p) => p.id),
     rowCount, values, sequential, method: useEvent.map((u) => (u ? 'event' : 'bit-parallel')),
+    ...(kernel ? { kernel } : {}),
   };
 }
 

@@ -6,7 +6,9 @@ import type { AppConfig } from '../../config';
 /**
  * Security headers. The CSP allows only our own scripts, styles (inline style attributes too: the
  * canvas positions nodes with them), fonts, images from blob:/data: (image export), websockets to
- * this host, and workers from self/blob:.
+ * this host, and workers from self/blob:. 'wasm-unsafe-eval' lets the analysis panel's Web Worker compile
+ * the truth-table kernel it emits as WebAssembly (shared/analysis/wasm-kernel.ts, decision 007); it
+ * allows WebAssembly compilation only, not eval() or new Function().
  */
 export function securityHeaders(config: AppConfig): RequestHandler {
   const https = config.publicUrl?.startsWith('https:') ?? false;
@@ -16,7 +18,7 @@ export function securityHeaders(config: AppConfig): RequestHandler {
       useDefaults: false,
       directives: {
         defaultSrc: ["'self'"],
-        scriptSrc: ["'self'"],
+        scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
         styleSrc: ["'self'", "'unsafe-inline'"],
         fontSrc: ["'self'", 'data:'],
         imgSrc: ["'self'", 'blob:', 'data:'],
