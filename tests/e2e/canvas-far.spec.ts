@@ -70,7 +70,6 @@ test('zoomed out: parts drawn as one layer, selected and dragged there; zooming 
   for (let k = 0; k < 12 && (await page.locator('[data-far-id]').count()) > 0; k++) {
     await page.mouse.wheel(0, -400);
     await page.waitForTimeout(150);
-    console.log('zoom', await page.locator('.react-flow__viewport').evaluate((el) => getComputedStyle(el).transform), await page.evaluate(() => document.elementFromPoint(600, 300)?.className));
   }
   await expect(page.locator('[data-far-id]')).toHaveCount(0);
   await expect(page.getByTestId('part-s9')).toHaveClass(/gf-selected/);

@@ -1,5 +1,5 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
@@ -19,6 +19,7 @@ import { BuildPanel, useBuildSheet } from '../../features/build';
 import { BringupPanel, useBringup } from '../../features/bringup';
 import { useBoardHistory } from '../../features/snapshots';
 import type { ApiBoard } from '../../../shared/api';
+import type { BoardFile } from '../../../shared/board';
 import { PageTitle } from '../../components/ui/page-title';
 import { ClassPanel, LessonPanel, useAudience, useLesson } from '../../features/class';
 
@@ -98,7 +99,9 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
   const build = useBuildSheet(session.board);
-  const bringup = useBringup(board.id, board.role, session.board);
+  // the bring-up's test vectors (a fault simulation of the whole board, on this thread) wait until the
+  // browser is idle, after the canvas is drawn
+  const bringup = useBringup(board.id, board.role, useIdleValue(session.board, NO_PARTS));
   const lesson = useLesson(session);
   const highlight = lesson.highlight ?? bringup.highlight ?? build.highlight ?? analysis.highlight;
   // preview and compare show a snapshot read-only on the canvas, without the live levels
@@ -118,6 +121,19 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
         bottom={<TimingStrip {...sim.timing} />} />
     </>
   );
+}
+
+const NO_PARTS: BoardFile = { format: 'gatefold-board', version: 1, title: '', family: 'ideal', parts: [], wires: [] };
+
+/** `value` as of the browser's last idle moment (`initial` before the first): work on it waits for idle. */
+function useIdleValue<T>(value: T, initial: T): T {
+  const [idle, setIdle] = useState(initial);
+  useEffect(() => {
+    if (typeof requestIdleCallback !== 'function') { setIdle(() => value); return; }
+    const handle = requestIdleCallback(() => setIdle(() => value), { timeout: 2000 });
+    return () => cancelIdleCallback(handle);
+  }, [value]);
+  return idle;
 }
 
 function BadId() {

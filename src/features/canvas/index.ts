@@ -1,5 +1,5 @@
 /** The live shared canvas: the board session (Yjs + y-websocket + per-user undo) and the workspace that shows it. */
-export { useBoardSession } from './session/use-board-session';
+export { preconnectBoard, useBoardSession } from './session/use-board-session';
 export type { BoardSession, BoardSessionOptions, BoardRole, ConnectionStatus } from './session/use-board-session';
 export { BoardWorkspace } from './workspace/board-workspace';
 export type { BoardWorkspaceProps } from './workspace/board-workspace';

@@ -73,9 +73,63 @@ function createLive(boardId: string, shareToken: string | undefined): Live {
   const doc = new Y.Doc();
   const params: Record<string, string> = shareToken ? { share: shareToken } : {};
   const provider = new WebsocketProvider(wsBase(), boardId, doc, { connect: false, params, maxBackoffTime: 4000 });
+  // The provider sends every update of the document but what came from the provider itself; Yjs encodes
+  // an update for any 'update' listener before calling it. So for a transaction of the provider (the whole
+  // board on opening: a second pass over all of it) the provider's listener is off, for all others on.
+  // 'afterTransactionCleanup' comes for each transaction just before Yjs looks for 'update' listeners.
+  const send = (provider as unknown as { _updateHandler: (update: Uint8Array, origin: unknown) => void })._updateHandler;
+  let sending = true;
+  doc.on('afterTransactionCleanup', (tr: Y.Transaction) => {
+    const want = tr.origin !== provider;
+    if (want === sending || typeof send !== 'function') return;
+    sending = want;
+    if (want) doc.on('update', send);
+    else doc.off('update', send);
+  });
   const origin = { session: boardId, client: doc.clientID };
   const undo = createUndoManager(doc, origin);
   return { doc, provider, undo, origin };
+}
+
+/** Sessions connected before the page mounted (preconnectBoard), by board and share token. */
+const early = new Map<string, Live>();
+const earlyKey = (boardId: string, shareToken: string | undefined) => `${boardId}|${shareToken ?? ''}`;
+/** How long a session connected early waits for its page before it is closed. */
+const EARLY_WAIT_MS = 20_000;
+
+/**
+ * Opens the socket of the board at `path` (`/boards/<id>`) at once, before the app has rendered, checked
+ * the sign-in and asked for the board row: the document then arrives while those run instead of after
+ * them. The board's session (useBoardSession) takes it up; if no page does (signed out, a refusal, another
+ * page), it is closed. Nothing is shown or sent from it before that.
+ */
+export function preconnectBoard(path: string, search: string): void {
+  const m = /^\/boards\/(\d+)\/?$/.exec(path);
+  if (!m || typeof WebSocket === 'undefined') return;
+  const shareToken = new URLSearchParams(search).get('share') || undefined;
+  const key = earlyKey(m[1], shareToken);
+  if (early.has(key)) return;
+  const live = createLive(m[1], shareToken);
+  early.set(key, live);
+  const drop = () => {
+    if (early.get(key) !== live || claimed.has(live)) return;
+    early.delete(key);
+    live.undo.destroy();
+    live.provider.destroy();
+    live.doc.destroy();
+  };
+  // refused before a page took it up (e.g. not signed in): the page's own session will say why
+  live.provider.on('connection-close', (event: CloseEvent | null) => { if (event && REFUSALS[event.code]) drop(); });
+  setTimeout(drop, EARLY_WAIT_MS);
+  live.provider.connect();
+}
+
+const claimed = new WeakSet<Live>();
+/** The session connected early for this board, if any (the same one until it is torn down). */
+function takeEarly(boardId: string, shareToken: string | undefined): Live | undefined {
+  const live = early.get(earlyKey(boardId, shareToken));
+  if (live) claimed.add(live);
+  return live;
 }
 
 function guestName(): string {
@@ -85,10 +139,11 @@ function guestName(): string {
 /** The live board session of `boardId` for a user of `role`. */
 export function useBoardSession(boardId: string, role: BoardRole, options: BoardSessionOptions = {}): BoardSession {
   const shareToken = options.shareToken ?? (new URLSearchParams(location.search).get('share') || undefined);
-  const live = useMemo(() => createLive(boardId, shareToken), [boardId, shareToken]);
-  const [board, setBoard] = useState<BoardFile>(EMPTY_BOARD);
-  const [status, setStatus] = useState<ConnectionStatus>('connecting');
-  const [synced, setSynced] = useState(false);
+  const live = useMemo(() => takeEarly(boardId, shareToken) ?? createLive(boardId, shareToken), [boardId, shareToken]);
+  // a session connected early may have the board already
+  const [board, setBoard] = useState<BoardFile>(() => (live.provider.synced ? docToBoard(live.doc) : EMPTY_BOARD));
+  const [status, setStatus] = useState<ConnectionStatus>(() => (live.provider.wsconnected ? 'live' : 'connecting'));
+  const [synced, setSynced] = useState(() => live.provider.synced);
   const [refusal, setRefusal] = useState<string | null>(null);
   const [stacks, setStacks] = useState({ canUndo: false, canRedo: false });
   const [me, setMe] = useState<{ id: string | number; name: string } | null>(options.user ?? null);
@@ -128,6 +183,8 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
       if (alive) setBoard((prev) => stabilizeBoard(prev === EMPTY_BOARD ? null : prev, docToBoard(doc)));
     };
     const onUpdate = () => { if (!raf) raf = requestAnimationFrame(publish); };
+    // a transaction that changed something (not an 'update' listener: that would have Yjs encode each one)
+    const onTransaction = (tr: Y.Transaction) => { if (tr.changed.size > 0 || tr.deleteSet.clients.size > 0) onUpdate(); };
     const onStatus = ({ status: s }: { status: 'connected' | 'disconnected' | 'connecting' }) => {
       if (!provider.shouldConnect) return; // stopped after a refusal: keep saying why
       if (s === 'connected') { everConnected.current = true; setStatus('live'); }
@@ -145,7 +202,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
     const onStacks = () => setStacks({ canUndo: undo.canUndo(), canRedo: undo.canRedo() });
     const onOffline = () => provider.shouldConnect && setStatus('offline');
     const onOnline = () => provider.shouldConnect && setStatus(provider.wsconnected ? 'live' : 'reconnecting');
-    doc.on('update', onUpdate);
+    doc.on('afterTransaction', onTransaction);
     provider.on('status', onStatus);
     provider.on('sync', onSync);
     provider.on('connection-close', onClose);
@@ -155,12 +212,15 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
     window.addEventListener('offline', onOffline);
     window.addEventListener('online', onOnline);
     provider.connect();
+    // connected (and maybe synced) before this page mounted: the events have passed
+    if (provider.wsconnected) { everConnected.current = true; setStatus('live'); }
+    if (provider.synced) setSynced(true);
     publish();
     clearTimeout(teardowns.get(live));
     return () => {
       alive = false;
       if (raf) cancelAnimationFrame(raf);
-      doc.off('update', onUpdate);
+      doc.off('afterTransaction', onTransaction);
       provider.off('status', onStatus);
       provider.off('sync', onSync);
       provider.off('connection-close', onClose);
@@ -171,6 +231,7 @@ export function useBoardSession(boardId: string, role: BoardRole, options: Board
       window.removeEventListener('online', onOnline);
       provider.disconnect();
       teardowns.set(live, setTimeout(() => {
+        for (const [key, l] of early) if (l === live) early.delete(key);
         undo.destroy();
         provider.destroy();
         doc.destroy();
