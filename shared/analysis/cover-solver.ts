@@ -14,7 +14,8 @@
  *   proved that no cover has fewer — which lifts the bound well above the subgradient's).
  * - **Reduced-cost fixing**: a column whose reduced cost lifts the bound to the best known is struck; a
  *   column whose removal would do so is taken.
- * - **Incumbents** from the LP solution (columns by LP value, made irredundant) and from the reduced
+ * - **Incumbents** from the LP solution (columns by LP value, made irredundant; at the root a dive:
+ *   columns of high LP value taken and the LP solved again until the rows are covered) and from the reduced
  *   costs: the columns of negative reduced cost, completed greedily, redundant columns dropped,
  *   single-column swaps to cheaper ones.
  * - **Branch and bound** on the free column whose LP value is nearest 1/2 (take it, then strike it);
@@ -207,6 +208,11 @@ import { solveCoverLp, type CoverLp } from './cover-lp';
  * subgradient bound.
  */
 const LP_ENTRIES = 2_000_000;
+/**
+ * The simplex sees each column's cost raised by a fixed pseudo-random amount below this (equal costs make
+ * the LP very degenerate: many pivots that gain nothing); the bound is still computed with the true costs.
+ */
+const PERTURB = 1e-3;
 
 const FREE = 0;
 const IN = 1;
@@ -515,6 +521,40 @@ class BranchAndBound {
     this.offer(set);
   }
 
+  /**
+   * LP diving for an incumbent: take the free columns of LP value ≥ 0.9 and the one of largest value
+   * below, propagate, solve the LP of what is left, round it, until the rows are covered or the bound
+   * shows no better cover down this path; then everything is undone and the node's multipliers,
+   * reduced costs and LP solution restored.
+   */
+  private dive(lambda: Float64Array): void {
+    const mark = this.trail.length;
+    const x0 = Float64Array.from(this.x);
+    const trial = Float64Array.from(lambda);
+    for (let step = 0; step < this.C && !this.out; step++) {
+      let top = -1;
+      let topX = 0;
+      let took = false;
+      for (let p = 0; p < this.C; p++) {
+        if (this.state[p] !== FREE) continue;
+        const v = this.x[p];
+        if (v >= 0.9) { this.setIn(p); took = true; } else if (v > topX) { topX = v; top = p; }
+      }
+      if (!took && top >= 0) this.setIn(top);
+      else if (!took) break;
+      if (!this.propagate()) break;
+      if (this.openRows() === 0) { this.offer(this.inSet()); break; }
+      if (this.taken >= this.cap || this.cost >= this.best) break;
+      if (this.openRows() * this.freeColumns() > LP_ENTRIES) break;
+      const b = this.lpBound(trial);
+      this.heuristicX();
+      if (prunes(b, this.best - this.cost)) break;
+    }
+    this.undo(mark);
+    this.x.set(x0);
+    this.evaluate(lambda, this.w, this.capped, this.rc);
+  }
+
   /** A cover by rounding the LP solution: free columns by LP value (highest first) while they cover an open row, then made irredundant. */
   private heuristicX(): void {
     const { cnt } = this;
@@ -615,6 +655,7 @@ class BranchAndBound {
         haveX = true;
         if (lp > bound) bound = lp; else { lambda.set(saved); bound = this.evaluate(lambda, this.w, this.capped, this.rc); }
         this.heuristicX();
+        if (depth === 0) this.dive(lambda);
       }
       this.heuristic();
       const need = this.best - this.cost;
@@ -717,7 +758,7 @@ class BranchAndBound {
     cols.forEach((p, j) => {
       for (let k = this.colStart[p]; k < this.colStart[p + 1]; k++) { const r = rowId[this.colRow[k]]; if (r >= 0) entries.push(r); }
       colStart[j + 1] = entries.length;
-      cost[j] = w[p];
+      cost[j] = w[p] + PERTURB * (((p * 2654435761) >>> 0) / 4294967296);
     });
     return { rows: R, cols: cols.length, colStart, colRow: Int32Array.from(entries), cost, cap: withCap ? this.cap - this.taken : Infinity, exact: withCap };
   }

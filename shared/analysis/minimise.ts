@@ -25,7 +25,7 @@ export interface MinimalCovers {
  * whether a form is proven does not depend on the machine's load.
  */
 export function defaultProofWork(n: number): number {
-  return n <= 10 ? 100_000_000 : 500_000_000;
+  return n <= 10 ? 140_000_000 : 500_000_000;
 }
 
 /** Limits of the exact method (defaults: 12 inputs, 600 products, `defaultProofWork(n)` + 2,000,000 search word operations, 32 covers). */
