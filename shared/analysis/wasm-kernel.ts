@@ -109,7 +109,7 @@ function leb5(at: number, x: number): void {
 }
 
 /** The module: one function `run(firstWord, turns)` and its memory, both exported; undefined if too big. */
-function emitModule(prog: BitProgram): { bytes: Uint8Array<ArrayBuffer>; outBase: number } | undefined {
+function emitModule(prog: BitProgram): { bytes: Uint8Array<ArrayBuffer>; outBase: number; memBytes: number } | undefined {
   const { W, ops, fixed, inputs, outputs, size } = prog;
   const nOut = outputs.length >> 1;
   const outBase = (size / W) * 16;
@@ -118,13 +118,14 @@ function emitModule(prog: BitProgram): { bytes: Uint8Array<ArrayBuffer>; outBase
   shift = 31 - Math.clz32(W);
   buf = new Uint8Array(1024 + 20 * ops.length + 40 * (inputs.length + fixed.length) + 420 * nOut);
   p = 0;
-  // header; type (i32, i32) → (); one function; memory; exports "run" and "mem"
-  const head = [0, 0x61, 0x73, 0x6d, 1, 0, 0, 0, 1, 6, 1, 0x60, 2, 0x7f, 0x7f, 0, 3, 2, 1, 0, 5, 4, 1, 0];
-  for (let i = 0; i < head.length; i++) buf[p++] = head[i];
+  // header; type (i32, i32) → (); imports the thread's memory as env.mem (at least `pages`); one
+  // function; exports "run"
   const pages = Math.max(1, Math.ceil(memBytes / 65536));
-  buf[p - 3] = 5; // the memory section's size: count, flag, and a 3-byte page count
-  addr3(pages);
-  const tail = [7, 13, 2, 3, 0x72, 0x75, 0x6e, 0, 0, 3, 0x6d, 0x65, 0x6d, 2, 0, 10];
+  const head = [0, 0x61, 0x73, 0x6d, 1, 0, 0, 0, 1, 6, 1, 0x60, 2, 0x7f, 0x7f, 0,
+    2, 14, 1, 3, 0x65, 0x6e, 0x76, 3, 0x6d, 0x65, 0x6d, 2, 0];
+  for (let i = 0; i < head.length; i++) buf[p++] = head[i];
+  addr3(pages); // the import's minimum, a 3-byte page count
+  const tail = [3, 2, 1, 0, 7, 7, 1, 3, 0x72, 0x75, 0x6e, 0, 0, 10];
   for (let i = 0; i < tail.length; i++) buf[p++] = tail[i];
   const codeSize = p;
   p += 5;
@@ -138,7 +139,7 @@ function emitModule(prog: BitProgram): { bytes: Uint8Array<ArrayBuffer>; outBase
   leb5(bodySize, p - bodySize - 5);
   const bytes = buf.slice(0, p);
   buf = new Uint8Array(0);
-  return { bytes, outBase };
+  return { bytes, outBase, memBytes };
 }
 
 function emitBody(prog: BitProgram, outBase: number): void {
@@ -331,34 +332,49 @@ export function wasmKernelUsable(): boolean {
   return usable;
 }
 
+/**
+ * One memory for every module of this thread, grown as a table needs (at most 2 MiB): a memory of its
+ * own per table would reserve address space (and its guard region) each time, and the engine then
+ * collects garbage to give it back — several milliseconds, now and then, in a warm process. Modules
+ * may share it because every call writes each value before reading it (constants and inputs first)
+ * and its codes are copied out before the call returns.
+ */
+let memory: WebAssembly.Memory | undefined;
+let view = new Uint8Array(0);
+
+/** The shared memory with at least `bytes` bytes, and a view of it (growing replaces the buffer). */
+function memoryOf(bytes: number): WebAssembly.Memory {
+  const pages = Math.ceil(bytes / 65536);
+  if (!memory) memory = new WebAssembly.Memory({ initial: Math.max(pages, 4) });
+  else if (memory.buffer.byteLength < pages * 65536) memory.grow(pages - memory.buffer.byteLength / 65536);
+  return memory;
+}
+
 /** Runs a compiled program in a WebAssembly module and writes the row codes of its outputs. */
 export class WasmEvaluator {
   private readonly run: (firstWord: number, turns: number) => void;
-  private readonly mem: Uint8Array;
   private readonly outBase: number;
 
-  private constructor(private readonly prog: BitProgram, run: (firstWord: number, turns: number) => void, mem: Uint8Array, outBase: number) {
+  private constructor(private readonly prog: BitProgram, run: (firstWord: number, turns: number) => void, outBase: number) {
     this.run = run;
-    this.mem = mem;
     this.outBase = outBase;
   }
 
   /** The evaluator, or undefined where WebAssembly (with SIMD) cannot be compiled here. */
   static create(prog: BitProgram): WasmEvaluator | undefined {
     if (!usable) return undefined;
-    let module: { bytes: Uint8Array<ArrayBuffer>; outBase: number } | undefined;
+    let module: { bytes: Uint8Array<ArrayBuffer>; outBase: number; memBytes: number } | undefined;
     try {
       module = emitModule(prog);
     } catch {
       module = undefined; // an op this emitter does not know: the JS kernel runs it
     }
     if (!module) return undefined;
-    const { bytes, outBase } = module;
+    const { bytes, outBase, memBytes } = module;
     try {
       // synchronous compile: allowed in workers and in Node (the main thread of a page limits its size)
-      const instance = new WebAssembly.Instance(new WebAssembly.Module(bytes));
-      const ex = instance.exports as { run: (w: number, t: number) => void; mem: WebAssembly.Memory };
-      return new WasmEvaluator(prog, ex.run, new Uint8Array(ex.mem.buffer), outBase);
+      const instance = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { mem: memoryOf(memBytes) } });
+      return new WasmEvaluator(prog, (instance.exports as { run: (w: number, t: number) => void }).run, outBase);
     } catch {
       usable = false;
       return undefined;
@@ -368,6 +384,8 @@ export class WasmEvaluator {
   /** As `BitParallelEvaluator.evaluate`: words [w0, w0 + count) into the row-indexed `values`, at most `rowCount` rows. */
   evaluate(w0: number, count: number, values: Uint8Array[], rowCount: number): void {
     const outs = this.prog.outputs;
+    if (view.buffer !== memory!.buffer) view = new Uint8Array(memory!.buffer);
+    const mem = view;
     for (let b = 0; b < count; b += TURNS * 4) {
       const n = Math.min(TURNS * 4, count - b);
       this.run(w0 + b, (n + 3) >> 2);
@@ -376,7 +394,7 @@ export class WasmEvaluator {
       for (let i = 0; i < values.length; i++) {
         if (outs[2 * i] < 0) { values[i].fill(3, start, end); continue; }
         const from = this.outBase + i * ROW_BYTES;
-        values[i].set(this.mem.subarray(from, from + end - start), start);
+        values[i].set(mem.subarray(from, from + end - start), start);
       }
     }
   }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { CODE_CHARS, enumerateTable, resolveSpec } from '../../shared/analysis';
+import { CODE_CHARS, enumerateChunks, enumerateTable, resolveSpec } from '../../shared/analysis';
 import { compileBitProgram } from '../../shared/analysis/bit-program';
 import { tableCone } from '../../shared/analysis/cone';
 import { WasmEvaluator } from '../../shared/analysis/wasm-kernel';
@@ -73,6 +73,22 @@ describe('WebAssembly truth-table kernel', () => {
     lines.forEach((line, r) => { if (line !== table.values.map((v) => CODE_CHARS[v[r]]).join('')) differ++; });
     expect(differ).toBe(0);
   }, 120_000);
+
+  it('gives each table its own rows when tables of one thread take turns chunk by chunk (one shared memory)', () => {
+    // two modules on the one memory, their calls interleaved: each call must write every slot it reads
+    const boards = [randomCircuit({ seed: 21, inputs: 14, gates: 60, outputs: 2 }), randomCircuit({ seed: 22, inputs: 15, gates: 400, outputs: 40, kinds: ALL_KINDS })];
+    const nets = boards.map((b) => compileBoard(b));
+    const gens = nets.map((n) => enumerateChunks(n, resolveSpec(n), { chunkRows: 4096 }));
+    const done: (ReturnType<typeof enumerateTable> | undefined)[] = [undefined, undefined];
+    while (done.some((d) => !d)) {
+      gens.forEach((g, i) => { if (done[i]) return; const step = g.next(); if (step.done) done[i] = step.value; });
+    }
+    done.forEach((table, i) => {
+      expect(table!.kernel).toBe('wasm');
+      const js = enumerateTable(nets[i], resolveSpec(nets[i]), { kernel: 'js' });
+      table!.values.forEach((v, o) => expect(firstDiff(v, js.values[o]), `board ${i}, ${table!.outputs[o]}`).toBe('same'));
+    });
+  });
 
   it('leaves a program whose module would be too large to the JS kernel', () => {
     // 300 outputs × 8,192 row codes each pass the module's 2 MiB memory
