@@ -4,7 +4,8 @@
  * generated file, and the time from navigation until the first parts, then every part in view, are drawn
  * on the canvas. "Drawn" means what the canvas promises: it puts only the parts in view in the page, so
  * the bench works out from the viewport's transform and the canvas's size which parts overlap the view
- * and waits until every one of them is in the page (after fit-to-view, which must show the whole board:
+ * and waits until every one of them is in the page — a React Flow node zoomed in, a box of the canvas's
+ * far drawing zoomed out (flow/far-parts.tsx) — (after fit-to-view, which must show the whole board:
  * a row says how many parts were drawn, goal all of them). Also the mean and 95th-percentile frame time
  * while the canvas pans over all 1,000 parts (first drag after opening, then a second drag). Each figure
  * is the median of RUNS opens (GATEFOLD_BENCH_CANVAS_RUNS). When the suite is named

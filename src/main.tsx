@@ -6,7 +6,7 @@ import '@fontsource/jetbrains-mono/600.css';
 import './index.css';
 import { Providers } from './app/providers';
 import { AppRouter } from './app/router';
-import { preconnectBoard } from './features/canvas/session/use-board-session';
+import { preconnectBoard } from './features/canvas';
 
 // A board's address: open its socket now, so that the document arrives while the app starts, checks the
 // sign-in and asks for the board row (the board's session takes the socket up).

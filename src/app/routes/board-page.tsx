@@ -1,5 +1,5 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
@@ -117,8 +117,10 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
       {history.banner}
       <BoardWorkspace session={history.session} levels={live ? sim.levels : undefined} partBadges={live ? sim.partBadges : undefined} onTryOut={live ? sim.tryOut.set : undefined}
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
-        panels={<><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}<LessonPanel lesson={lesson} session={session} />{isOwner(board.role) && <ClassPanel boardId={board.id} viewers={viewers} />}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></>}
-        bottom={<TimingStrip {...sim.timing} />} />
+        // the panels and the timing strip (500 waveforms on a large board) are drawn once the browser is
+        // idle after the canvas; their places (the side column, the dock) are there from the start
+        panels={<WhenIdle><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}<LessonPanel lesson={lesson} session={session} />{isOwner(board.role) && <ClassPanel boardId={board.id} viewers={viewers} />}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></WhenIdle>}
+        bottom={<WhenIdle><TimingStrip {...sim.timing} /></WhenIdle>} />
     </>
   );
 }
@@ -134,6 +136,12 @@ function useIdleValue<T>(value: T, initial: T): T {
     return () => cancelIdleCallback(handle);
   }, [value]);
   return idle;
+}
+
+/** Its children, from the browser's first idle moment after it mounts (nothing before). */
+function WhenIdle({ children }: { children: ReactNode }) {
+  const idle = useIdleValue(true, false);
+  return idle ? <>{children}</> : null;
 }
 
 function BadId() {
