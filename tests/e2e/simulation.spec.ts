@@ -211,3 +211,39 @@ test('the bench clock steps and runs, a ring that will not settle pulses, a tube
   const bytes = readFileSync((await png.path())!);
   expect(bytes.subarray(1, 4).toString('latin1')).toBe('PNG');
 });
+
+test('a board with a program store inside a module: the bench lists its own inputs, the strip records what can change', async ({ page, gatefold }) => {
+  await page.setViewportSize({ width: 1500, height: 950 });
+  await signUp(page, OWNER);
+  const file = readFileSync(new URL('../../examples/one-bit-processor.gatefold.json', import.meta.url));
+  const imported = await page.request.post('/api/boards/import', {
+    headers: { Origin: gatefold.baseURL },
+    multipart: { file: { name: 'one-bit-processor.gatefold.json', mimeType: 'application/json', buffer: file } },
+  });
+  expect(imported.status()).toBe(201);
+  const { board } = (await imported.json()) as { board: { id: number } };
+  await page.goto(`/boards/${board.id}`);
+  // 171 gates in modules: on a loaded machine the first state can take a while (a wait for a state, not a speed check)
+  await expect(level(page, 'bench-input-DIN')).toHaveAttribute('data-level', /^[01]$/, { timeout: 60_000 });
+  // the board's own inputs: the DIN switch, the clock and its one constant; none of the 16 constants inside
+  // the program store's instance (decision 004: the board's inputs and outputs are its top level)
+  const inputRows = page.locator('[data-testid^="bench-input-"]');
+  await expect(inputRows).toHaveCount(3);
+  await expect(page.locator('[data-testid^="bench-input-rom/"]')).toHaveCount(0);
+  await expect(page.getByTestId('bench-input-CLK')).toBeVisible();
+  // the strip records by default what can change: DIN, CLK and the eleven lamps, no constant
+  const rows = page.getByTestId('timing-summary');
+  await expect(rows).toHaveCount(13);
+  const signals = await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-signal')));
+  expect(signals.slice(0, 2)).toEqual(['DIN', 'CLK']);
+  expect(signals).toEqual(expect.arrayContaining(['STEP0', 'STEP1', 'OUT']));
+  await expect(page.getByTestId('timing-strip').getByRole('button', { name: 'Signals (13)' })).toBeVisible();
+  await page.screenshot({ path: 'test-results/simulation-09-program-store.png' });
+  // any net can still be added with the picker: a program bit inside the store
+  await page.getByTestId('timing-strip').getByRole('button', { name: 'Signals (13)' }).click();
+  const picker = page.getByRole('dialog', { name: 'Signals to record' });
+  await picker.getByLabel('Filter signals').fill('rom/c_s0_b3');
+  await picker.getByRole('checkbox', { name: 'rom/c_s0_b3_out' }).check();
+  await expect(page.locator('[data-testid="timing-summary"][data-signal="rom/c_s0_b3_out"]')).toHaveCount(1);
+  await expect(rows).toHaveCount(14);
+});

@@ -5,6 +5,7 @@ import { decodeLevels, encodeLevels, type Level } from '../levels';
 import { Simulator } from '../simulator';
 import type { Timers } from './clock-driver';
 import { debouncedDffBoard } from './fixtures/debounced-dff';
+import { romModuleBoard } from './fixtures/rom-module';
 import { LiveEngine, packLevels } from './live-engine';
 import type { LiveUpdate } from './messages';
 
@@ -259,5 +260,27 @@ describe('LiveEngine', () => {
     h.engine.handle({ type: 'clock', action: 'step' });
     expect(count()).toBe(7);
     expect(h.errors()).toEqual([]);
+  });
+
+  it('lists the board’s own inputs and outputs, never a constant inside a module instance (decision 004)', () => {
+    const h = harness();
+    const board = romModuleBoard();
+    h.engine.handle({ type: 'load', board, tryOut: [] });
+    const c = h.compiled().at(-1)!;
+    // the netlist itself holds the inner constants (they drive the circuit)…
+    expect(h.engine.live.netlist!.inputs.map((p) => p.id)).toEqual(['s', 'clk', 'btn', 'one', 'w/r0/c0', 'w/r0/c1', 'w/c1']);
+    // …but the bench's list is the top level: switch, clock, button and the board's own constant, in file order
+    expect(c.inputs.map((p) => [p.partId, p.kind, p.net])).toEqual([['s', 'switch', 'S'], ['clk', 'clock', 'CLK'], ['btn', 'button', 'BTN'], ['one', 'const', 'ONE']]);
+    expect(c.outputs.map((p) => p.partId)).toEqual(['y', 'p', 'z', 'q']);
+    // the inner constants still drive their nets, which stay in the net list (the timing strip can pick them)
+    const v = h.last().values;
+    expect([v.y, v.p, v.z, v.q]).toEqual(['1', '1', '0', '0']);
+    expect(c.nets).toEqual(expect.arrayContaining(['w/r0/c0_out', 'w/r0/c1_out']));
+    // a relabel (same circuit, names sent again) keeps the list to the top level
+    h.engine.handle({ type: 'load', board: { ...board, parts: board.parts.map((p) => (p.id === 's' ? { ...p, label: 'SEL' } : p)) }, tryOut: [] });
+    expect(h.compiled().at(-1)!.inputs.map((p) => p.label)).toEqual(['SEL', 'CLK', 'BTN', 'ONE']);
+    // top level means one of the loaded board's own parts
+    expect(h.engine.live.isTopLevel('w/r0/c0')).toBe(false);
+    expect(h.engine.live.isTopLevel('one')).toBe(true);
   });
 });

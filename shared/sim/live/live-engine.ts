@@ -214,8 +214,10 @@ export class LiveEngine {
       type: 'compiled',
       // the order of packLevels
       keys: netlist.parts.flatMap((p) => [...p.inputPins, ...p.outputPins].map((pin) => `${p.id}.${pin}`)),
-      inputs: netlist.inputs.map((p) => port(p, 'out')),
-      outputs: netlist.outputs.map((p) => port(p, 'in')),
+      // the board's inputs and outputs are its top level (decision 004): a constant inside a module
+      // instance (a ROM's bits) is part of that module's circuit, not an input of the board
+      inputs: netlist.inputs.filter((p) => this.live.isTopLevel(p.id)).map((p) => port(p, 'out')),
+      outputs: netlist.outputs.filter((p) => this.live.isTopLevel(p.id)).map((p) => port(p, 'in')),
       nets: netlist.nets.map((n) => n.name),
       family: family.id,
       timeUnitNs: family.timeUnitNs,

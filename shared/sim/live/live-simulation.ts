@@ -97,6 +97,14 @@ export class LiveSimulation {
     return true;
   }
 
+  /**
+   * Whether `partId` is one of the board's own parts (its top level), not a part inside a module instance
+   * (path ids such as `rom/c3`): the board's inputs and outputs are its top level only (decision 004).
+   */
+  isTopLevel(partId: string): boolean {
+    return this.current.has(partId);
+  }
+
   /** Gives the running netlist the part and net names of `fresh`, a compile of the same circuit. */
   private rename(netlist: Netlist, fresh: Netlist): void {
     fresh.parts.forEach((p, i) => { netlist.parts[i].name = p.name; netlist.parts[i].part = p.part; });

@@ -61,7 +61,9 @@ export type LiveUpdate =
   | {
       type: 'compiled';
       keys: string[];
+      /** the board's own (top-level) switches, buttons, clocks and constants, in file order; none from inside a module instance */
       inputs: LivePort[];
+      /** the board's own lamps and probes, in file order */
       outputs: LivePort[];
       nets: string[];
       family: FamilyId;

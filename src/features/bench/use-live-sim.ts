@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type * as Y from 'yjs';
 import type { BoardFile } from '../../../shared/board';
 import { inputValuesOf, setPartField } from '../../../shared/board';
-import { emptyTrace, type Trace, type SignalChoice } from '../timing';
+import { defaultSignals, emptyTrace, signalChoices, type Trace, type SignalChoice } from '../timing';
 import { decodeLevels, type Badge, type Level, type LiveCommand, type LivePort, type LiveReport, type LiveUpdate } from '../../../shared/sim';
 import { pulsingWireIds } from './pulse-style';
 import { applyTrace } from './trace-store';
@@ -105,21 +105,10 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
     send({ type: 'load', board: session.board, tryOut: [...tryOutRef.current] });
   }, [session.board, send]);
 
-  const available = useMemo<SignalChoice[]>(() => {
-    if (!compiled) return [];
-    const seen = new Set<string>();
-    const out: SignalChoice[] = [];
-    const addOne = (name: string, group: SignalChoice['group']) => {
-      if (seen.has(name)) return;
-      seen.add(name);
-      out.push({ name, group });
-    };
-    compiled.inputs.forEach((p) => addOne(p.net, 'input'));
-    compiled.outputs.forEach((p) => addOne(p.net, 'output'));
-    compiled.nets.forEach((n) => addOne(n, 'net'));
-    return out;
-  }, [compiled]);
-  const signals = useMemo(() => chosen ?? available.filter((s) => s.group !== 'net').map((s) => s.name), [chosen, available]);
+  const available = useMemo<SignalChoice[]>(() => (compiled ? signalChoices(compiled) : []), [compiled]);
+  // recorded by default: the inputs that can change and the outputs (no constants); the picker adds any net
+  const defaults = useMemo(() => (compiled ? defaultSignals(compiled) : []), [compiled]);
+  const signals = chosen ?? defaults;
   const signalsKey = signals.join('\n');
   useEffect(() => {
     if (compiled) send({ type: 'subscribe', signals: signalsKey ? signalsKey.split('\n') : [] });
@@ -208,6 +197,7 @@ export function useLiveSim(session: LiveSimSession, { tryOut }: { tryOut: boolea
       version: traceVersion,
       available,
       chosen: signals,
+      defaults,
       onChoose: setChosen,
       onClear: () => send({ type: 'clear-trace' }),
       timeUnitNs: compiled?.timeUnitNs ?? 1,

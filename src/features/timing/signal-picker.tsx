@@ -13,7 +13,13 @@ const MAX_NETS_SHOWN = 100;
 const GROUP_TITLES: Record<SignalChoice['group'], string> = { input: 'Inputs', output: 'Outputs', net: 'Nets' };
 
 /** A drop-down list of checkboxes: which signals the strip shows, in the order of the board. */
-export function SignalPicker({ available, chosen, onChoose }: { available: SignalChoice[]; chosen: string[]; onChoose(names: string[]): void }) {
+export function SignalPicker({ available, chosen, defaults, onChoose }: {
+  available: SignalChoice[];
+  chosen: string[];
+  /** what the strip records until someone picks (inputs that can change, and outputs); default: every input and output */
+  defaults?: string[];
+  onChoose(names: string[]): void;
+}) {
   const [filter, setFilter] = useState('');
   const [anchor, setAnchor] = useState<DOMRect | null>(null);
   const button = useRef<HTMLButtonElement>(null);
@@ -76,7 +82,8 @@ export function SignalPicker({ available, chosen, onChoose }: { available: Signa
         );
       })}
       <div className="flex gap-2 border-t border-mat-700 pt-1">
-        <button type="button" className="underline" onClick={() => onChoose(available.filter((s) => s.group !== 'net').map((s) => s.name))}>Inputs + outputs</button>
+        <button type="button" className="underline" title="The inputs that can change (switches, buttons, clocks) and the outputs"
+          onClick={() => onChoose(defaults ?? available.filter((s) => s.group !== 'net').map((s) => s.name))}>Inputs + outputs</button>
         <button type="button" className="underline" onClick={() => onChoose([])}>None</button>
       </div>
     </div>

@@ -13,6 +13,8 @@ export interface TimingStripProps {
   version: number;
   available: SignalChoice[];
   chosen: string[];
+  /** what the strip records until someone picks (the picker's "Inputs + outputs") */
+  defaults?: string[];
   onChoose(names: string[]): void;
   /** forget the recording so far */
   onClear(): void;
@@ -25,7 +27,7 @@ const INITIAL: Viewport = { start: 0, span: 400, follow: true };
 
 /** The timing strip: waveforms of chosen signals over simulated time, with zoom, cursor and export. */
 export function TimingStrip(props: TimingStripProps) {
-  const { trace, version, available, chosen, onChoose, onClear, timeUnitNs, title } = props;
+  const { trace, version, available, chosen, defaults, onChoose, onClear, timeUnitNs, title } = props;
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const wrapRef = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(800);
@@ -96,7 +98,7 @@ export function TimingStrip(props: TimingStripProps) {
     <section aria-label="Timing strip" data-testid="timing-strip" className="flex h-full flex-col bg-mat-900 text-xs text-slate-200">
       <div className="flex flex-wrap items-center gap-2 border-b border-mat-700 px-2 py-1">
         <span className="font-semibold text-amber-300">Timing strip</span>
-        <SignalPicker available={available} chosen={chosen} onChoose={onChoose} />
+        <SignalPicker available={available} chosen={chosen} defaults={defaults} onChoose={onChoose} />
         <div role="group" aria-label="Time axis" className="flex overflow-hidden rounded border border-mat-600">
           {(['time', 'cycles'] as const).map((m) => (
             <button key={m} type="button" aria-pressed={axis === m} onClick={() => setAxis(m)} className={axis === m ? 'bg-mat-600 px-2' : 'px-2 hover:bg-mat-700'}>
