@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs';
+import type { Page } from '@playwright/test';
 import { test, expect, signUp } from './fixtures';
 
 // Zoomed out, the canvas draws the parts itself (one drawing of plain boxes, flow/far-parts.tsx) instead
@@ -74,4 +76,104 @@ test('zoomed out: parts drawn as one layer, selected and dragged there; zooming 
   await expect(page.locator('[data-far-id]')).toHaveCount(0);
   await expect(page.getByTestId('part-s9')).toHaveClass(/gf-selected/);
   await expect(page.locator('.react-flow__node[data-id="s9"]')).toHaveCount(1);
+});
+
+/** 320 parts (160 switch → lamp pairs, 16 to a row) packed so that fit-to-view lands between 0.2 and DETAIL_ZOOM. */
+function largeBoard() {
+  const parts: object[] = [];
+  const wires: object[] = [];
+  for (let i = 0; i < 160; i++) {
+    const x = (i % 16) * 220;
+    const y = Math.floor(i / 16) * 120;
+    parts.push({ id: `s${i}`, kind: 'switch', label: `S${i}`, x, y, on: false });
+    parts.push({ id: `l${i}`, kind: 'lamp', label: `L${i}`, x: x + 120, y: y + 10 });
+    wires.push({ id: `w${i}`, from: `s${i}.out`, to: `l${i}.in` });
+  }
+  return { format: 'gatefold-board', version: 1, title: 'Packed bench board', family: 'ideal', parts, wires };
+}
+
+async function importBoard(page: Page, baseURL: string, name: string, buffer: Buffer): Promise<number> {
+  const imported = await page.request.post('/api/boards/import', {
+    headers: { Origin: baseURL },
+    multipart: { file: { name, mimeType: 'application/json', buffer } },
+  });
+  expect(imported.status()).toBe(201);
+  return ((await imported.json()) as { board: { id: number } }).board.id;
+}
+
+const viewZoom = (page: Page) => page.locator('.react-flow__viewport').evaluate((el) => new DOMMatrixReadOnly(getComputedStyle(el).transform).a);
+
+test('a small board fitted below the detail zoom is drawn in full: the 1-bit processor demo', async ({ page, baseURL }) => {
+  await page.setViewportSize({ width: 1280, height: 720 });
+  await signUp(page, OWNER);
+  const file = readFileSync(new URL('../../examples/one-bit-processor.gatefold.json', import.meta.url));
+  const count = (JSON.parse(file.toString()) as { parts: unknown[] }).parts.length;
+  const id = await importBoard(page, baseURL!, 'one-bit-processor.gatefold.json', file);
+  await page.goto(`/boards/${id}`);
+  await expect(page.getByTestId('sync-note')).toHaveCount(0, { timeout: 15_000 });
+  // every top-level part a full React Flow node with its symbol, no plain boxes
+  await expect(page.locator('.react-flow__node')).toHaveCount(count);
+  await expect(page.locator('.react-flow__node .gf-symbol').first()).toBeVisible();
+  await expect(page.locator('[data-far-id]')).toHaveCount(0);
+  // fitted below DETAIL_ZOOM = 0.45 (about 0.24 on this canvas), where boxes used to be drawn; above the illegible zoom 0.2
+  const zoom = await viewZoom(page);
+  expect(zoom).toBeLessThan(0.45);
+  expect(zoom).toBeGreaterThanOrEqual(0.2);
+  // the minimap draws every part
+  await expect(page.getByTestId('parts-map-boxes').locator('rect')).toHaveCount(count);
+});
+
+test('a large board zoomed out: Shift-drag selects the boxes inside the rectangle, the minimap shows the parts', async ({ page, baseURL }) => {
+  test.setTimeout(90_000);
+  await page.setViewportSize({ width: 1600, height: 1000 });
+  await signUp(page, OWNER);
+  const id = await importBoard(page, baseURL!, 'packed.gatefold.json', Buffer.from(JSON.stringify(largeBoard())));
+  await page.goto(`/boards/${id}`);
+  await expect(page.getByTestId('sync-note')).toHaveCount(0, { timeout: 15_000 });
+
+  // more than 300 parts and fitted between 0.2 and 0.45: plain boxes
+  await expect(page.locator('[data-far-id]')).toHaveCount(320);
+  await expect(page.locator('.react-flow__node')).toHaveCount(0);
+  const zoom = await viewZoom(page);
+  expect(zoom).toBeGreaterThanOrEqual(0.2);
+  expect(zoom).toBeLessThan(0.45);
+  // the minimap (on up to 400 parts) draws all of them, though React Flow holds them as hidden nodes
+  await expect(page.getByTestId('parts-map-boxes').locator('rect')).toHaveCount(320);
+
+  // Shift-drag from empty canvas above and left of the first pairs to just past l1 (flow x 400, y 70):
+  // s0, l0, s1, l1 lie wholly inside; s2 (from x 440) and the second row (from y 120) do not
+  const s0 = (await page.locator('[data-far-id="s0"] rect').boundingBox())!;
+  const from = { x: s0.x - 20 * zoom, y: s0.y - 20 * zoom };
+  const to = { x: s0.x + 410 * zoom, y: s0.y + 80 * zoom };
+  await page.keyboard.down('Shift');
+  await page.mouse.move(from.x, from.y);
+  await page.mouse.down();
+  for (let k = 1; k <= 8; k++) await page.mouse.move(from.x + ((to.x - from.x) * k) / 8, from.y + ((to.y - from.y) * k) / 8);
+  await page.mouse.up();
+  await page.keyboard.up('Shift');
+  const selected = page.locator('.gf-far-part.gf-selected');
+  await expect(selected).toHaveCount(4);
+  expect((await selected.evaluateAll((els) => els.map((e) => e.getAttribute('data-far-id')))).sort()).toEqual(['l0', 'l1', 's0', 's1']);
+
+  // the selection is the canvas's own: Delete removes those four parts from the document
+  await page.keyboard.press('Delete');
+  await expect.poll(async () => {
+    const file = (await (await page.request.get(`/api/boards/${id}/export`)).json()) as { parts: { id: string }[] };
+    return file.parts.length;
+  }, { timeout: 10_000 }).toBe(316);
+  await expect(page.locator('[data-far-id]')).toHaveCount(316);
+
+  // a switch box is 80 × 60: its label needs a 24-unit font, 9 px on screen from zoom 0.375; below that no title
+  // (a lamp, 60 × 40, would need 0.56: past the detail zoom, so a lamp's box never holds its label)
+  if (zoom < 0.375) await expect(page.locator('.gf-far-title')).toHaveCount(0);
+  // zoom in by small wheel steps (about 7 % each) to just past 0.375, still below the detail zoom: each box shows its label
+  const canvas = (await page.getByTestId('board-canvas').boundingBox())!;
+  await page.mouse.move(canvas.x + canvas.width / 2, canvas.y + canvas.height / 2);
+  for (let k = 0; k < 20 && (await viewZoom(page)) < 0.38; k++) {
+    await page.mouse.wheel(0, -50);
+    await page.waitForTimeout(100);
+  }
+  expect(await viewZoom(page)).toBeLessThan(0.45);
+  await expect(page.locator('[data-far-id="s20"] .gf-far-title')).toHaveText('S20');
+  await expect(page.locator('[data-far-id="l20"] .gf-far-title')).toHaveCount(0);
 });

@@ -10,10 +10,21 @@
  * selects it (Ctrl/⌘ adds or removes it), dragging moves the selection (positions snap to the grid and
  * go to the document once, on release, as a React Flow drag does), a double-click on an instance opens
  * its module. The boxes are `nopan`, so a press on one does not pan the view; the wheel still zooms.
+ *
+ * A module instance's title (another part's label) is written in its box when the box is big enough on
+ * screen for text of at least FAR_TITLE_MIN_PX (zoom-detail.ts farTitle): one SVG text, no measuring. The
+ * drawing reads the zoom rounded to hundredths (one subscription), so a pan frame renders nothing and a zoom
+ * step re-renders only the boxes whose title appears or goes.
  */
-import { memo, useCallback, useRef, type MouseEvent, type PointerEvent } from 'react';
-import { useStoreApi, ViewportPortal } from '@xyflow/react';
+import { memo, useCallback, useMemo, useRef, type MouseEvent, type PointerEvent } from 'react';
+import { useStore, useStoreApi, ViewportPortal, type ReactFlowState } from '@xyflow/react';
+import { useModulesView } from '../modules/modules-context';
 import type { PartNode } from './types';
+import { farTitle } from './zoom-detail';
+
+type Title = ReturnType<typeof farTitle>;
+const roundedZoom = (s: ReactFlowState) => Math.round(s.transform[2] * 100) / 100;
+const boxSize = (n: PartNode) => ({ w: n.width ?? n.measured?.width ?? 0, h: n.height ?? n.measured?.height ?? 0 });
 
 export interface FarPartsProps {
   nodes: readonly PartNode[];
@@ -36,6 +47,19 @@ function FarPartsView({ nodes, draggable, onPick, onDrag, onOpenModule }: FarPar
   const drag = useRef<Drag | null>(null);
   const nodesRef = useRef(nodes);
   nodesRef.current = nodes;
+  const zoom = useStore(roundedZoom);
+  // each node object's title, worked out once (a new table when a module is renamed)
+  const { titles: moduleTitles } = useModulesView();
+  const titles = useMemo(() => new WeakMap<PartNode, Title>(), [moduleTitles]);
+  const titleOf = (n: PartNode): Title => {
+    if (titles.has(n)) return titles.get(n)!;
+    const part = n.data.part;
+    const text = part.kind === 'module' ? (moduleTitles.get(part.module) ?? part.module) : part.label ?? '';
+    const { w, h } = boxSize(n);
+    const t = part.kind === 'note' ? null : farTitle(text, w, h);
+    titles.set(n, t);
+    return t;
+  };
 
   const idOf = (e: { target: EventTarget }) => (e.target as Element).closest?.('[data-far-id]')?.getAttribute('data-far-id') ?? null;
 
@@ -85,17 +109,19 @@ function FarPartsView({ nodes, draggable, onPick, onDrag, onOpenModule }: FarPar
     <ViewportPortal>
       <svg className="gf-far-parts" data-testid="far-parts" onPointerDown={onPointerDown} onPointerMove={onPointerMove}
         onPointerUp={onPointerUp} onPointerCancel={onPointerUp} onDoubleClick={onDoubleClick} onClick={(e) => { if (idOf(e)) e.stopPropagation(); }}>
-        {nodes.map((n) => <FarPart key={n.id} node={n} />)}
+        {nodes.map((n) => {
+          const t = titleOf(n);
+          return <FarPart key={n.id} node={n} title={t && zoom >= t.minZoom ? t : null} />;
+        })}
       </svg>
     </ViewportPortal>
   );
 }
 
 /** One part's box; same object, no new render (derive-flow keeps unchanged nodes). */
-const FarPart = memo(function FarPart({ node }: { node: PartNode }) {
+const FarPart = memo(function FarPart({ node, title }: { node: PartNode; title: Title }) {
   const { part, highlight, remoteColor, mark, badge } = node.data;
-  const w = node.width ?? node.measured?.width ?? 0;
-  const h = node.height ?? node.measured?.height ?? 0;
+  const { w, h } = boxSize(node);
   const round = part.kind === 'lamp' || part.kind === 'probe';
   const classes = ['gf-far-part', 'nopan'];
   if (node.selected) classes.push('gf-selected');
@@ -105,6 +131,10 @@ const FarPart = memo(function FarPart({ node }: { node: PartNode }) {
     <g className={classes.join(' ')} data-far-id={node.id} data-testid={`part-${part.id}`} data-kind={part.kind}
       transform={`translate(${node.position.x} ${node.position.y})`}>
       <rect width={w} height={h} rx={round ? Math.min(w, h) / 2 : 4} style={remoteColor ? { stroke: remoteColor } : undefined} />
+      {title && (
+        <text className="gf-far-title" x={w / 2} y={h / 2} fontSize={title.size} textAnchor="middle" dominantBaseline="central"
+          fill="#c9d1db" fontFamily="'JetBrains Mono', monospace" pointerEvents="none">{title.text}</text>
+      )}
       {badge && <circle className={`gf-far-badge gf-badge-${badge.tone}`} cx={w} cy={0} r={8}><title>{badge.text}</title></circle>}
     </g>
   );

@@ -5,7 +5,7 @@
  */
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type DragEvent, type PointerEvent as RPointerEvent } from 'react';
 import {
-  ConnectionMode, ControlButton, Controls, getNodesBounds, getViewportForBounds, MiniMap, ReactFlow,
+  ConnectionMode, ControlButton, Controls, getNodesBounds, getViewportForBounds, ReactFlow,
   useReactFlow, useStore, type Connection, type OnSelectionChangeParams, type ReactFlowState,
 } from '@xyflow/react';
 import { toast } from 'sonner';
@@ -21,7 +21,9 @@ import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
 import { FarWires } from '../flow/far-wires';
 import { FarParts } from '../flow/far-parts';
-import { leastZoom, zoomedOut } from '../flow/zoom-detail';
+import { useFarBoxSelect } from '../flow/far-select';
+import { PartsMap } from '../flow/parts-map';
+import { drawsFar, leastZoom, zoomBand } from '../flow/zoom-detail';
 import type { PartNode, WireEdge } from '../flow/types';
 import { RemoteCursors } from '../presence/remote-cursors';
 import { throttle, type PeersView } from '../session/awareness';
@@ -37,7 +39,6 @@ const edgeTypes = { wire: WireEdgeComponent };
 const SNAP: [number, number] = [GRID, GRID];
 const MINIMAP_AUTO_LIMIT = 400;
 
-const minimapColor = () => '#3a4654';
 const NO_WIRES: WireEdge[] = [];
 const FIT_PADDING = 0.15;
 const FIT_MAX_ZOOM = 1.25;
@@ -80,8 +81,9 @@ export function BoardCanvas(props: BoardCanvasProps) {
   const { session, peers, armed, onArm, helpOpen, onHelp, onReady } = props;
   const { readOnly, doc, origin, provider } = session;
   const rf = useReactFlow();
-  const far = useStore(zoomedOut);
   const flow = useFlowState(session, props, peers);
+  // Plain boxes only on a large sheet zoomed out, or on any sheet zoomed out past reading (zoom-detail.ts).
+  const far = drawsFar(useStore(zoomBand), flow.nodes.length);
   const pointer = useRef<{ x: number; y: number } | null>(null);
   const [ready, setReady] = useState(false);
   // The minimap redraws on every pan and zoom; on big boards it starts hidden (one click shows it).
@@ -199,6 +201,16 @@ export function BoardCanvas(props: BoardCanvasProps) {
     sendDrag(null);
     sendDrag.flush();
   }, [setNodes, sendDrag, readOnly, doc, origin]);
+  // Shift-drag box selection over the far boxes (React Flow's rectangle skips hidden nodes).
+  const farNodes = useCallback(() => nodesRef.current, []);
+  const onFarBoxSelect = useCallback((ids: Set<string>) => {
+    setNodes((ns) => ns.map((n) => (ids.has(n.id) === !!n.selected ? n : { ...n, selected: ids.has(n.id) })));
+    setEdges((es) => es.map((e) => {
+      const selected = ids.has(e.source) || ids.has(e.target);
+      return selected === !!e.selected ? e : { ...e, selected };
+    }));
+  }, [setNodes, setEdges]);
+  useFarBoxSelect(far, farNodes, onFarBoxSelect);
   const onFarOpenModule = useCallback((moduleId: string) => live.current.onOpenModule?.(moduleId), []);
   const rfNodes = useMemo(() => (far ? flow.nodes.map(hiddenNode) : flow.nodes), [far, flow.nodes]);
 
@@ -278,8 +290,8 @@ export function BoardCanvas(props: BoardCanvasProps) {
             </ControlButton>
           </Controls>
           {showMap && (
-            <MiniMap pannable zoomable position="bottom-right" nodeColor={minimapColor} maskColor="rgba(13,16,20,0.7)" style={{ width: 160, height: 110 }}
-              bgColor="#12161c" nodeStrokeWidth={0} />
+            // drawn from the part list: React Flow's minimap leaves out hidden nodes, i.e. every part while zoomed out
+            <PartsMap nodes={flow.nodes} width={160} height={110} />
           )}
           <RemoteCursors peers={peers.peers} />
         </ReactFlow>
