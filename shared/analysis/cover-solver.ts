@@ -356,7 +356,123 @@ class BranchAndBound {
     if (set.length > this.cap) return;
     let c = 0;
     for (const p of set) c += this.w[p];
-    if (c < this.best) { this.best = c; this.bestSet = [...set]; }
+    if (c < this.best) {
+      // a new incumbent of the literal stage: improved by swaps before it is kept (new incumbents are few)
+      const better = this.capped ? this.swapSearch(set) : [...set];
+      c = 0;
+      for (const p of better) c += this.w[p];
+      this.best = c;
+      this.bestSet = better;
+    }
+  }
+
+  /**
+   * Local search on a cover at equal or fewer columns: repeatedly replaces one column by one, or two by
+   * two, of lower total cost (ties broken by the tie cost), keeping every row covered; any column of the
+   * component may come in (the result is a cover of the whole component, valid whatever the node's
+   * state). Stops at a local optimum. Work counted as entry visits.
+   */
+  private swapSearch(start: number[]): number[] {
+    const { R, C, colStart, colRow, rowStart, rowCol, w, tie } = this;
+    const inSet = new Uint8Array(C);
+    const cnt = new Int32Array(R);
+    const list = [...start];
+    for (const p of list) { inSet[p] = 1; for (let k = colStart[p]; k < colStart[p + 1]; k++) cnt[colRow[k]]++; }
+    const cost = (p: number) => w[p] + tie[p] * 1e-6;
+    const put = (p: number, d: number) => { inSet[p] = d > 0 ? 1 : 0; for (let k = colStart[p]; k < colStart[p + 1]; k++) cnt[colRow[k]] += d; };
+    /** rows of column p with no cover left (cnt 0) */
+    const bare = (p: number, out: number[]) => { out.length = 0; for (let k = colStart[p]; k < colStart[p + 1]; k++) if (!cnt[colRow[k]]) out.push(colRow[k]); };
+    const covers = (q: number, rowsNeeded: number[]) => {
+      for (const r of rowsNeeded) {
+        let ok = false;
+        for (let k = rowStart[r]; k < rowStart[r + 1]; k++) if (rowCol[k] === q) { ok = true; break; }
+        if (!ok) return false;
+      }
+      return true;
+    };
+    const redundant = (p: number) => { for (let k = colStart[p]; k < colStart[p + 1]; k++) if (cnt[colRow[k]] < 2) return false; return true; };
+    const u1: number[] = [];
+    const u2: number[] = [];
+    let visits = 0;
+    for (let improved = true; improved && !this.out; ) {
+      improved = false;
+      for (let a = 0; a < list.length && !improved; a++) {
+        const p1 = list[a];
+        put(p1, -1);
+        bare(p1, u1);
+        visits += colStart[p1 + 1] - colStart[p1];
+        if (!u1.length) { list.splice(a, 1); improved = true; break; } // redundant: dropped
+        const r0 = u1[0];
+        let done = false;
+        for (let k = rowStart[r0]; k < rowStart[r0 + 1] && !done; k++) {
+          const q1 = rowCol[k];
+          visits++;
+          if (inSet[q1] || q1 === p1) continue;
+          put(q1, 1);
+          visits += 2 * (colStart[q1 + 1] - colStart[q1]);
+          bare(p1, u2);
+          if (!u2.length) {
+            if (cost(q1) < cost(p1)) { list[a] = q1; done = true; break; }
+            // q1 alone keeps the cover: one more column may now be redundant (2-for-1)
+            for (let j = colStart[q1]; j < colStart[q1 + 1] && !done; j++) {
+              const r = colRow[j];
+              if (cnt[r] !== 2) continue;
+              visits += rowStart[r + 1] - rowStart[r];
+              for (let h = rowStart[r]; h < rowStart[r + 1]; h++) {
+                const p2 = rowCol[h];
+                if (!inSet[p2] || p2 === q1) continue;
+                visits += colStart[p2 + 1] - colStart[p2];
+                if (redundant(p2) && cost(q1) < cost(p1) + cost(p2)) { put(p2, -1); list[a] = q1; list.splice(list.indexOf(p2), 1); done = true; break; }
+              }
+            }
+            if (done) break;
+          } else {
+            // two for two: q2 covers what is left of p1's rows, and some p2 becomes redundant
+            const r1 = u2[0];
+            for (let h = rowStart[r1]; h < rowStart[r1 + 1] && !done; h++) {
+              const q2 = rowCol[h];
+              visits++;
+              if (inSet[q2] || q2 === p1) continue;
+              for (const r of u2) visits += rowStart[r + 1] - rowStart[r];
+              if (!covers(q2, u2)) continue;
+              put(q2, 1);
+              visits += colStart[q2 + 1] - colStart[q2];
+              let pick = -1;
+              for (const q of [q1, q2]) {
+                for (let j = colStart[q]; j < colStart[q + 1]; j++) {
+                  const r = colRow[j];
+                  if (cnt[r] < 2) continue;
+                  visits += rowStart[r + 1] - rowStart[r];
+                  for (let g = rowStart[r]; g < rowStart[r + 1]; g++) {
+                    const p2 = rowCol[g];
+                    if (!inSet[p2] || p2 === q1 || p2 === q2 || (pick >= 0 && cost(p2) <= cost(pick))) continue;
+                    visits += colStart[p2 + 1] - colStart[p2];
+                    if (redundant(p2)) pick = p2;
+                  }
+                }
+              }
+              if (pick >= 0 && cost(q1) + cost(q2) < cost(p1) + cost(pick)) {
+                put(pick, -1);
+                list[a] = q1;
+                list[list.indexOf(pick)] = q2;
+                done = true;
+                break;
+              }
+              put(q2, -1);
+            }
+          }
+          if (done) break;
+          put(q1, -1);
+        }
+        if (done) { improved = true; break; }
+        put(p1, 1);
+      }
+      if (this.spend(visits)) break;
+      visits = 0;
+    }
+    this.spend(visits);
+    if (!this.isCover(list)) return [...start];
+    return list.length <= start.length ? list : [...start];
   }
 
   private setIn(p: number): void {
