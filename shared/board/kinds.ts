@@ -17,6 +17,8 @@ export type PartKind = (typeof PART_KINDS)[number];
 export const GATE_KINDS = ['and', 'or', 'nand', 'nor', 'xor', 'xnor'] as const;
 export type GateKind = (typeof GATE_KINDS)[number];
 export const INPUT_KINDS = ['switch', 'button', 'clock', 'const'] as const;
+/** The inputs someone operates or that change on their own while the board runs (every input but a constant). */
+export const CHANGING_INPUT_KINDS = ['switch', 'button', 'clock'] as const;
 export const OUTPUT_KINDS = ['lamp', 'probe'] as const;
 export const STORAGE_KINDS = ['srlatch', 'dlatch', 'dff'] as const;
 

@@ -2,13 +2,13 @@
  * Modules (CONTRACTS §1, docs/decisions/004-modules.md): the pins an instance gets from its module's
  * ports, and the checks of a board's modules — ports, instances of missing modules, nesting cycles.
  */
-import type { PinSet } from './kinds';
+import { CHANGING_INPUT_KINDS, type PinSet } from './kinds';
 import { LABEL_RE } from './labels';
 import type { ModulePins } from './pins';
 import type { Module, Part } from './schema';
 
 /** Kinds a module may not hold: a module's inputs are its ports. */
-export const KINDS_OUTSIDE_MODULES = ['switch', 'button', 'clock'] as const;
+export const KINDS_OUTSIDE_MODULES = CHANGING_INPUT_KINDS;
 
 /** A part list's pins as an instance shows them: ports `in` (its inputs), then ports `out`, each in part order. */
 export function portPins(parts: readonly { kind: string; dir?: unknown; label?: unknown }[]): PinSet {

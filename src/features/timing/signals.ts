@@ -1,3 +1,4 @@
+import { CHANGING_INPUT_KINDS } from '../../../shared/board';
 import type { SignalChoice } from './signal-picker';
 
 /** What the strip needs of a compiled board (shared/sim/live `compiled`): its ports and net names. */
@@ -11,7 +12,7 @@ export interface SignalSource {
 }
 
 /** Inputs whose level can change while the board runs; a constant never does. */
-const CHANGING_INPUTS = new Set(['switch', 'button', 'clock']);
+const CHANGING_INPUTS = new Set<string>(CHANGING_INPUT_KINDS);
 
 /** Everything the Signals picker offers, each net once: inputs, then outputs, then the other nets. */
 export function signalChoices(src: SignalSource): SignalChoice[] {
