@@ -15,28 +15,11 @@ import { compileBoard, Simulator } from '../../shared/sim';
 import { loadBoardDoc, ServerOrigin } from '../../server/boards-live';
 import * as snapshotsDb from '../../server/db/snapshots';
 import { startTestServer, type TestServer } from '../helpers/test-app';
+import { DOOR_LAMP } from './door-lamp';
 import { restore } from '../snapshots/helpers';
 import { connectClient, createBoard, exportText, signUp, waitFor, type Client, type User } from './helpers';
 
-// Room 14's door lamp through an inverter module: OPEN lights while KEY is off (NOT, common practice, no source).
-const DOOR: BoardFile = {
-  format: 'gatefold-board', version: 1, title: 'Room 14 door lamp', family: 'ideal',
-  parts: [
-    { id: 'a', kind: 'switch', label: 'KEY', on: false, x: 0, y: 0 },
-    { id: 'u1', kind: 'module', module: 'inv', x: 160, y: 0 },
-    { id: 'l1', kind: 'lamp', label: 'OPEN', x: 400, y: 0 },
-  ],
-  wires: [{ id: 'w1', from: 'a.out', to: 'u1.A' }, { id: 'w2', from: 'u1.Y', to: 'l1.in' }],
-  modules: [{
-    id: 'inv', title: 'Inverter',
-    parts: [
-      { id: 'pa', kind: 'port', dir: 'in', label: 'A', x: 0, y: 0 },
-      { id: 'g1', kind: 'not', x: 120, y: 0 },
-      { id: 'py', kind: 'port', dir: 'out', label: 'Y', x: 240, y: 0 },
-    ],
-    wires: [{ id: 'w1', from: 'pa.out', to: 'g1.in0' }, { id: 'w2', from: 'g1.out', to: 'py.in' }],
-  }],
-};
+const DOOR = DOOR_LAMP;
 
 /**
  * The door board as a file no board check lets through (each would come from an older server or a
