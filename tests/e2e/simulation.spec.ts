@@ -231,6 +231,11 @@ test('a board with a program store inside a module: the bench lists its own inpu
   await expect(inputRows).toHaveCount(3);
   await expect(page.locator('[data-testid^="bench-input-rom/"]')).toHaveCount(0);
   await expect(page.getByTestId('bench-input-CLK')).toBeVisible();
+  // its unlabelled constant reads by its level, not as a numbered name cut to the column; the full name on hover
+  const constName = page.getByTestId('bench-input-one').locator('span[title]').first();
+  await expect(constName.locator('[aria-hidden="true"]')).toHaveText('logic 1');
+  await expect(constName).toHaveAttribute('title', 'Constant 1, tied to logic 1 (id one)');
+  expect(await constName.evaluate((el) => el.scrollWidth <= el.clientWidth)).toBe(true);
   // the strip records by default what can change: DIN, CLK and the eleven lamps, no constant
   const rows = page.getByTestId('timing-summary');
   await expect(rows).toHaveCount(13);

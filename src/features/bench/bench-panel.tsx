@@ -3,11 +3,11 @@ import { displayNames } from '../../../shared/board';
 import { familyOf } from '../../../shared/sim';
 import { ClockControls } from './clock-controls';
 import { FamilyField } from './family-field';
-import { InputRow, OutputRow } from './port-rows';
+import { InputRow, OutputRow, rowName } from './port-rows';
 import { SettleStatus } from './settle-status';
 import { TryOutChip } from './try-out-chip';
 import { StateChanges } from './state-changes';
-import type { LiveSim, LiveSimSession } from './use-live-sim';
+import type { LiveSim, LiveSimSession, PortValue } from './use-live-sim';
 import { plural } from '../../lib/plural';
 
 /** The bench: every input and output with its value, the clock, stored state, settle status and family. */
@@ -15,6 +15,8 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
   const unitNs = familyOf(sim.family).timeUnitNs;
   const hasClock = sim.inputs.some((p) => p.kind === 'clock');
   const names = useMemo(() => displayNames(session.board), [session.board]);
+  const partsById = useMemo(() => new Map(session.board.parts.map((p) => [p.id, p])), [session.board]);
+  const nameOf = (p: PortValue) => rowName(partsById.get(p.partId), names.get(p.partId) ?? p.label);
   return (
     <section aria-label="Bench" data-testid="bench-panel" className="space-y-3 p-3 text-sm">
       <header className="flex items-center gap-2">
@@ -27,12 +29,12 @@ export function BenchPanel({ sim, session }: { sim: LiveSim; session: LiveSimSes
         {sim.inputs.length === 0 ? (
           <p className="text-xs text-slate-500">No switches, buttons, clocks or constants yet.</p>
         ) : (
-          <ul>{sim.inputs.map((p) => <InputRow key={p.partId} port={p} name={names.get(p.partId) ?? p.label} onSet={sim.setInput} />)}</ul>
+          <ul>{sim.inputs.map((p) => <InputRow key={p.partId} port={p} name={nameOf(p)} onSet={sim.setInput} />)}</ul>
         )}
         {sim.tryOut.active && <p className="mt-1 text-[11px] text-slate-500">You are viewing: input changes are a private try-out.</p>}
       </Block>
       <Block title="Outputs">
-        {sim.outputs.length === 0 ? <p className="text-xs text-slate-500">No lamps or probes yet.</p> : <ul>{sim.outputs.map((p) => <OutputRow key={p.partId} port={p} name={names.get(p.partId) ?? p.label} />)}</ul>}
+        {sim.outputs.length === 0 ? <p className="text-xs text-slate-500">No lamps or probes yet.</p> : <ul>{sim.outputs.map((p) => <OutputRow key={p.partId} port={p} name={nameOf(p)} />)}</ul>}
       </Block>
       <Block title={hasClock ? 'Clock' : 'Clock (no clock part on the board)'}>
         <ClockControls clock={sim.clock} />

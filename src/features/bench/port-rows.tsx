@@ -1,14 +1,49 @@
+import type { Part } from '../../../shared/board';
 import type { PortValue } from './use-live-sim';
 import { LevelChip } from './level-chip';
 
+/** What a row shows as a part's name (`shown`, cut to the column if long) and says in full (hover, screen readers). */
+export interface RowName {
+  shown: string;
+  full: string;
+}
+
+/**
+ * A row's name from the part and its readable name on the board (displayNames). An unlabelled constant
+ * shows the level it is tied to ("logic 1"): its numbered name ("Constant 1") counts constants, which
+ * reads like its value and does not fit the column; the numbered name stays in the full name.
+ */
+export function rowName(part: Part | undefined, name: string): RowName {
+  if (part?.kind === 'const' && !part.label) {
+    const shown = `logic ${part.value}`;
+    return { shown, full: `${name}, tied to ${shown}` };
+  }
+  return { shown: name, full: name };
+}
+
+/** The name column: the shown name, the full one on hover and, where they differ, for screen readers. */
+function NameCell({ name, partId }: { name: RowName; partId: string }) {
+  return (
+    <span className="w-24 shrink-0 truncate font-mono text-slate-200" title={`${name.full} (id ${partId})`}>
+      {name.shown === name.full ? name.shown : (
+        <>
+          <span aria-hidden="true">{name.shown}</span>
+          <span className="sr-only">{name.full}</span>
+        </>
+      )}
+    </span>
+  );
+}
+
 const btn = 'h-6 rounded border border-mat-600 bg-mat-800 px-2 text-xs hover:border-mat-500 hover:bg-mat-700 disabled:opacity-50';
 
-/** One input of the board (its readable name, the id in the tooltip) with its value and, for switches and buttons, a control to operate it. */
-export function InputRow({ port, name, onSet, disabled }: { port: PortValue; name: string; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
+/** One input of the board (its readable name, in full and with the id in the tooltip) with its value and, for switches and buttons, a control to operate it. */
+export function InputRow({ port, name: rowName, onSet, disabled }: { port: PortValue; name: RowName; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
   const high = port.value === '1';
+  const name = rowName.full;
   return (
     <li className="flex items-center gap-2 py-0.5" data-testid={`bench-input-${port.label}`}>
-      <span className="w-16 truncate font-mono text-slate-200" title={`id ${port.partId}`}>{name}</span>
+      <NameCell name={rowName} partId={port.partId} />
       <span className="w-14 text-[11px] text-slate-500">{port.kind}</span>
       <LevelChip level={port.value} />
       <span className="ml-auto">
@@ -40,10 +75,10 @@ export function InputRow({ port, name, onSet, disabled }: { port: PortValue; nam
 }
 
 /** One output (lamp or probe) and what it reads; on a net that does not settle, that it oscillates. */
-export function OutputRow({ port, name }: { port: PortValue; name: string }) {
+export function OutputRow({ port, name }: { port: PortValue; name: RowName }) {
   return (
     <li className="flex items-center gap-2 py-0.5" data-testid={`bench-output-${port.label}`} data-oscillating={port.oscillating ? 'true' : undefined}>
-      <span className="w-16 truncate font-mono text-slate-200" title={`id ${port.partId}`}>{name}</span>
+      <NameCell name={name} partId={port.partId} />
       <span className="w-14 text-[11px] text-slate-500">{port.kind}</span>
       {port.oscillating ? (
         <span className="inline-flex h-5 items-center rounded border border-signal-x/60 bg-signal-x/20 px-1 font-mono text-xs text-signal-x"
