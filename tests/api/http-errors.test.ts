@@ -79,4 +79,17 @@ describe('HTTP error handling', () => {
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
+
+  it('lets scripts compile WebAssembly and nothing wider: script-src is exactly self and wasm-unsafe-eval', async () => {
+    // the analysis worker compiles its truth-table kernel as WebAssembly (decision 007); 'wasm-unsafe-eval'
+    // allows that only, where 'unsafe-eval' would also allow eval() and new Function() (CSP Level 3, W3C)
+    const res = await t.request().get('/api/health');
+    const directives = new Map(String(res.headers['content-security-policy']).split(';').map((d) => d.trim().split(/\s+/)).map(([name, ...sources]) => [name, sources]));
+    expect(directives.get('script-src')).toEqual(["'self'", "'wasm-unsafe-eval'"]);
+    expect(directives.get('worker-src')).toEqual(["'self'", 'blob:']);
+    for (const [name, sources] of directives) {
+      expect(sources, name).not.toContain("'unsafe-eval'");
+      if (name !== 'style-src') expect(sources, name).not.toContain("'unsafe-inline'");
+    }
+  });
 });

@@ -29,6 +29,15 @@ test('the function map names each select code\'s function of A, B and follows an
   // four switches: 16 rows (plus the header row), and Y's minimal forms
   await expect(panel.getByTestId('analysis-status')).toContainText('16 rows', { timeout: 15_000 });
   await expect(panel.getByTestId('truth-table')).toHaveAttribute('aria-rowcount', '17');
+  // the worker ran the WebAssembly kernel (the page's CSP allows 'wasm-unsafe-eval', decision 007) and its
+  // table is the multiplexer's: row r reads A B S0 S1, Y = D[S1 S0] with D = A AND B, A OR B, A XOR B, NOT A
+  await expect(panel.getByTestId('analysis-status')).toHaveAttribute('data-kernel', 'wasm');
+  const expected = Array.from({ length: 16 }, (_, r) => {
+    const [a, b, s0, s1] = [(r >> 3) & 1, (r >> 2) & 1, (r >> 1) & 1, r & 1];
+    return String([a & b, a | b, a ^ b, 1 - a][s1 * 2 + s0]);
+  });
+  const shown = await Promise.all(expected.map((_, r) => panel.getByTestId(`tt-Y-${r}`).textContent()));
+  expect(shown).toEqual(expected);
   await expect(panel.getByTestId('sop-Y')).toContainText(/S0|S1/);
   await expect(panel.getByTestId('pos-Y')).not.toBeEmpty();
 

@@ -36,7 +36,7 @@ export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
     <section aria-label="Analysis" data-testid="analysis-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Analysis</h2>
-        <span className="text-xs text-slate-500" data-testid="analysis-status">
+        <span className="text-xs text-slate-500" data-testid="analysis-status" data-kernel={status === 'done' ? result?.kernel : undefined}>
           {status === 'running' ? 'computing…' : status === 'cancelled' ? 'cancelled' : status === 'done' && result ? `${plural(result.rowCount, 'row')} in ${Math.round(result.ms)} ms` : ''}
         </span>
         {status === 'cancelled' && <Button size="sm" variant="ghost" onClick={analysis.rerun}>Run again</Button>}

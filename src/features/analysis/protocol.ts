@@ -1,5 +1,5 @@
 import type { BoardFile } from '../../../shared/board';
-import type { FunctionMapEntry, OutputForms, OutputTerms } from '../../../shared/analysis';
+import type { FunctionMapEntry, OutputForms, OutputTerms, TruthTable } from '../../../shared/analysis';
 
 /** What the panel asks for: the board and the choices (labels); undefined = the contract defaults. */
 export interface AnalysisRequest {
@@ -23,6 +23,8 @@ export interface AnalysisResult {
   values: Uint8Array[];
   sequential: boolean[];
   method: string[];
+  /** which kernel ran the table's bit-parallel outputs ('wasm' or 'js'; absent when none did) */
+  kernel?: TruthTable['kernel'];
   forms: Record<string, OutputForms>;
   terms: Record<string, OutputTerms>;
   functionMap: FunctionMapEntry[];

@@ -19,6 +19,8 @@ describe('runAnalysis (the worker job)', () => {
     expect(r.terms.C.sop).toEqual([[{ name: 'A', negated: false }, { name: 'B', negated: false }]]);
     expect(r.cones.S.sort()).toEqual(['a', 'b', 'g1', 's']);
     expect(r.functionMap.map((e) => e.functions.C.sop)).toEqual(['0', 'B']);
+    // the panel shows which kernel ran the table: the WebAssembly one wherever it compiles (Node here, decision 007)
+    expect(r.kernel).toBe('wasm');
   });
 
   it('applies don\'t-cares and drops choices of parts that are gone', async () => {

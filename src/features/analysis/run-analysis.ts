@@ -22,7 +22,7 @@ export async function runAnalysis(req: AnalysisRequest, opts: { onProgress?: (p:
   for (const p of netlist.outputs) cones[p.name] = [...fanInCone(netlist, [p.id])];
   return {
     inputs: table.inputs, outputs: table.outputs, rowCount: table.rowCount, values: table.values,
-    sequential: table.sequential, method: table.method, forms, terms, functionMap,
+    sequential: table.sequential, method: table.method, ...(table.kernel ? { kernel: table.kernel } : {}), forms, terms, functionMap,
     availableInputs, availableOutputs, cones, ms: performance.now() - started,
   };
 }
