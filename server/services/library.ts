@@ -4,7 +4,7 @@ import { ModuleOriginSchema, modulesMap, parseBoardFile, type BoardFile, type Mo
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/knex';
 import * as libraryDb from '../db/library';
-import { badRequest, forbidden, HttpError, notFound } from '../lib/errors';
+import { badRequest, conflict, forbidden, HttpError, notFound } from '../lib/errors';
 import type { AuthzService } from './authz';
 
 /** What the library reads of a board: its content as a board file (the board registry gives it). */
@@ -33,7 +33,9 @@ export interface LibraryService {
    * The board's module then records the entry as its origin (`{library, version}` of the new version), a
    * server edit every open screen of the board receives, so the board does not count as an older copy.
    * 400 `invalid_input` for a module the board lacks, 400 `invalid_module` naming the ids (a nesting cycle,
-   * a missing module, a port clash…), 413 `too_large` beyond LIBRARY_CONTENT_LIMIT.
+   * a missing module, a port clash…), 413 `too_large` beyond LIBRARY_CONTENT_LIMIT. Publishes at the same
+   * instant each get their own version (one transaction each, db/library.ts); 409 `publish_conflict` only
+   * when one kept losing the race for a new entry to others publishing the same module.
    */
   publish(userId: number, body: PublishLibraryModuleBody): Promise<{ entry: ApiLibraryContent; created: boolean }>;
   /** An entry with its content; 404 `library_module_not_found` when missing or not readable by the user. */
@@ -145,24 +147,18 @@ export function createLibraryService(db: Db, authz: AuthzService, boards: BoardF
       }
 
       const title = module.title.trim() || module.id;
-      const now = nowIso();
-      let previous: libraryDb.LibraryModuleRow | undefined;
       const originId = origin ? Number(origin.library) : NaN;
-      if (Number.isInteger(originId) && originId > 0) {
-        const row = await libraryDb.findLibraryModule(db, originId);
-        if (row && row.owner_id === ownerId) previous = row;
+      let published: { row: libraryDb.LibraryModuleRow; created: boolean };
+      try {
+        published = await libraryDb.publishLibraryModule(db, {
+          ownerId, boardId, moduleId, title, content, now: nowIso(),
+          ...(Number.isInteger(originId) && originId > 0 ? { originId } : {}),
+        });
+      } catch (err) {
+        if (err instanceof libraryDb.PublishConflictError) throw conflict('publish_conflict', 'This module is being published by someone else at this moment: publish it again');
+        throw err;
       }
-      previous ??= await libraryDb.findBySource(db, ownerId, boardId, moduleId);
-
-      let row: libraryDb.LibraryModuleRow;
-      if (previous) {
-        const patch = { title, content, version: previous.version + 1, updated_at: now, source_board_id: boardId, source_module_id: moduleId };
-        await libraryDb.updateLibraryModule(db, previous.id, patch);
-        row = { ...previous, ...patch };
-      } else {
-        const fresh = { owner_id: ownerId, title, version: 1, content, source_board_id: boardId, source_module_id: moduleId, created_at: now, updated_at: now };
-        row = { id: await libraryDb.insertLibraryModule(db, fresh), ...fresh };
-      }
+      const { row, created } = published;
       const entry = await withContent(row, userId);
       // the board's module is now this entry at this version: record it, so the board is not shown an update
       // of its own module. The entry is published either way: a failure here is logged, not the caller's.
@@ -171,7 +167,7 @@ export function createLibraryService(db: Db, authz: AuthzService, boards: BoardF
       } catch (err) {
         console.error(`library: entry ${row.id} v${row.version} published, but recording its origin on board ${boardId} module "${moduleId}" failed:`, err);
       }
-      return { entry, created: !previous };
+      return { entry, created };
     },
 
     async get(userId, id) {
