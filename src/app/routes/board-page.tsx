@@ -1,5 +1,5 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
@@ -11,6 +11,7 @@ import { MemberAvatars, MemberListPanel } from '../../features/members';
 import { canEdit, isOwner } from '../../lib/roles';
 import { PageColumn } from '../layout';
 import { useIdParam } from '../../lib/use-id-param';
+import { useIdle } from '../../lib/use-idle';
 import { BoardWorkspace, useBoardSession, type BoardSession } from '../../features/canvas';
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
@@ -19,7 +20,6 @@ import { BuildPanel, useBuildSheet } from '../../features/build';
 import { BringupPanel, useBringup } from '../../features/bringup';
 import { useBoardHistory } from '../../features/snapshots';
 import type { ApiBoard } from '../../../shared/api';
-import type { BoardFile } from '../../../shared/board';
 import { PageTitle } from '../../components/ui/page-title';
 import { ClassPanel, LessonPanel, useAudience, useLesson } from '../../features/class';
 
@@ -99,9 +99,9 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   const sim = useLiveSim(session, { tryOut: session.readOnly });
   const analysis = useAnalysis(session.board);
   const build = useBuildSheet(session.board);
-  // the bring-up's test vectors (a fault simulation of the whole board, on this thread) wait until the
-  // browser is idle, after the canvas is drawn
-  const bringup = useBringup(board.id, board.role, useIdleValue(session.board, NO_PARTS));
+  // the bring-up's test vectors (a fault simulation of the whole board) are worked out in a worker once
+  // its panel is on screen, or once the page is idle when the record holds observations
+  const bringup = useBringup(board.id, board.role, session.board);
   const lesson = useLesson(session);
   const highlight = lesson.highlight ?? bringup.highlight ?? build.highlight ?? analysis.highlight;
   // preview and compare show a snapshot read-only on the canvas, without the live levels
@@ -125,23 +125,9 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
   );
 }
 
-const NO_PARTS: BoardFile = { format: 'gatefold-board', version: 1, title: '', family: 'ideal', parts: [], wires: [] };
-
-/** `value` as of the browser's last idle moment (`initial` before the first): work on it waits for idle. */
-function useIdleValue<T>(value: T, initial: T): T {
-  const [idle, setIdle] = useState(initial);
-  useEffect(() => {
-    if (typeof requestIdleCallback !== 'function') { setIdle(() => value); return; }
-    const handle = requestIdleCallback(() => setIdle(() => value), { timeout: 2000 });
-    return () => cancelIdleCallback(handle);
-  }, [value]);
-  return idle;
-}
-
 /** Its children, from the browser's first idle moment after it mounts (nothing before). */
 function WhenIdle({ children }: { children: ReactNode }) {
-  const idle = useIdleValue(true, false);
-  return idle ? <>{children}</> : null;
+  return useIdle() ? <>{children}</> : null;
 }
 
 function BadId() {

@@ -4,14 +4,18 @@
  * it on the canvas), the next vector to try, the printable sheet and the build photos.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Button } from '../../components/ui/button';
+import { Spinner } from '../../components/ui/spinner';
 import { errorMessage } from '../../lib/api-client';
 import { canEdit, isOwner } from '../../lib/roles';
+import { useSeen } from '../../lib/use-seen';
 import { bringupKeys, clearObservations, recordObservation, removeObservation } from './api';
 import { BringupSheet } from './bringup-sheet';
 import { PhotosStrip } from './photos-strip';
 import type { Bringup } from './use-bringup';
+
+const WORKING = { vectors: 'Working out the test vectors…', diagnosis: 'Ranking the suspects…' } as const;
 
 const lampText = (b: string) => (b === '1' ? '●' : b === '0' ? '○' : '?');
 
@@ -30,13 +34,22 @@ export function BringupPanel({ bringup, me }: { bringup: Bringup; me: number | n
   const clear = useMutation({ mutationFn: () => clearObservations(boardId), onSuccess: () => { setSeen({}); void refresh(); } });
   const print = () => window.print();
   const editable = canEdit(role);
+  // the vectors are worked out (in a worker) once the panel is on screen
+  const ref = useSeen<HTMLElement>(bringup.want);
   return (
-    <section aria-label="Bring-up" data-testid="bringup-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
+    <section ref={ref} aria-label="Bring-up" aria-busy={bringup.working !== null} data-testid="bringup-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Bring-up</h2>
-        {result && <Button size="sm" className="ml-auto" onClick={print} data-testid="bringup-print">Print sheet</Button>}
+        {result && !bringup.stale && <Button size="sm" className="ml-auto" onClick={print} data-testid="bringup-print">Print sheet</Button>}
       </header>
-      {bringup.error && <p role="alert" className="rounded border border-rose-800 bg-rose-950/50 p-2 text-xs text-rose-200">{bringup.error}</p>}
+      {bringup.working && (
+        <p className="flex items-center gap-2 text-xs text-slate-400" data-testid="bringup-working">
+          <Spinner size="sm" label={WORKING[bringup.working]} className="text-amber-glow" />
+          {WORKING[bringup.working]}{bringup.working === 'vectors' && result ? ' (the list below is of the board before the last change)' : ''}
+          <Elapsed key={bringup.working} />
+        </p>
+      )}
+      {bringup.error && !bringup.working && <p role="alert" className="rounded border border-rose-800 bg-rose-950/50 p-2 text-xs text-rose-200">{bringup.error}</p>}
       {result && (
         <>
           <BringupSheet board={bringup.board} result={result} />
@@ -50,7 +63,7 @@ export function BringupPanel({ bringup, me }: { bringup: Bringup; me: number | n
               <ul className="mt-1 space-y-0.5">{result.reasons.map((r) => <li key={r.fault}><span className="font-mono text-slate-300">{r.fault}</span> — {r.reason}</li>)}</ul>
             </details>
           )}
-          <table className="w-full font-mono text-xs" data-testid="bringup-vectors">
+          <table className={bringup.stale ? 'w-full font-mono text-xs opacity-60' : 'w-full font-mono text-xs'} data-testid="bringup-vectors">
             <thead className="text-slate-500">
               <tr><th className="text-left">#</th><th className="text-left">{result.inputs.join(' ')}</th><th>expect</th><th>saw</th><th /></tr>
             </thead>
@@ -72,7 +85,7 @@ export function BringupPanel({ bringup, me }: { bringup: Bringup; me: number | n
                         </button>
                       ))}
                     </td>
-                    <td>{editable && <Button size="sm" variant="ghost" data-testid={`bringup-record-${k}`} onClick={() => save.mutate({ in: v.in, out: now, step: result.sequential ? k : null })}>Record</Button>}</td>
+                    <td>{editable && <Button size="sm" variant="ghost" data-testid={`bringup-record-${k}`} disabled={bringup.stale} onClick={() => save.mutate({ in: v.in, out: now, step: result.sequential ? k : null })}>Record</Button>}</td>
                   </tr>
                 );
               })}
@@ -108,9 +121,19 @@ export function BringupPanel({ bringup, me }: { bringup: Bringup; me: number | n
   );
 }
 
+/** Seconds since it mounted, from the third on (a sequential board's vectors can take half a minute). */
+function Elapsed() {
+  const [s, setS] = useState(0);
+  useEffect(() => {
+    const t = setInterval(() => setS((n) => n + 1), 1000);
+    return () => clearInterval(t);
+  }, []);
+  return s >= 2 ? <span className="ml-auto font-mono text-slate-500" data-testid="bringup-elapsed">{s} s</span> : null;
+}
+
 function Suspects({ bringup }: { bringup: Bringup }) {
   const { diagnosis } = bringup;
-  if (!diagnosis) return <p className="text-xs text-slate-500">Record what the lamps showed to see the suspects.</p>;
+  if (!diagnosis) return bringup.working ? null : <p className="text-xs text-slate-500">Record what the lamps showed to see the suspects.</p>;
   if (!bringup.wrong) return <p className="text-xs text-emerald-300" data-testid="bringup-all-good">Every recorded lamp matches the board.</p>;
   return (
     <div data-testid="bringup-suspects" className="space-y-1">
