@@ -5,7 +5,8 @@
  * on the canvas. "Drawn" means what the canvas promises: it puts only the parts in view in the page, so
  * the bench works out from the viewport's transform and the canvas's size which parts overlap the view
  * and waits until every one of them is in the page — a React Flow node zoomed in, a box of the canvas's
- * far drawing zoomed out (flow/far-parts.tsx) — (after fit-to-view, which must show the whole board:
+ * far drawing zoomed out (flow/far-canvas.tsx: painted on one canvas, which reports what it painted; its
+ * pixels are checked after the timed open) — (after fit-to-view, which must show the whole board:
  * a row says how many parts were drawn, goal all of them). Also the mean and 95th-percentile frame time
  * while the canvas pans over all 1,000 parts (first drag after opening, then a second drag). Each figure
  * is the median of RUNS opens (GATEFOLD_BENCH_CANVAS_RUNS). When the suite is named
@@ -136,9 +137,21 @@ const drawnInPage = ({ boxes, wait }: { boxes: [string, number, number, number, 
   const rf = document.querySelector('.react-flow');
   if (!vp || !rf || document.querySelector('[data-testid="sync-note"]')) return wait ? null : { inView: 0, drawn: 0, zoom: 0, fitted: false };
   const m = new DOMMatrixReadOnly(getComputedStyle(vp).transform);
-  // a part is a React Flow node zoomed in, a box of the canvas's own far drawing zoomed out (flow/far-parts.tsx)
+  // a part is a React Flow node zoomed in; zoomed out, a box of the far drawing: an element per part in
+  // earlier builds ([data-far-id]), or painted on the far canvas (flow/far-canvas.tsx), which says on its
+  // element which rectangle of the board it painted and how many parts (boxes overlapping that rectangle,
+  // grown by 12 screen px, as it counts them)
   const present = new Set([...document.querySelectorAll('.react-flow__node')].map((n) => n.getAttribute('data-id'))
     .concat([...document.querySelectorAll('[data-far-id]')].map((n) => n.getAttribute('data-far-id'))));
+  const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-testid="far-canvas"][data-region]');
+  const region = canvas ? canvas.dataset.region!.split(' ').map(Number) : null;
+  const grow = 12 / m.a;
+  const inRegion = (x: number, y: number, w: number, h: number) => !!region && x - grow < region[0] + region[2] && region[0] < x + w + grow
+    && y - grow < region[1] + region[3] && region[1] < y + h + grow;
+  let regionCount = 0;
+  if (region) for (const [, x, y, w, h] of boxes) if (inRegion(x, y, w, h)) regionCount++;
+  // the canvas painted every part of the board in its rectangle, no fewer and no more
+  const painted = !!canvas && Number(canvas.dataset.parts) === regionCount;
   let inView = 0;
   let drawn = 0;
   for (const [id, x, y, w, h] of boxes) {
@@ -146,21 +159,51 @@ const drawnInPage = ({ boxes, wait }: { boxes: [string, number, number, number, 
     const top = y * m.a + m.f;
     if (left + w * m.a <= 0 || top + h * m.a <= 0 || left >= rf.clientWidth || top >= rf.clientHeight) continue;
     inView++;
-    if (present.has(id)) drawn++;
+    if (present.has(id) || (painted && inRegion(x, y, w, h))) drawn++;
   }
   const out = { inView, drawn, zoom: m.a, fitted: !(m.a === 1 && m.e === 0 && m.f === 0) };
   return !wait || (out.fitted && inView > 0 && drawn === inView) ? out : null;
 };
 
+// After the timed open (not timed): on the far canvas, the pixel at the middle of every part in view is
+// painted (the boxes are opaque on a transparent canvas), so the canvas's own count is checked against
+// what is really on it. Null when there is no far canvas.
+const paintedCentres = ({ boxes }: { boxes: [string, number, number, number, number][] }): { inView: number; painted: number } | null => {
+  const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-testid="far-canvas"][data-region]');
+  const vp = document.querySelector('.react-flow__viewport');
+  const rf = document.querySelector('.react-flow');
+  if (!canvas || !vp || !rf) return null;
+  const m = new DOMMatrixReadOnly(getComputedStyle(vp).transform);
+  const [rx, ry] = canvas.dataset.region!.split(' ').map(Number);
+  const scale = canvas.width / parseFloat(canvas.style.width);
+  const pixels = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+  let inView = 0;
+  let painted = 0;
+  for (const [, x, y, w, h] of boxes) {
+    const left = x * m.a + m.e;
+    const top = y * m.a + m.f;
+    if (left + w * m.a <= 0 || top + h * m.a <= 0 || left >= rf.clientWidth || top >= rf.clientHeight) continue;
+    inView++;
+    const px = Math.floor((x + w / 2 - rx) * scale);
+    const py = Math.floor((y + h / 2 - ry) * scale);
+    if (px >= 0 && py >= 0 && px < canvas.width && py < canvas.height && pixels[(py * canvas.width + px) * 4 + 3] > 0) painted++;
+  }
+  return { inView, painted };
+};
+
 /** Waits until the view is fitted and every part in view is drawn; if that never happens, says how far it got. */
+function boxList(board: BoardFile): [string, number, number, number, number][] {
+  return partBoxes(board).map((b, i): [string, number, number, number, number] => [board.parts[i].id, b[0], b[1], b[2], b[3]]);
+}
+
 async function allDrawn(page: Page, board: BoardFile): Promise<Drawn> {
-  const boxes = partBoxes(board).map((b, i): [string, number, number, number, number] => [board.parts[i].id, b[0], b[1], b[2], b[3]]);
+  const boxes = boxList(board);
   try {
     const handle = await page.waitForFunction(drawnInPage, { boxes, wait: true }, { timeout: 120_000, polling: 'raf' });
     return (await handle.jsonValue()) as Drawn;
   } catch (err) {
     const seen = (await page.evaluate(drawnInPage, { boxes, wait: false }))!;
-    const nodes = await page.evaluate(() => document.querySelectorAll('.react-flow__node, [data-far-id]').length);
+    const nodes = await page.evaluate(() => document.querySelectorAll('.react-flow__node, [data-far-id]').length + Number(document.querySelector<HTMLCanvasElement>('canvas[data-testid="far-canvas"]')?.dataset.parts ?? 0));
     throw new Error(`parts in view never all drawn: ${seen.drawn} of ${seen.inView} in view (${nodes} nodes in the page, zoom ${seen.zoom.toFixed(3)}, ${seen.fitted ? 'fitted' : 'not fitted'}) (${(err as Error).message.split('\n')[0]})`);
   }
 }
@@ -194,16 +237,23 @@ async function openOnce(page: Page, id: number, board: BoardFile, profileTo?: st
     await page.waitForSelector('[data-testid="board-workspace"]', { timeout: 300_000 });
     await page.waitForSelector('[data-testid="sync-note"]', { state: 'detached', timeout: 120_000 });
     const synced = Date.now() - t0;
-    await page.waitForSelector('.react-flow__node, [data-far-id]', { timeout: 120_000 });
+    await page.waitForSelector('.react-flow__node, [data-far-id], canvas[data-testid="far-canvas"][data-region]', { timeout: 120_000 });
     const first = Date.now() - t0;
     const drawn = await allDrawn(page, board);
     return { synced, first, full: Date.now() - t0, drawn };
   };
   const check = async (drawn: Drawn) => {
-    // Fit-to-view shows the whole board, in the plain-box mode, with every wire drawn.
-    const seen = await page.evaluate(() => ({ far: document.querySelectorAll('.gf-far-part').length, wires: document.querySelectorAll('.react-flow__edge').length }));
+    // Fit-to-view shows the whole board, in the plain-box mode, with every wire drawn: elements per part and
+    // wire in earlier builds, or the far canvas's counts and its pixels
+    const seen = await page.evaluate(() => {
+      const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-testid="far-canvas"][data-region]');
+      return canvas ? { far: Number(canvas.dataset.parts), wires: Number(canvas.dataset.wires) }
+        : { far: document.querySelectorAll('.gf-far-part').length, wires: document.querySelectorAll('.react-flow__edge').length };
+    });
     if (drawn.inView < all || seen.far < all || seen.wires < board.wires.length)
       throw new Error(`at fit view: ${drawn.inView} of ${all} parts in view, ${seen.far} plain boxes, ${seen.wires} of ${board.wires.length} wires`);
+    const pixels = await page.evaluate(paintedCentres, { boxes: boxList(board) });
+    if (pixels && pixels.painted < pixels.inView) throw new Error(`far canvas: only ${pixels.painted} of ${pixels.inView} parts in view have paint at their middle`);
   };
   // Pan across the canvas for 60 frames and time them: once right after opening (what a user feels
   // first), then once more (the steady cost of a frame, without one-time work of the first drag).

@@ -1,7 +1,7 @@
 /**
  * Box selection (Shift-drag) while the parts are drawn as plain boxes. React Flow draws the selection
  * rectangle but skips hidden nodes when it picks what is inside, and zoomed out every part is a hidden
- * node (flow/far-parts.tsx). So, while the far drawing is on, the canvas watches the rectangle in React
+ * node (flow/far-canvas.tsx). So, while the far drawing is on, the canvas watches the rectangle in React
  * Flow's store and selects the boxes itself, with React Flow's own rule for the detailed canvas
  * (SelectionMode.Full, its default: a part is picked when its whole box is inside the rectangle) and the
  * wires touching a picked part, as React Flow picks them. The selection goes to the nodes' `selected`

@@ -1,10 +1,8 @@
 /**
- * The wires while zoomed out: all of them in one SVG inside the viewport, drawn from the parts' positions
- * and pin boxes (the same paths as the wire edges, wire-path.ts), instead of one React Flow edge each.
- * An edge costs its own SVG element and three store subscriptions that run on every pan frame; on a
- * 5,000-part board that was most of a frame. Zoomed out a wire is a fraction of a pixel wide, so it is
- * not clickable here (zoom in to select one); a wire selected before still shows as selected, and each
- * keeps the classes and data-id the bench's pulse style targets.
+ * Wires as SVG paths inside the viewport, drawn from the parts' positions and pin boxes (the same paths as
+ * the wire edges, wire-path.ts). Zoomed out every wire is painted on the far canvas (far-canvas.tsx); this
+ * draws over it only the few wires of a net that does not settle, as elements with the classes and
+ * data-id the bench's pulse style targets, so that they pulse at any zoom. Not clickable.
  */
 import { memo, useMemo } from 'react';
 import { ViewportPortal } from '@xyflow/react';

@@ -1,6 +1,6 @@
 /**
  * The canvas's minimap, drawn from the part list itself. React Flow's own minimap leaves out hidden
- * nodes, and zoomed out every part is one (flow/far-parts.tsx), so it went blank exactly when an overview
+ * nodes, and zoomed out every part is one (flow/far-canvas.tsx), so it went blank exactly when an overview
  * helps most. This one draws a box per part from the nodes the canvas holds, whichever drawing is on.
  *
  * The boxes are one memoised group (drawn again only when the parts change); a pan or zoom frame changes

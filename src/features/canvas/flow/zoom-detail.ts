@@ -1,6 +1,6 @@
 /**
  * Whether the canvas is zoomed out far enough to draw plain boxes. Read ONCE per canvas (one store
- * subscription in the canvas): zoomed out the canvas draws the parts itself (flow/far-parts.tsx), a
+ * subscription in the canvas): zoomed out the canvas draws the parts itself (flow/far-canvas.tsx), a
  * `useStore` in every part would run a thousand selectors on every pan frame of a 1,000-part board.
  */
 import type { ReactFlowState } from '@xyflow/react';

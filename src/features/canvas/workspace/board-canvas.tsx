@@ -20,7 +20,7 @@ import { PartActionsContext, type PartActions } from '../flow/part-actions';
 import { PartNodeComponent } from '../flow/part-node';
 import { WireEdgeComponent } from '../flow/wire-edge';
 import { FarWires } from '../flow/far-wires';
-import { FarParts } from '../flow/far-parts';
+import { FarCanvas } from '../flow/far-canvas';
 import { useFarBoxSelect } from '../flow/far-select';
 import { PartsMap } from '../flow/parts-map';
 import { drawsFar, leastZoom, zoomBand } from '../flow/zoom-detail';
@@ -46,7 +46,7 @@ const paneWidth = (s: ReactFlowState) => s.width;
 const paneHeight = (s: ReactFlowState) => s.height;
 
 /**
- * Zoomed out the parts are drawn by FarParts; React Flow keeps them as hidden nodes, which it neither
+ * Zoomed out the parts are drawn by FarCanvas; React Flow keeps them as hidden nodes, which it neither
  * mounts nor watches on a pan frame (with onlyRenderVisibleElements a hidden node is never "in view").
  * One hidden copy per node object, so an unchanged part stays the same object for React Flow.
  */
@@ -55,6 +55,17 @@ function hiddenNode(n: PartNode): PartNode {
   let h = hiddenCopies.get(n);
   if (!h) { h = { ...n, hidden: true }; hiddenCopies.set(n, h); }
   return h;
+}
+
+/** Most wires drawn over the far canvas for their pulse (a net that does not settle); past it they stay still. */
+const PULSE_OVERLAY_LIMIT = 400;
+
+/** The wires leaving a part marked oscillating (the drivers of a net that does not settle). */
+function oscillatingWires(nodes: readonly PartNode[], edges: readonly WireEdge[]): WireEdge[] {
+  const driving = new Set(nodes.filter((n) => n.data.badge?.tone === 'oscillating').map((n) => n.id));
+  if (driving.size === 0) return NO_WIRES;
+  const out = edges.filter((e) => driving.has(e.source));
+  return out.length > PULSE_OVERLAY_LIMIT ? NO_WIRES : out;
 }
 
 export interface BoardCanvasProps extends OverlayProps {
@@ -184,7 +195,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
     sendDrag.flush();
   }, [doc, origin, readOnly, sendDrag]);
 
-  // Zoomed out, FarParts selects and drags the parts (React Flow has them hidden).
+  // Zoomed out, FarCanvas selects and drags the parts (React Flow has them hidden).
   const { setNodes, setEdges } = flow;
   const onFarPick = useCallback((id: string, additive: boolean) => {
     setNodes((ns) => ns.map((n) => {
@@ -213,6 +224,8 @@ export function BoardCanvas(props: BoardCanvasProps) {
   useFarBoxSelect(far, farNodes, onFarBoxSelect);
   const onFarOpenModule = useCallback((moduleId: string) => live.current.onOpenModule?.(moduleId), []);
   const rfNodes = useMemo(() => (far ? flow.nodes.map(hiddenNode) : flow.nodes), [far, flow.nodes]);
+  // zoomed out, the wires of a net that does not settle are also SVG paths: the bench's pulse style targets them by id
+  const pulseEdges = useMemo(() => (far ? oscillatingWires(flow.nodes, flow.edges) : NO_WIRES), [far, flow.nodes, flow.edges]);
 
   const onSelectionChange = useCallback(({ nodes }: OnSelectionChangeParams) => {
     aw.setLocalStateField('selection', nodes.map((n) => n.id));
@@ -260,7 +273,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
           snapToGrid
           snapGrid={SNAP}
           // Zoomed in, only the parts in view are in the page (full symbols are heavy). Zoomed out the parts
-          // are hidden nodes (drawn by FarParts, all of them: culling would only add and remove boxes at the
+          // are hidden nodes (painted by FarCanvas, all of them: culling would only add and remove boxes at the
           // edges on every pan frame, each a repaint of the moving layer), which React Flow then skips.
           onlyRenderVisibleElements
           nodesDraggable={!readOnly}
@@ -279,10 +292,9 @@ export function BoardCanvas(props: BoardCanvasProps) {
           {/* Zoomed out, grid dots one GRID apart are a few pixels apart: a haze of tens of thousands of dots.
               Every fifth dot keeps the grid readable. */}
           <CanvasGrid far={far} />
-          {/* zoomed out the wires are one drawing, not an edge each (flow/far-wires.tsx) */}
-          {far && <FarWires nodes={flow.nodes} edges={flow.edges} />}
-          {/* zoomed out the parts are plain boxes in one drawing, not a React Flow node each (flow/far-parts.tsx) */}
-          {far && <FarParts nodes={flow.nodes} draggable={!readOnly} onPick={onFarPick} onDrag={onFarDrag} onOpenModule={onFarOpenModule} />}
+          {/* zoomed out the parts and wires are painted on one canvas, not a React Flow node and edge each (flow/far-canvas.tsx) */}
+          {far && <FarCanvas nodes={flow.nodes} edges={flow.edges} draggable={!readOnly} onPick={onFarPick} onDrag={onFarDrag} onOpenModule={onFarOpenModule} />}
+          {pulseEdges.length > 0 && <FarWires nodes={flow.nodes} edges={pulseEdges} />}
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
               aria-label={showMap ? 'Hide the minimap' : 'Show the minimap'} data-testid="toggle-minimap">
