@@ -8,15 +8,17 @@ import { FAMILY_IDS, isInputKind, isOutputKind, type BoardFile } from '../board'
 import { compileBoard, type Netlist } from '../sim';
 import { convertBoard } from './convert';
 import { familyFacts, type FamilyFacts, type PartLine } from './families';
+import { fanOutWarnings, type FanOutWarning } from './fan-out';
 import { levelCheck, type LevelCheckResult } from './level-check';
 import { CMOS_4000B_SUPPLY, type PackageSpec } from './packages';
 import { criticalPath, type CriticalPath } from './timing';
 import { BuildError, formatOhms, parseSettings } from './values';
 
+export { fanOutWarnings, type FanOutWarning };
+
 export interface PackageCount { name: string; kind: string; inputs?: number; perPackage: number; used: number; packages: number; spare: number; source: string }
 export interface PartsListLine { item: string; name: string; value?: string; quantity: number; source: string }
 export interface RailLine { name: string; volts: number; currentMa: number; powerW: number; source: string }
-export interface FanOutWarning { net: string; driver: string; loads: number; limit: number }
 
 export interface BuildSheet {
   family: string;
@@ -210,21 +212,6 @@ export function packPackages(gates: { kind: string; inputs?: number }[], specs: 
     const packages = Math.ceil(u / s.perPackage);
     return { name: s.name, kind: s.kind, inputs: s.inputs, perPackage: s.perPackage, used: u, packages, spare: packages * s.perPackage - u, source: s.source };
   });
-}
-
-/** Nets whose loads exceed the family's fan-out (gate, storage and multiplexer outputs). */
-export function fanOutWarnings(netlist: Netlist, limit: number | null): FanOutWarning[] {
-  if (limit === null) return [];
-  const out: FanOutWarning[] = [];
-  for (const net of netlist.nets) {
-    const driver = net.drivers[0];
-    if (!driver || net.drivers.length !== 1) continue;
-    const dp = netlist.partById(driver.part);
-    if (!dp || isInputKind(dp.kind)) continue;
-    const loads = net.readers.length;
-    if (loads > limit) out.push({ net: net.name, driver: `${driver.part}.${driver.pin}`, loads, limit });
-  }
-  return out;
 }
 
 /** `part.pin` of every gate, multiplexer or storage input left unconnected. */

@@ -4,6 +4,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { BuildError, buildSheet } from '../../shared/build';
+import { driverLevels } from '../../shared/build/fan-out';
+import { parseBoardFile } from '../../shared/board';
 import { chain, gates, tubeLogicUnit } from './boards';
 
 describe('buildSheet: packages', () => {
@@ -86,12 +88,64 @@ describe('buildSheet: warnings and bad input', () => {
       wires: [...board.wires.map((w) => (w.from === 'a.out' ? { ...w, from: 'drv.out' } : w)), { id: 'wa', from: 'a.out', to: 'drv.in0' }] };
     const sheet = buildSheet(fed, 'ttl-74ls');
     expect(sheet.fanOut.limit).toBe(20);
-    expect(sheet.fanOut.warnings).toEqual([{ net: 'drv_out', driver: 'drv.out', loads: 21, limit: 20 }]);
+    // the inverter drives 21: two buffers of up to 20 loads each, the inverter then drives those two
+    // (switch B, on the 21 gates' other inputs, is warned about too: see the next test)
+    expect(sheet.fanOut.warnings.map((w) => w.driver).sort()).toEqual(['b.out', 'drv.out']);
+    expect(sheet.fanOut.warnings.find((w) => w.driver === 'drv.out')).toEqual({
+      net: 'drv_out', driver: 'drv.out', kind: 'not', loads: 21, limit: 20, drivers: 2, levels: 1,
+      advice: 'Buffer it: 2 buffers (driver stages) each feed at most 20 of its 21 loads; the gate then drives 2, or build the gate twice and share the loads between the copies.',
+    });
     const open = { ...board, wires: board.wires.filter((w) => w.id !== 'b0') };
     const advice = buildSheet(open, 'cmos-74hc').unusedInputs;
     expect(advice.pins).toEqual(['g0.in1']);
     // CMOS inputs must never float (TI application report SCBA004)
     expect(advice.source).toBe('TI application report SCBA004');
+  });
+
+  it('counts the loads of switches, buttons and clocks as a gate\'s, and says how to buffer them; a constant is a rail tie', () => {
+    // 21 NAND gates on switch A and B: each switch drives 21 loads, one more than SN74LS00's fan-out of 20
+    // (TI SDLS025: I_OL 8 mA / I_IL 0.4 mA); an input is counted like a gate output (common practice, no source)
+    const sheet = buildSheet(gates(21, 'nand', 'ttl-74ls'), 'ttl-74ls');
+    expect(sheet.fanOut.warnings.map((w) => [w.net, w.driver, w.kind, w.loads, w.drivers, w.levels])).toEqual([['A', 'a.out', 'switch', 21, 2, 1], ['B', 'b.out', 'switch', 21, 2, 1]]);
+    expect(sheet.fanOut.warnings[0].advice).toBe('Buffer it: 2 buffers (driver stages) each feed at most 20 of its 21 loads; the switch then drives 2.');
+    // within the limit: no warning (20 loads on each switch)
+    expect(buildSheet(gates(20, 'nand', 'ttl-74ls'), 'ttl-74ls').fanOut.warnings).toEqual([]);
+    // the same board on buttons and on a constant: the button is warned about, the constant is not
+    const on = (kind: 'button' | 'const') => ({ ...gates(21, 'nand', 'ttl-74ls'), parts: gates(21, 'nand', 'ttl-74ls').parts.map((p) => (p.id === 'a' ? (kind === 'const' ? { id: 'a', kind, x: 0, y: 0, value: 1 as const } : { id: 'a', kind, label: 'A', x: 0, y: 0, pressed: false }) : p)) });
+    expect(buildSheet(on('button'), 'ttl-74ls').fanOut.warnings.map((w) => [w.driver, w.kind])).toEqual([['a.out', 'button'], ['b.out', 'switch']]);
+    expect(buildSheet(on('const'), 'ttl-74ls').fanOut.warnings.map((w) => w.driver)).toEqual(['b.out']);
+  });
+
+  it('a clock on many flip-flops: a two-level driver tree and a word on clock skew', () => {
+    // one clock on 24 D flip-flops in the tube family (fan-out 4, from memory): 24 / 4 = 6 buffers on the
+    // loads, 6 / 4 → 2 buffers on those, the clock drives 2 (a driver tree, common practice, no source)
+    const parts: unknown[] = [{ id: 'clk', kind: 'clock', label: 'CLK', x: 0, y: 0 }, { id: 'd', kind: 'switch', label: 'D', x: 0, y: 60 }];
+    const wires: { id: string; from: string; to: string }[] = [];
+    for (let i = 0; i < 24; i++) {
+      parts.push({ id: `ff${i}`, kind: 'dff', x: 100, y: 60 * i }, { id: `q${i}`, kind: 'lamp', label: `Q${i}`, x: 200, y: 60 * i });
+      wires.push({ id: `c${i}`, from: 'clk.out', to: `ff${i}.clk` }, { id: `q${i}`, from: `ff${i}.q`, to: `q${i}.in` });
+      if (i < 4) wires.push({ id: `d${i}`, from: 'd.out', to: `ff${i}.d` });
+    }
+    const board = parseBoardFile({ format: 'gatefold-board', version: 1, title: 'clocked', family: 'tube-drl-nor', parts, wires });
+    if (!board.ok) throw new Error(board.problems.map((p) => p.message).join('; '));
+    const sheet = buildSheet(board.board, 'tube-drl-nor');
+    expect(sheet.fanOut.limit).toBe(4);
+    // the switch D drives 4: within the limit
+    expect(sheet.fanOut.warnings).toHaveLength(1);
+    expect(sheet.fanOut.warnings[0]).toMatchObject({ net: 'CLK', driver: 'clk.out', kind: 'clock', loads: 24, limit: 4, drivers: 8, levels: 2 });
+    expect(sheet.fanOut.warnings[0].advice).toBe('Buffer it: 6 buffers (driver stages) each feed at most 4 of its 24 loads, 2 more feed those 6 (8 in all); the clock then drives 2. '
+      + 'Give every flip-flop\'s clock the same number of stages: a branch with more stages clocks later (skew), and a flip-flop clocked late can take its neighbour\'s new value instead of the old one.');
+  });
+
+  it('driver tree levels: a buffer per group of the limit, level after level until the source drives at most the limit', () => {
+    // ceil(L / F) per level (common practice, no source): 24/4 → 6, 2; 21/20 → 2; 400/20 → 20; 401/20 → 21, 2; 5/4 → 2
+    expect(driverLevels(24, 4)).toEqual([6, 2]);
+    expect(driverLevels(21, 20)).toEqual([2]);
+    expect(driverLevels(400, 20)).toEqual([20]);
+    expect(driverLevels(401, 20)).toEqual([21, 2]);
+    expect(driverLevels(5, 4)).toEqual([2]);
+    expect(driverLevels(4, 4)).toEqual([]);
+    expect(driverLevels(100, 4)).toEqual([25, 7, 2]);
   });
 
   it('refuses an unknown family, impossible resistor values and VDD off the datasheet', () => {

@@ -62,7 +62,7 @@ export function SheetView({ sheet }: { sheet: BuildSheet }) {
       {sheet.warmUpS !== null && <p className="text-[11px] text-slate-400">Heaters need about {sheet.warmUpS} s after switch-on; until then every tube gate's output sits high.</p>}
       <H>Fan-out</H>
       {sheet.fanOut.warnings.length
-        ? <ul className="list-disc pl-4 text-[11px] text-amber-300" data-testid="build-fanout">{sheet.fanOut.warnings.map((w) => <li key={w.net}>{w.net} ({w.driver}) drives {w.loads} loads; this family allows {w.limit}.</li>)}</ul>
+        ? <ul className="list-disc pl-4 text-[11px] text-amber-300" data-testid="build-fanout">{sheet.fanOut.warnings.map((w) => <li key={w.net}>{w.net} ({w.driver}, {w.kind}) drives {w.loads} loads; this family allows {w.limit}. {w.advice}</li>)}</ul>
         : <p className="text-[11px] text-slate-500">Every output within the family's fan-out{sheet.fanOut.limit !== null ? ` of ${sheet.fanOut.limit}` : ''}.</p>}
       {sheet.unusedInputs.pins.length > 0 && (
         <p className="text-[11px] text-slate-300" data-testid="build-unused">Open inputs {sheet.unusedInputs.pins.join(', ')}: {sheet.unusedInputs.advice}</p>
