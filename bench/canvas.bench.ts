@@ -146,21 +146,21 @@ const drawnInPage = ({ boxes, wait }: { boxes: [string, number, number, number, 
   const canvas = document.querySelector<HTMLCanvasElement>('canvas[data-testid="far-canvas"][data-region]');
   const region = canvas ? canvas.dataset.region!.split(' ').map(Number) : null;
   const grow = 12 / m.a;
-  const inRegion = (x: number, y: number, w: number, h: number) => !!region && x - grow < region[0] + region[2] && region[0] < x + w + grow
-    && y - grow < region[1] + region[3] && region[1] < y + h + grow;
-  let regionCount = 0;
-  if (region) for (const [, x, y, w, h] of boxes) if (inRegion(x, y, w, h)) regionCount++;
+  // (no helper functions in here: see above) which boxes overlap the painted rectangle
+  const inRegion = boxes.map(([, x, y, w, h]) => !!region && x - grow < region[0] + region[2] && region[0] < x + w + grow
+    && y - grow < region[1] + region[3] && region[1] < y + h + grow);
+  const regionCount = inRegion.filter(Boolean).length;
   // the canvas painted every part of the board in its rectangle, no fewer and no more
   const painted = !!canvas && Number(canvas.dataset.parts) === regionCount;
   let inView = 0;
   let drawn = 0;
-  for (const [id, x, y, w, h] of boxes) {
+  boxes.forEach(([id, x, y, w, h], i) => {
     const left = x * m.a + m.e;
     const top = y * m.a + m.f;
-    if (left + w * m.a <= 0 || top + h * m.a <= 0 || left >= rf.clientWidth || top >= rf.clientHeight) continue;
+    if (left + w * m.a <= 0 || top + h * m.a <= 0 || left >= rf.clientWidth || top >= rf.clientHeight) return;
     inView++;
-    if (present.has(id) || (painted && inRegion(x, y, w, h))) drawn++;
-  }
+    if (present.has(id) || (painted && inRegion[i])) drawn++;
+  });
   const out = { inView, drawn, zoom: m.a, fitted: !(m.a === 1 && m.e === 0 && m.f === 0) };
   return !wait || (out.fitted && inView > 0 && drawn === inView) ? out : null;
 };

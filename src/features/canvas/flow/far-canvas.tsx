@@ -118,7 +118,7 @@ function FarCanvasView({ nodes, edges, draggable, onPick, onDrag, onOpenModule }
       if (stale && !frame) frame = requestAnimationFrame(() => { frame = 0; paint(); });
     });
     // the title font may arrive after the first paint
-    void document.fonts?.ready.then(() => paint());
+    if (document.fonts && document.fonts.status !== 'loaded') void document.fonts.ready.then(() => paint());
     return () => { unsubscribe(); cancelAnimationFrame(frame); };
   }, [store, paint]);
 
