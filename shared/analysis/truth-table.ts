@@ -42,6 +42,15 @@ export interface EnumerateOptions {
   fourValued?: boolean;
   /** the kernel to use; default: WebAssembly where it compiles here, else JS */
   kernel?: TableKernel;
+  /**
+   * Arrays to write the codes into, one per output, instead of new ones: the table's `values` are then
+   * these arrays (every row written), and the next table given them overwrites it. For a caller that
+   * makes large tables one after another and keeps none (a benchmark, a server answering and dropping
+   * them): a new array (1 MiB per output at 20 inputs) is memory new to the process, and the page faults
+   * of its first write (and the collections that give it back) cost more than the kernel. An array whose
+   * length is not the table's row count, or given twice, is left alone (a new one is made).
+   */
+  into?: readonly Uint8Array[];
 }
 
 /**
@@ -57,7 +66,7 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
   const cone = tableCone(netlist, spec.outputs.map((o) => o.inputs[0]));
   const sequential = spec.outputs.map((_, i) => cone.stateful[i] === 1);
   const useEvent = spec.outputs.map((_, i) => opts.eventOnly === true || sequential[i]);
-  const values = spec.outputs.map(() => new Uint8Array(rowCount));
+  const values = outputArrays(spec.outputs.length, rowCount, opts.into);
   const chunk = Math.max(32, Math.ceil((opts.chunkRows ?? 8192) / 32) * 32);
   const total = rowCount * (useEvent.some((u) => !u) ? 1 : 0) + rowCount * (useEvent.some((u) => u) ? 1 : 0);
   let done = 0;
@@ -100,6 +109,17 @@ export function* enumerateChunks(netlist: Netlist, spec: TableSpec, opts: Enumer
     rowCount, values, sequential, method: useEvent.map((u) => (u ? 'event' : 'bit-parallel')),
     ...(kernel ? { kernel } : {}),
   };
+}
+
+/** The table's arrays: the caller's where given with the right length (each once), else new ones. */
+function outputArrays(n: number, rowCount: number, into: readonly Uint8Array[] = []): Uint8Array[] {
+  const taken = new Set<Uint8Array>();
+  return Array.from({ length: n }, (_, i) => {
+    const given = into[i];
+    if (given?.length !== rowCount || taken.has(given)) return new Uint8Array(rowCount);
+    taken.add(given);
+    return given;
+  });
 }
 
 function codeOf(l: string): number {
