@@ -22,51 +22,85 @@ export type AxisMode = 'time' | 'cycles';
 
 export interface DrawOptions {
   width: number;
+  /** height of the canvas: the axis, then as many rows as fit */
   height: number;
   view: Viewport;
   cursor: number | null;
   axis: AxisMode;
   /** device pixels per CSS pixel */
   scale: number;
+  /** how far the rows are scrolled (CSS pixels); the axis stays at the top */
+  top?: number;
 }
 
-/** Draws the whole strip (axis, rows, waveforms, cursor and its readout) onto a 2D context. */
+/** The rows a canvas `height` pixels high shows when the rows are scrolled by `top` pixels: [first, end). */
+export function rowsInView(count: number, top: number, height: number): { first: number; end: number } {
+  const first = Math.max(0, Math.floor(top / ROW_H));
+  const end = Math.min(count, Math.ceil((top + Math.max(0, height - AXIS_H)) / ROW_H));
+  return { first, end: Math.max(first, end) };
+}
+
+/** One straight piece of a waveform, in canvas pixels. */
+interface Line { x0: number; y0: number; x1: number; y1: number }
+/** What a row draws: level lines (with the edges into them) by level, and boxes where it is unknown or busy. */
+export interface RowStrokes { one: Line[]; zero: Line[]; z: Line[]; x: Line[]; busy: Line[] }
+
+/**
+ * Draws the strip (axis, the rows in view, their waveforms in the visible time, cursor and its readout)
+ * onto a 2D context: only what the canvas shows, each kind of stroke as one path.
+ */
 export function drawWaveforms(ctx: CanvasRenderingContext2D, trace: Trace, o: DrawOptions): void {
   const plotW = Math.max(1, o.width - LABEL_W);
+  const top = o.top ?? 0;
   ctx.setTransform(o.scale, 0, 0, o.scale, 0, 0);
   ctx.fillStyle = WAVE_COLOURS.surface;
   ctx.fillRect(0, 0, o.width, o.height);
   ctx.font = '11px "JetBrains Mono", ui-monospace, monospace';
   ctx.textBaseline = 'middle';
+  ctx.lineWidth = 1;
+  ctx.setLineDash([]);
   drawAxis(ctx, trace, o, plotW);
-  trace.signals.forEach((signal, row) => {
-    const top = AXIS_H + row * ROW_H;
-    ctx.strokeStyle = WAVE_COLOURS.grid;
-    ctx.setLineDash([]);
-    ctx.beginPath();
-    ctx.moveTo(0, top + ROW_H - 0.5);
-    ctx.lineTo(o.width, top + ROW_H - 0.5);
-    ctx.stroke();
+  const { first, end } = rowsInView(trace.signals.length, top, o.height);
+  const strokes: RowStrokes = { one: [], zero: [], z: [], x: [], busy: [] };
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(0, AXIS_H, o.width, Math.max(0, o.height - AXIS_H));
+  ctx.clip();
+  ctx.strokeStyle = WAVE_COLOURS.grid;
+  ctx.beginPath();
+  for (let row = first; row < end; row++) {
+    const y = AXIS_H + row * ROW_H - top + ROW_H - 0.5;
+    ctx.moveTo(0, y);
+    ctx.lineTo(o.width, y);
+  }
+  ctx.stroke();
+  for (let row = first; row < end; row++) {
+    const signal = trace.signals[row];
+    const rowTop = AXIS_H + row * ROW_H - top;
     ctx.fillStyle = WAVE_COLOURS.text;
-    ctx.fillText(clip(signal.name, 11), 8, top + ROW_H / 2);
+    ctx.fillText(clip(signal.name, 11), 8, rowTop + ROW_H / 2);
     if (o.cursor !== null) {
       const v = levelAt(signal.changes, o.cursor);
       ctx.fillStyle = colourOf(v);
-      ctx.fillText(v, LABEL_W - 18, top + ROW_H / 2);
+      ctx.fillText(v, LABEL_W - 18, rowTop + ROW_H / 2);
     }
-    ctx.save();
-    ctx.beginPath();
-    ctx.rect(LABEL_W, top, plotW, ROW_H);
-    ctx.clip();
     // nothing before a row's first recorded change (a signal picked later has no earlier history)
-    if (signal.changes.length) drawRow(ctx, signal.changes, o, plotW, top, Math.max(trace.start, signal.changes[0].t));
-    ctx.restore();
-  });
+    if (signal.changes.length) rowStrokes(signal.changes, o.view, plotW, rowTop, Math.max(trace.start, signal.changes[0].t), strokes);
+  }
+  ctx.lineWidth = 1.5;
+  strokeLines(ctx, strokes.one, WAVE_COLOURS.high);
+  strokeLines(ctx, strokes.zero, WAVE_COLOURS.low);
+  ctx.setLineDash([4, 3]);
+  strokeLines(ctx, strokes.z, WAVE_COLOURS.z);
+  ctx.setLineDash([]);
+  boxes(ctx, strokes.x, 'rgba(224,64,160,0.35)', WAVE_COLOURS.x);
+  boxes(ctx, strokes.busy, 'rgba(255,179,71,0.3)', WAVE_COLOURS.high);
+  ctx.lineWidth = 1;
+  ctx.restore();
   if (o.cursor !== null) {
     const x = LABEL_W + xAtTime(o.view, o.cursor, plotW);
     if (x >= LABEL_W && x <= o.width) {
       ctx.strokeStyle = WAVE_COLOURS.cursor;
-      ctx.setLineDash([]);
       ctx.beginPath();
       ctx.moveTo(x + 0.5, AXIS_H);
       ctx.lineTo(x + 0.5, o.height);
@@ -75,66 +109,94 @@ export function drawWaveforms(ctx: CanvasRenderingContext2D, trace: Trace, o: Dr
   }
 }
 
+function strokeLines(ctx: CanvasRenderingContext2D, lines: Line[], colour: string): void {
+  if (!lines.length) return;
+  ctx.strokeStyle = colour;
+  ctx.beginPath();
+  for (const l of lines) {
+    ctx.moveTo(l.x0, l.y0);
+    ctx.lineTo(l.x1, l.y1);
+  }
+  ctx.stroke();
+}
+
+/** Boxes (x0, y0)–(x1, y1): filled, then outlined, each kind as one path. */
+function boxes(ctx: CanvasRenderingContext2D, list: Line[], fill: string, stroke: string): void {
+  if (!list.length) return;
+  ctx.beginPath();
+  for (const b of list) ctx.rect(b.x0, b.y0, b.x1 - b.x0, b.y1 - b.y0);
+  ctx.fillStyle = fill;
+  ctx.fill();
+  ctx.strokeStyle = stroke;
+  ctx.stroke();
+}
+
 function drawAxis(ctx: CanvasRenderingContext2D, trace: Trace, o: DrawOptions, plotW: number): void {
   ctx.fillStyle = WAVE_COLOURS.dim;
   const label = o.cursor === null ? (o.axis === 'cycles' ? 'cycles' : 'time') : `t=${fmt(o.cursor)} c${cycleAt(trace.edges, o.cursor)}`;
   ctx.fillText(clip(label, 17), 8, AXIS_H / 2);
   const ticks: { t: number; text: string }[] = [];
+  const t1 = o.view.start + o.view.span;
   if (o.axis === 'cycles') {
-    const visible = trace.edges.map((t, i) => ({ t, text: String(i + 1) })).filter((e) => e.t >= o.view.start && e.t <= o.view.start + o.view.span);
-    const every = Math.max(1, Math.ceil((visible.length * 40) / plotW));
-    visible.forEach((e, i) => i % every === 0 && ticks.push(e));
+    // the edges in view only (a long run has many): edges[k] is the start of cycle k + 1
+    const from = firstAtOrAfter(trace.edges, o.view.start);
+    const to = cycleAt(trace.edges, t1);
+    const every = Math.max(1, Math.ceil(((to - from) * 40) / plotW));
+    for (let k = from; k < to; k++) if ((k - from) % every === 0) ticks.push({ t: trace.edges[k], text: String(k + 1) });
   } else {
     const step = tickStep(o.view.span, plotW);
-    for (let t = Math.ceil(o.view.start / step) * step; t <= o.view.start + o.view.span; t += step) ticks.push({ t, text: fmt(t) });
+    for (let t = Math.ceil(o.view.start / step) * step; t <= t1; t += step) ticks.push({ t, text: fmt(t) });
   }
+  ctx.strokeStyle = WAVE_COLOURS.grid;
+  ctx.beginPath();
   for (const tick of ticks) {
     const x = LABEL_W + xAtTime(o.view, tick.t, plotW);
-    ctx.strokeStyle = WAVE_COLOURS.grid;
-    ctx.setLineDash([]);
-    ctx.beginPath();
     ctx.moveTo(x + 0.5, AXIS_H - 5);
     ctx.lineTo(x + 0.5, o.height);
-    ctx.stroke();
-    ctx.fillStyle = WAVE_COLOURS.dim;
-    ctx.fillText(tick.text, x + 3, AXIS_H / 2);
   }
+  ctx.stroke();
+  ctx.fillStyle = WAVE_COLOURS.dim;
+  for (const tick of ticks) ctx.fillText(tick.text, LABEL_W + xAtTime(o.view, tick.t, plotW) + 3, AXIS_H / 2);
 }
 
-/** One signal's waveform; nothing is drawn before `from`, where its recording started. */
-function drawRow(ctx: CanvasRenderingContext2D, changes: Trace['signals'][number]['changes'], o: DrawOptions, plotW: number, top: number, from: number): void {
+/** Index of the first time in `sorted` at or after `t`. */
+function firstAtOrAfter(sorted: readonly number[], t: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * The strokes of one signal's waveform in the view, for a row whose top is at `top` (canvas pixels),
+ * added to `out`; nothing is drawn before `from`, where its recording started.
+ */
+export function rowStrokes(changes: Trace['signals'][number]['changes'], view: Viewport, plotW: number, top: number, from: number, out: RowStrokes): void {
   const hi = top + 5;
   const lo = top + ROW_H - 5;
   const mid = (hi + lo) / 2;
-  const t1 = o.view.start + o.view.span;
-  const segs = segmentsIn(changes, Math.max(o.view.start, from), t1, o.view.span / plotW);
+  const t1 = view.start + view.span;
+  const segs = segmentsIn(changes, Math.max(view.start, from), t1, view.span / plotW);
   let prevY: number | null = null;
   for (const s of segs) {
-    const x0 = LABEL_W + xAtTime(o.view, s.from, plotW);
-    const x1 = LABEL_W + xAtTime(o.view, s.to, plotW);
-    ctx.setLineDash([]);
-    ctx.lineWidth = 1.5;
+    const x0 = LABEL_W + xAtTime(view, s.from, plotW);
+    const x1 = LABEL_W + xAtTime(view, s.to, plotW);
     if (s.v === 'X' || s.v === 'busy') {
-      ctx.fillStyle = s.v === 'X' ? 'rgba(224,64,160,0.35)' : 'rgba(255,179,71,0.3)';
-      ctx.fillRect(x0, hi, Math.max(1, x1 - x0), lo - hi);
-      ctx.strokeStyle = s.v === 'X' ? WAVE_COLOURS.x : WAVE_COLOURS.high;
-      ctx.strokeRect(x0, hi, Math.max(1, x1 - x0), lo - hi);
+      (s.v === 'X' ? out.x : out.busy).push({ x0, y0: hi, x1: x0 + Math.max(1, x1 - x0), y1: lo });
       prevY = null;
       continue;
     }
     const y = s.v === '1' ? hi : s.v === '0' ? lo : mid;
-    ctx.strokeStyle = colourOf(s.v);
-    if (s.v === 'Z') ctx.setLineDash([4, 3]);
-    ctx.beginPath();
-    if (prevY !== null && prevY !== y) {
-      ctx.moveTo(x0, prevY);
-      ctx.lineTo(x0, y);
-    } else ctx.moveTo(x0, y);
-    ctx.lineTo(x1, y);
-    ctx.stroke();
+    const list = s.v === '1' ? out.one : s.v === '0' ? out.zero : out.z;
+    // the edge into a level is drawn in that level's colour
+    if (prevY !== null && prevY !== y) list.push({ x0, y0: prevY, x1: x0, y1: y });
+    list.push({ x0, y0: y, x1, y1: y });
     prevY = y;
   }
-  ctx.lineWidth = 1;
 }
 
 function colourOf(v: string): string {

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
-import { AXIS_H, LABEL_W, ROW_H, drawWaveforms, type AxisMode } from './draw-waveforms';
+import { AXIS_H, LABEL_W, ROW_H, drawWaveforms, type AxisMode, type DrawOptions } from './draw-waveforms';
 import { canvasPng, download, fileStem } from './export';
 import { SignalPicker, type SignalChoice } from './signal-picker';
 import { cycleAt, readout, risingEdges, type Trace } from './trace';
@@ -31,33 +31,58 @@ export function TimingStrip(props: TimingStripProps) {
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const wrapRef = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(800);
+  // the part of the rows the scrolled area shows: the canvas is that big and stays in place (sticky)
+  const [box, setBox] = useState({ height: 200, top: 0 });
   const [view, setView] = useState<Viewport>(INITIAL);
   const [hover, setHover] = useState<number | null>(null);
   const [pinned, setPinned] = useState<number | null>(null);
   const [axis, setAxis] = useState<AxisMode>('time');
   const height = AXIS_H + Math.max(1, trace.signals.length) * ROW_H;
-  const shown = placed(view, trace.end);
+  const canvasH = Math.max(AXIS_H + ROW_H, Math.min(height, box.height));
+  const top = Math.max(0, Math.min(box.top, height - canvasH));
+  // a following window starts where the recording started: each level shows as a line from the start
+  const shown = placed(view, trace.end, trace.start);
   const cursor = hover ?? pinned;
 
   useEffect(() => {
     const el = wrapRef.current;
     if (!el) return;
-    const ro = new ResizeObserver(([entry]) => setWidth(Math.max(200, Math.floor(entry.contentRect.width))));
+    const ro = new ResizeObserver(([entry]) => {
+      setWidth(Math.max(200, Math.floor(entry.contentRect.width)));
+      setBox((b) => ({ ...b, height: Math.floor(entry.contentRect.height) }));
+    });
     ro.observe(el);
     return () => ro.disconnect();
   }, []);
 
+  const traceRef = useRef(trace);
+  traceRef.current = trace;
+  // One drawing per frame at most, of what the canvas shows (the trace grows with every state message).
+  const drawing = useRef<{ frame: number; options: DrawOptions | null }>({ frame: 0, options: null });
   useEffect(() => {
-    const canvas = canvasRef.current;
-    const ctx = canvas?.getContext('2d');
-    if (!canvas || !ctx) return;
-    const scale = window.devicePixelRatio || 1;
-    canvas.width = Math.round(width * scale);
-    canvas.height = Math.round(height * scale);
-    drawWaveforms(ctx, trace, { width, height, view: shown, cursor, axis, scale });
-  }, [trace, version, width, height, shown, cursor, axis]);
+    const d = drawing.current;
+    d.options = { width, height: canvasH, view: shown, cursor, axis, scale: window.devicePixelRatio || 1, top };
+    if (d.frame) return;
+    d.frame = requestAnimationFrame(() => {
+      d.frame = 0;
+      const canvas = canvasRef.current;
+      const ctx = canvas?.getContext('2d');
+      const o = d.options;
+      if (!canvas || !ctx || !o) return;
+      const w = Math.round(o.width * o.scale);
+      const h = Math.round(o.height * o.scale);
+      if (canvas.width !== w) canvas.width = w;
+      if (canvas.height !== h) canvas.height = h;
+      drawWaveforms(ctx, traceRef.current, o);
+    });
+  }, [trace, version, width, canvasH, shown.start, shown.span, cursor, axis, top]);
+  useEffect(() => () => {
+    cancelAnimationFrame(drawing.current.frame);
+    drawing.current.frame = 0;
+  }, []);
 
   const values = useMemo(() => (cursor === null ? [] : readout(trace, cursor)), [trace, version, cursor]);
+  const rises = useMemo(() => trace.signals.map((s) => risingEdges(s.changes)), [trace, version]);
 
   const timeAt = (e: { clientX: number }) => {
     const rect = canvasRef.current!.getBoundingClientRect();
@@ -90,8 +115,16 @@ export function TimingStrip(props: TimingStripProps) {
       toast.error(`VCD export failed: ${(err as Error).message}`);
     }
   };
+  // the whole strip, every row, as the screen would show it unscrolled
   const exportPng = () => {
-    canvasPng(canvasRef.current!).then((blob) => download(blob, `${fileStem(title)}-timing.png`), (err: Error) => toast.error(err.message));
+    const canvas = document.createElement('canvas');
+    const scale = window.devicePixelRatio || 1;
+    canvas.width = Math.round(width * scale);
+    canvas.height = Math.round(height * scale);
+    const ctx = canvas.getContext('2d');
+    if (!ctx) { toast.error('the browser could not draw the timing strip'); return; }
+    drawWaveforms(ctx, trace, { width, height, view: shown, cursor, axis, scale });
+    canvasPng(canvas).then((blob) => download(blob, `${fileStem(title)}-timing.png`), (err: Error) => toast.error(err.message));
   };
 
   return (
@@ -119,27 +152,30 @@ export function TimingStrip(props: TimingStripProps) {
           <button type="button" className="rounded border border-mat-600 px-2 hover:bg-mat-700" onClick={exportPng}>Export PNG</button>
         </span>
       </div>
-      <div ref={wrapRef} className="min-h-0 flex-1 overflow-auto">
+      <div ref={wrapRef} className="min-h-0 flex-1 overflow-auto" onScroll={(e) => { const t = e.currentTarget.scrollTop; setBox((b) => (b.top === t ? b : { ...b, top: t })); }}>
         {trace.signals.length === 0 ? (
           <p className="p-3 text-slate-400">Pick signals to record their waveforms.</p>
         ) : (
-          <canvas
-            ref={canvasRef}
-            data-testid="timing-canvas"
-            style={{ width, height, display: 'block', cursor: 'crosshair' }}
-            onPointerMove={(e) => setHover(Math.max(0, timeAt(e).t))}
-            onPointerLeave={() => setHover(null)}
-            onClick={(e) => setPinned(Math.max(0, timeAt(e).t))}
-          />
+          <div style={{ height }} data-testid="timing-rows" data-rows={trace.signals.length}>
+            <canvas
+              ref={canvasRef}
+              data-testid="timing-canvas"
+              data-top={top}
+              style={{ width, height: canvasH, display: 'block', cursor: 'crosshair', position: 'sticky', top: 0 }}
+              onPointerMove={(e) => setHover(Math.max(0, timeAt(e).t))}
+              onPointerLeave={() => setHover(null)}
+              onClick={(e) => setPinned(Math.max(0, timeAt(e).t))}
+            />
+          </div>
         )}
       </div>
       <div data-testid="timing-readout" aria-live="polite" className="flex flex-wrap gap-3 border-t border-mat-700 px-2 py-1 font-mono">
         {cursor === null ? (
           <>
             <span className="text-slate-400">Move over the waveforms for a readout; click to pin the cursor.</span>
-            {trace.signals.map((s) => (
-              <span key={s.name} data-testid="timing-summary" data-signal={s.name} data-rises={risingEdges(s.changes)} title="rising edges recorded">
-                {s.name} ↑{risingEdges(s.changes)}
+            {trace.signals.map((s, i) => (
+              <span key={s.name} data-testid="timing-summary" data-signal={s.name} data-rises={rises[i]} title="rising edges recorded">
+                {s.name} ↑{rises[i]}
               </span>
             ))}
           </>

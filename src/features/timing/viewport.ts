@@ -21,10 +21,15 @@ export function pan(v: Viewport, dt: number): Viewport {
   return { ...v, start: Math.max(0, v.start + dt), follow: false };
 }
 
-/** Where the window is for a trace ending at `end`: following windows slide so `end` is at the right. */
-export function placed(v: Viewport, end: number): Viewport {
+/**
+ * Where the window is for a recording from `start` to `end`: a following window begins where the
+ * recording began, so each signal's level shows as a line from there on even before anything changed
+ * (a recording that starts late in a run — a late joiner, a board whose power-on took long — has
+ * start = end at first), and slides once the recording is longer than the window, `end` at the right.
+ */
+export function placed(v: Viewport, end: number, start = 0): Viewport {
   if (!v.follow) return v;
-  return { ...v, start: Math.max(0, end - v.span) };
+  return { ...v, start: Math.max(0, start, end - v.span) };
 }
 
 /** Time at pixel `x` of a strip `width` pixels wide, and the inverse. */
