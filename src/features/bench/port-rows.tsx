@@ -38,17 +38,16 @@ function NameCell({ name, partId }: { name: RowName; partId: string }) {
 const btn = 'h-6 rounded border border-mat-600 bg-mat-800 px-2 text-xs hover:border-mat-500 hover:bg-mat-700 disabled:opacity-50';
 
 /** One input of the board (its readable name, in full and with the id in the tooltip) with its value and, for switches and buttons, a control to operate it. */
-export function InputRow({ port, name: rowName, onSet, disabled }: { port: PortValue; name: RowName; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
+export function InputRow({ port, name, onSet, disabled }: { port: PortValue; name: RowName; onSet(partId: string, value: boolean): void; disabled?: boolean }) {
   const high = port.value === '1';
-  const name = rowName.full;
   return (
     <li className="flex items-center gap-2 py-0.5" data-testid={`bench-input-${port.label}`}>
-      <NameCell name={rowName} partId={port.partId} />
+      <NameCell name={name} partId={port.partId} />
       <span className="w-14 text-[11px] text-slate-500">{port.kind}</span>
       <LevelChip level={port.value} />
       <span className="ml-auto">
         {port.kind === 'switch' && (
-          <button type="button" className={btn} disabled={disabled} aria-pressed={high} aria-label={`Switch ${name}`} onClick={() => onSet(port.partId, !high)}>
+          <button type="button" className={btn} disabled={disabled} aria-pressed={high} aria-label={`Switch ${name.full}`} onClick={() => onSet(port.partId, !high)}>
             {high ? 'Turn off' : 'Turn on'}
           </button>
         )}
@@ -57,7 +56,7 @@ export function InputRow({ port, name: rowName, onSet, disabled }: { port: PortV
             type="button"
             className={btn}
             disabled={disabled}
-            aria-label={`Press ${name}`}
+            aria-label={`Press ${name.full}`}
             onPointerDown={(e) => {
               e.currentTarget.setPointerCapture?.(e.pointerId);
               onSet(port.partId, true);
