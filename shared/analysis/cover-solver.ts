@@ -36,6 +36,16 @@ export interface CoverSolution {
   proven: boolean;
   /** work spent (entry visits) */
   steps: number;
+  /**
+   * A proven lower bound on the number of columns of any cover (equal to the cover's count when the term
+   * stage was proven everywhere): from the root bounds of the components whose search ran out.
+   */
+  termBound: number;
+  /**
+   * When the fewest columns are proven (every component's term stage finished): a proven lower bound on
+   * the literals of any cover with that many columns (the cover's literals when proven); else undefined.
+   */
+  literalBound?: number;
 }
 
 /** Cost weight of one term: terms × TERM + literals, so fewer terms always wins (as in cover-matrix.ts). */
@@ -72,10 +82,12 @@ export function solveCover(clauses: number[][], lits: (col: number) => number, u
   if (budget.left < 0) {
     // the budget ran out before the reductions finished: the known cover, not proven
     const cost = upper.reduce((s, g) => s + costs[local.get(g) ?? 0], 0);
-    return { cover: [...upper].sort((a, b) => a - b), cost, proven: false, steps: budget.steps };
+    return { cover: [...upper].sort((a, b) => a - b), cost, proven: false, steps: budget.steps, termBound: 0 };
   }
   const taken = [...root.taken];
   let proven = true;
+  let termBound = taken.length;
+  let literalBound: number | undefined = taken.reduce((s, p) => s + litCost[p], 0);
   for (const comp of components(root.rows)) {
     // the known cover restricted to this component's columns (a cover of its rows unless reduction struck one of them)
     const compCols = new Set(comp.flat());
@@ -84,17 +96,19 @@ export function solveCover(clauses: number[][], lits: (col: number) => number, u
     const terms = new BranchAndBound(comp, ones, budget, Infinity, litCost).solve(start);
     let pick = terms.cover;
     let done = terms.proven;
+    termBound += terms.bound;
     if (done) {
       const lit = new BranchAndBound(comp, litCost, budget, terms.cover.length, ones).solve(terms.cover);
       pick = lit.cover;
       done = lit.proven;
-    }
+      if (literalBound !== undefined) literalBound += lit.bound;
+    } else literalBound = undefined;
     taken.push(...pick);
     if (!done) proven = false;
   }
   const cover = taken.map((p) => ids[p]).sort((a, b) => a - b);
   const cost = taken.reduce((s, p) => s + costs[p], 0);
-  return { cover, cost, proven, steps: budget.steps };
+  return { cover, cost, proven, steps: budget.steps, termBound, literalBound };
 }
 
 interface Budget { left: number; steps: number }
@@ -245,6 +259,8 @@ class BranchAndBound {
   private best = Infinity;
   private bestSet: number[] = [];
   private out = false;
+  /** a proven lower bound on the cost of any cover of the component (within the cap): the root's best */
+  private rootBound = 0;
   nodes = 0;
   // scratch
   private readonly rc: Float64Array;
@@ -288,7 +304,7 @@ class BranchAndBound {
   }
 
   /** The best cover (columns of the caller) and whether it is proven minimal; `start` is a known cover or not. */
-  solve(start: number[]): { cover: number[]; proven: boolean } {
+  solve(start: number[]): { cover: number[]; proven: boolean; bound: number } {
     const loc = new Map<number, number>();
     this.col.forEach((g, i) => loc.set(g, i));
     const startLocal = start.map((g) => loc.get(g) ?? -1).filter((p) => p >= 0);
@@ -311,7 +327,10 @@ class BranchAndBound {
     }
     this.node(lambda, 0);
     if (!this.bestSet.length && this.R) this.greedyFallback();
-    return { cover: this.bestSet.map((p) => this.col[p]), proven: !this.out };
+    let best = 0;
+    for (const p of this.bestSet) best += this.w[p];
+    // proven: the cover's own cost; else what the root proved (no cover is cheaper than both)
+    return { cover: this.bestSet.map((p) => this.col[p]), proven: !this.out, bound: this.out ? Math.min(best, this.rootBound) : best };
   }
 
   /** A cover by most open rows per unit of cost (only when the budget ran out before any cover was found). */
@@ -339,6 +358,17 @@ class BranchAndBound {
     this.bestSet = set;
   }
 
+  /**
+   * Records a bound of the root's open part: no cover costs less than min(best, cost + ⌈bound⌉) — the
+   * root's fixings (propagation, reduced-cost fixing against the best cover) only strike covers that are
+   * not cheaper than the best one. Rounded down by the same margin as `prunes`.
+   */
+  private noteRoot(bound: number): void {
+    if (!Number.isFinite(bound)) return;
+    const whole = this.cost + Math.ceil(bound - EPS);
+    this.rootBound = Math.max(this.rootBound, Math.min(this.best, whole));
+  }
+
   private spend(n: number): boolean {
     this.budget.steps += n;
     this.budget.left -= n;
@@ -358,7 +388,7 @@ class BranchAndBound {
     for (const p of set) c += this.w[p];
     if (c < this.best) {
       // a new incumbent of the literal stage: improved by swaps before it is kept (new incumbents are few)
-      const better = this.capped ? this.swapSearch(set) : [...set];
+      const better = this.swapSearch(set);
       c = 0;
       for (const p of better) c += this.w[p];
       this.best = c;
@@ -370,7 +400,7 @@ class BranchAndBound {
    * Local search on a cover at equal or fewer columns: repeatedly replaces one column by one, or two by
    * two, of lower total cost (ties broken by the tie cost), keeping every row covered; any column of the
    * component may come in (the result is a cover of the whole component, valid whatever the node's
-   * state). Stops at a local optimum. Work counted as entry visits.
+   * state). Stops at a local optimum or after an eighth of the work left. Work counted as entry visits.
    */
   private swapSearch(start: number[]): number[] {
     const { R, C, colStart, colRow, rowStart, rowCol, w, tie } = this;
@@ -394,7 +424,10 @@ class BranchAndBound {
     const u1: number[] = [];
     const u2: number[] = [];
     let visits = 0;
-    for (let improved = true; improved && !this.out; ) {
+    // at most an eighth of the work left per call (a large cover's search could otherwise take it all)
+    const limit = this.budget.steps + Math.max(1_000_000, this.budget.left / 8);
+    let stopped = false;
+    for (let improved = true; improved && !this.out && !stopped; ) {
       improved = false;
       for (let a = 0; a < list.length && !improved; a++) {
         const p1 = list[a];
@@ -466,8 +499,10 @@ class BranchAndBound {
         }
         if (done) { improved = true; break; }
         put(p1, 1);
+        // large covers: the budget is checked within a pass, not only after it
+        if (visits > 100_000) { const out = this.spend(visits); visits = 0; if (out || this.budget.steps > limit) { stopped = true; break; } }
       }
-      if (this.spend(visits)) break;
+      if (this.spend(visits) || this.budget.steps > limit) break;
       visits = 0;
     }
     this.spend(visits);
@@ -764,12 +799,14 @@ class BranchAndBound {
         }
       }
       bound = this.subgradient(lambda, this.w, this.capped, this.best - this.cost, this.rc, its, depth === 0 ? HEUR_EVERY : 0);
+      if (depth === 0) this.noteRoot(bound);
       if (this.out) return finish();
       if (!prunes(bound, this.best - this.cost) && round === 0 && this.openRows() * this.freeColumns() <= LP_ENTRIES) {
         const saved = Float64Array.from(lambda);
         const lp = this.lpBound(lambda);
         haveX = true;
         if (lp > bound) bound = lp; else { lambda.set(saved); bound = this.evaluate(lambda, this.w, this.capped, this.rc); }
+        if (depth === 0) this.noteRoot(bound);
         this.heuristicX();
         if (depth === 0) this.dive(lambda);
       }

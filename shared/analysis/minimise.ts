@@ -17,6 +17,8 @@ export interface MinimalCovers {
   exact: boolean;
   truncated: boolean;
   note?: string;
+  /** when not exact and the covering search ran: the terms (and, with the terms proven fewest, literals) every cover needs at least */
+  lowerBound?: { terms: number; literals?: number };
 }
 
 /**
@@ -62,7 +64,7 @@ export function minimiseOnes(n: number, fn: FunctionRows, opts: MinimiseOptions 
   }
   const sel = selectCovers(primes, care, { budget: opts.budget, work: opts.work ?? defaultProofWork(n), listWork: opts.listWork, maxCovers: opts.maxCovers });
   const covers = sel.covers.map((c) => order(c.map((i) => primes[i])));
-  return { covers: dedupeOrder(covers, n), exact: sel.exact, truncated: sel.truncated, note: sel.note };
+  return { covers: dedupeOrder(covers, n), exact: sel.exact, truncated: sel.truncated, note: sel.note, ...(sel.lowerBound ? { lowerBound: sel.lowerBound } : {}) };
 }
 
 /** Minimal product-of-sums: minimise the 0-rows; each cube becomes a sum of the complemented literals. */

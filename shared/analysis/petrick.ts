@@ -10,6 +10,13 @@ export interface CoverSelection {
   /** true when more minimal covers exist than were listed */
   truncated: boolean;
   note?: string;
+  /** work spent by the covering solver (entry visits), when it ran */
+  work?: number;
+  /**
+   * When not proven: what the search did prove about every cover — at least `terms` terms, and when the
+   * fewest terms were proven (`terms` is then the cover's count), at least `literals` literals.
+   */
+  lowerBound?: { terms: number; literals?: number };
 }
 
 export interface CoverOptions {
@@ -61,14 +68,24 @@ export function selectCovers(primes: Cube[], careRows: number[], opts: CoverOpti
   }
   const solved = solveCover(prob.clauses, (p) => lits[p], greedy, opts.work ?? DEFAULT_WORK);
   if (!solved.proven) {
-    return { covers: [sorted([...base, ...solved.cover])], exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
+    const cover = sorted([...base, ...solved.cover]);
+    const terms = base.length + solved.termBound;
+    const literals = solved.literalBound === undefined ? undefined : base.reduce((s, p) => s + lits[p], 0) + solved.literalBound;
+    const coverLits = cover.reduce((s, p) => s + lits[p], 0);
+    const proof = literals === undefined
+      ? `${cover.length} terms; every cover has at least ${terms}`
+      : `its ${cover.length} terms are proven fewest; ${coverLits} literals, every cover of ${cover.length} terms has at least ${literals}`;
+    return {
+      covers: [cover], exact: false, truncated: false, work: solved.steps, lowerBound: { terms, literals },
+      note: `the exact cover search passed its work budget; best cover found, not proven minimal (${proof})`,
+    };
   }
   const found = searchCovers(prob.clauses, lits, solved.cover, { work: 0, listWork: opts.listWork ?? 2_000_000, maxCovers, upperIsMinimal: true });
   const covers = found.covers.map((extra) => sorted([...base, ...extra]));
   if (!found.complete) {
     return { covers: covers.slice(0, 1), exact: false, truncated: false, note: 'the exact cover search passed its work budget; best cover found, not proven minimal' };
   }
-  return { covers, exact: true, truncated: found.truncated };
+  return { covers, exact: true, truncated: found.truncated, work: solved.steps };
 }
 
 function sorted(a: number[]): number[] {
