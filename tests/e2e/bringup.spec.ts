@@ -23,8 +23,18 @@ test('bring-up: printed sheet, one wrong lamp, the suspect highlighted, a build 
   await expect(page.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 15_000 });
 
   const panel = page.getByTestId('bringup-panel');
+  // The vectors (a fault simulation of the board, in a worker) wait until someone looks at the panel: it
+  // sits below the bench, analysis and build panels, out of view.
+  await expect(page.getByTestId('bench-panel')).toBeVisible();
+  const below = await panel.evaluate((el) => el.getBoundingClientRect().top - el.closest('[data-testid="side-panels"]')!.getBoundingClientRect().bottom);
+  expect(below, 'the bring-up panel starts out of view').toBeGreaterThan(300);
+  await page.waitForTimeout(1000);
+  await expect(panel.getByTestId('bringup-vectors')).toHaveCount(0);
+  await expect(panel).toHaveAttribute('aria-busy', 'false');
   await panel.scrollIntoViewIfNeeded();
   await expect(panel.getByTestId('bringup-summary')).toContainText('detect 46 of 46');
+  await expect(panel).toHaveAttribute('aria-busy', 'false');
+  await expect(panel.getByTestId('bringup-working')).toHaveCount(0);
   const rows = panel.getByTestId('bringup-vectors').locator('tbody tr');
   const count = await rows.count();
   expect(count).toBeGreaterThan(3);

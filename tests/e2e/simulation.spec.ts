@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Page } from '@playwright/test';
 import { debouncedDffBoard } from '../../shared/sim/live/fixtures/debounced-dff';
+import { AXIS_H, LABEL_W, ROW_H, WAVE_COLOURS } from '../../src/features/timing/draw-waveforms';
 import { expect, signUp, test } from './fixtures';
 
 // The live simulation end to end, in real browsers against the real server, database and websocket:
@@ -242,6 +243,40 @@ test('a board with a program store inside a module: the bench lists its own inpu
   const signals = await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-signal')));
   expect(signals.slice(0, 2)).toEqual(['DIN', 'CLK']);
   expect(signals).toEqual(expect.arrayContaining(['STEP0', 'STEP1', 'OUT']));
+  // Right after opening, before anything changed, each row shows its level now as a line from the start
+  // of the recording (it starts after power-on, at t > 0; the strip used to draw those rows empty until the
+  // first change): in every row, nearly every column of the plot holds the 0 or the 1 colour.
+  const drawnShare = () => page.getByTestId('timing-canvas').evaluate((c: HTMLCanvasElement, g) => {
+    const ctx = c.getContext('2d')!;
+    const k = c.width / c.clientWidth;
+    const rgb = (h: string) => [1, 3, 5].map((i) => parseInt(h.slice(i, i + 2), 16));
+    const bg = rgb(g.surface);
+    // a level's colour over the strip's background, at least half covering the pixel (lines are antialiased)
+    const colours = g.colours.map((h) => rgb(h).map((v, i) => v - bg[i]));
+    const isLevel = (p: ArrayLike<number>, i: number) => colours.some((c) => {
+      const d = [p[i] - bg[0], p[i + 1] - bg[1], p[i + 2] - bg[2]];
+      const a = (d[0] * c[0] + d[1] * c[1] + d[2] * c[2]) / (c[0] ** 2 + c[1] ** 2 + c[2] ** 2);
+      return a > 0.5 && d.every((v, j) => Math.abs(v - a * c[j]) < 12);
+    });
+    const shares: number[] = [];
+    for (let row = 0; (g.axis + (row + 1) * g.row) * k <= c.height; row++) {
+      const x0 = Math.ceil((g.label + 2) * k);
+      const img = ctx.getImageData(x0, Math.floor((g.axis + row * g.row) * k), c.width - x0 - 2, Math.floor(g.row * k)).data;
+      const w = c.width - x0 - 2;
+      let lit = 0;
+      for (let x = 0; x < w; x++) {
+        let hit = false;
+        for (let y = 0; y < img.length / 4 / w && !hit; y++) {
+          const i = 4 * (y * w + x);
+          hit = isLevel(img, i);
+        }
+        if (hit) lit++;
+      }
+      shares.push(lit / w);
+    }
+    return shares;
+  }, { colours: [WAVE_COLOURS.high, WAVE_COLOURS.low], surface: WAVE_COLOURS.surface, axis: AXIS_H, row: ROW_H, label: LABEL_W });
+  await expect.poll(async () => { const s = await drawnShare(); return s.length >= 3 && s.every((v) => v > 0.95); }).toBe(true);
   await expect(page.getByTestId('timing-strip').getByRole('button', { name: 'Signals (13)' })).toBeVisible();
   await page.screenshot({ path: 'test-results/simulation-09-program-store.png' });
   // any net can still be added with the picker: a program bit inside the store
