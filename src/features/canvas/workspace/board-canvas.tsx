@@ -40,6 +40,8 @@ const SNAP: [number, number] = [GRID, GRID];
 const MINIMAP_AUTO_LIMIT = 400;
 
 const NO_WIRES: WireEdge[] = [];
+const NO_PARTS: PartNode[] = [];
+const hasPanZoom = (s: ReactFlowState) => s.panZoom !== null;
 const FIT_PADDING = 0.15;
 const FIT_MAX_ZOOM = 1.25;
 const paneWidth = (s: ReactFlowState) => s.width;
@@ -96,7 +98,6 @@ export function BoardCanvas(props: BoardCanvasProps) {
   // Plain boxes only on a large sheet zoomed out, or on any sheet zoomed out past reading (zoom-detail.ts).
   const far = drawsFar(useStore(zoomBand), flow.nodes.length);
   const pointer = useRef<{ x: number; y: number } | null>(null);
-  const [ready, setReady] = useState(false);
   // The minimap redraws on every pan and zoom; on big boards it starts hidden (one click shows it).
   const [mapChoice, setMapChoice] = useState<boolean | null>(null);
   const showMap = mapChoice ?? session.board.parts.length <= MINIMAP_AUTO_LIMIT;
@@ -117,13 +118,20 @@ export function BoardCanvas(props: BoardCanvasProps) {
   const bounds = useMemo(() => getNodesBounds(flow.nodes), [flow.nodes]);
   const minZoom = leastZoom(bounds, paneW, paneH, FIT_PADDING);
   // Fit the board into view once, when it first arrives: before the browser paints, so the parts are
-  // drawn once, at the fitted zoom (plain boxes on a large board), not first in detail at zoom 1.
+  // drawn once, at the fitted zoom (plain boxes on a large board), not first in detail at zoom 1. React
+  // Flow is given the parts only once that is done: the document usually arrives before the canvas mounts
+  // (the socket opens early), and React Flow's pan and zoom exist only after its first render, so the
+  // parts would otherwise be mounted as full symbols at zoom 1 first (most of an open's rendering), and
+  // adopted by its store twice. `panZoom` is there from React Flow's own effect, before onInit's timer.
+  const zoomReady = useStore(hasPanZoom);
   const fitted = useRef(false);
+  const [fitDone, setFitDone] = useState(false);
   useLayoutEffect(() => {
-    if (fitted.current || !ready || !session.synced || flow.nodes.length === 0 || !paneW || !paneH) return;
+    if (fitted.current || !zoomReady || !session.synced || flow.nodes.length === 0 || !paneW || !paneH) return;
     fitted.current = true;
     void rf.setViewport(getViewportForBounds(bounds, paneW, paneH, minZoom, FIT_MAX_ZOOM, FIT_PADDING));
-  }, [ready, session.synced, flow.nodes.length, rf, bounds, paneW, paneH, minZoom]);
+    setFitDone(true);
+  }, [zoomReady, session.synced, flow.nodes.length, rf, bounds, paneW, paneH, minZoom]);
   // While the view moves the parts and wires are one composited layer (canvas.css .gf-moving).
   const canvasRef = useRef<HTMLDivElement>(null);
   const onMoveStart = useCallback(() => canvasRef.current?.classList.add('gf-moving'), []);
@@ -223,7 +231,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
   }, [setNodes, setEdges]);
   useFarBoxSelect(far, farNodes, onFarBoxSelect);
   const onFarOpenModule = useCallback((moduleId: string) => live.current.onOpenModule?.(moduleId), []);
-  const rfNodes = useMemo(() => (far ? flow.nodes.map(hiddenNode) : flow.nodes), [far, flow.nodes]);
+  const rfNodes = useMemo(() => (!fitDone ? NO_PARTS : far ? flow.nodes.map(hiddenNode) : flow.nodes), [fitDone, far, flow.nodes]);
   // zoomed out, the wires of a net that does not settle are also SVG paths: the bench's pulse style targets them by id
   const pulseEdges = useMemo(() => (far ? oscillatingWires(flow.nodes, flow.edges) : NO_WIRES), [far, flow.nodes, flow.edges]);
 
@@ -256,7 +264,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
         onPointerMove={onPointerMove} onPointerLeave={onPointerLeave} onDragOver={onDragOver} onDrop={onDrop}>
         <ReactFlow<PartNode, WireEdge>
           nodes={rfNodes}
-          edges={far ? NO_WIRES : flow.edges}
+          edges={far || !fitDone ? NO_WIRES : flow.edges}
           nodeTypes={nodeTypes}
           edgeTypes={edgeTypes}
           onNodesChange={flow.onNodesChange}
@@ -266,7 +274,6 @@ export function BoardCanvas(props: BoardCanvasProps) {
           onNodeDragStop={onNodeDragStop}
           onSelectionChange={onSelectionChange}
           onPaneClick={onPaneClick}
-          onInit={() => setReady(true)}
           onMoveStart={onMoveStart}
           onMoveEnd={onMoveEnd}
           connectionMode={ConnectionMode.Loose}
@@ -293,7 +300,7 @@ export function BoardCanvas(props: BoardCanvasProps) {
               Every fifth dot keeps the grid readable. */}
           <CanvasGrid far={far} />
           {/* zoomed out the parts and wires are painted on one canvas, not a React Flow node and edge each (flow/far-canvas.tsx) */}
-          {far && <FarCanvas nodes={flow.nodes} edges={flow.edges} draggable={!readOnly} onPick={onFarPick} onDrag={onFarDrag} onOpenModule={onFarOpenModule} />}
+          {far && fitDone && <FarCanvas nodes={flow.nodes} edges={flow.edges} draggable={!readOnly} onPick={onFarPick} onDrag={onFarDrag} onOpenModule={onFarOpenModule} />}
           {pulseEdges.length > 0 && <FarWires nodes={flow.nodes} edges={pulseEdges} />}
           <Controls showInteractive={false} position="bottom-left">
             <ControlButton onClick={() => setMapChoice(!showMap)} title={showMap ? 'Hide the minimap' : 'Show the minimap'}
