@@ -387,8 +387,9 @@ class BranchAndBound {
     let c = 0;
     for (const p of set) c += this.w[p];
     if (c < this.best) {
-      // a new incumbent of the literal stage: improved by swaps before it is kept (new incumbents are few)
-      const better = this.swapSearch(set);
+      // a new incumbent of the literal stage, or of a term stage too large for the LP (no LP dive for a
+      // first cover): improved by swaps before it is kept (new incumbents are few)
+      const better = this.capped || this.R * this.C > LP_ENTRIES ? this.swapSearch(set) : [...set];
       c = 0;
       for (const p of better) c += this.w[p];
       this.best = c;
