@@ -1,5 +1,5 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useEffect, type ReactNode } from 'react';
+import { Fragment, useEffect, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
@@ -119,7 +119,16 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
         // the panels and the timing strip (500 waveforms on a large board) are drawn once the browser is
         // idle after the canvas; their places (the side column, the dock) are there from the start
-        panels={<WhenIdle><BenchPanel sim={sim} session={session} /><AnalysisPanel analysis={analysis} /><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /><BringupPanel bringup={bringup} me={me?.id ?? null} />{history.panel}<LessonPanel lesson={lesson} session={session} />{isOwner(board.role) && <ClassPanel boardId={board.id} viewers={viewers} />}<div className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div></WhenIdle>}
+        panels={<IdleSteps>{[
+          <BenchPanel key="bench" sim={sim} session={session} />,
+          <AnalysisPanel key="analysis" analysis={analysis} />,
+          <BuildPanel key="build" build={build} boardId={board.id} onWarmUp={sim.warmUp} />,
+          <BringupPanel key="bringup" bringup={bringup} me={me?.id ?? null} />,
+          <Fragment key="history">{history.panel}</Fragment>,
+          <LessonPanel key="lesson" lesson={lesson} session={session} />,
+          isOwner(board.role) ? <ClassPanel key="class" boardId={board.id} viewers={viewers} /> : null,
+          <div key="members" className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div>,
+        ]}</IdleSteps>}
         bottom={<WhenIdle><TimingStrip {...sim.timing} /></WhenIdle>} />
     </>
   );
@@ -128,6 +137,24 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
 /** Its children, from the browser's first idle moment after it mounts (nothing before). */
 function WhenIdle({ children }: { children: ReactNode }) {
   return useIdle() ? <>{children}</> : null;
+}
+
+/**
+ * The panels one by one, each at an idle moment after the one before (the first after the canvas has
+ * drawn), so that mounting them is a few short tasks rather than one long one a drag could meet; the
+ * later ones wait at most a few tenths of a second for idle.
+ */
+function IdleSteps({ children }: { children: ReactNode[] }) {
+  const first = useIdle();
+  const [shown, setShown] = useState(1);
+  const more = first && shown < children.length;
+  useEffect(() => {
+    if (!more) return;
+    if (typeof requestIdleCallback !== 'function') { setShown(children.length); return; }
+    const handle = requestIdleCallback(() => setShown((n) => n + 1), { timeout: 300 });
+    return () => cancelIdleCallback(handle);
+  }, [more, shown, children.length]);
+  return first ? <>{children.slice(0, shown)}</> : null;
 }
 
 function BadId() {

@@ -8,6 +8,7 @@ import { toCsv, toTsv } from './table-export';
 import { TruthTableView } from './truth-table-view';
 import type { Analysis } from './use-analysis';
 import { plural } from '../../lib/plural';
+import { useSeen } from '../../lib/use-seen';
 
 function download(name: string, text: string, type: string) {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -25,6 +26,8 @@ function fileStem(title: string): string {
 /** The analysis panel of the board page: truth table, minimal forms, function names, function map. */
 export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
   const { result, status, progress, error, choices } = analysis;
+  // the analysis runs once the panel is on screen
+  const seenRef = useSeen<HTMLElement>(analysis.want);
   const [notation, setNotation] = useState<Notation>('overbar');
   const [copied, setCopied] = useState(false);
   const copyTable = () => {
@@ -33,7 +36,7 @@ export function AnalysisPanel({ analysis }: { analysis: Analysis }) {
   };
   const hasMarks = Object.values(choices.dontCares).some((r) => r.length);
   return (
-    <section aria-label="Analysis" data-testid="analysis-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
+    <section ref={seenRef} aria-label="Analysis" data-testid="analysis-panel" className="space-y-3 border-t border-mat-700 p-3 text-sm">
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Analysis</h2>
         <span className="text-xs text-slate-500" data-testid="analysis-status" data-kernel={status === 'done' ? result?.kernel : undefined}>

@@ -37,8 +37,10 @@ export function logicKey(board: BoardFile, chosen?: readonly string[]): string {
 /**
  * Live analysis of a board in a Web Worker: recomputes (debounced) when the board's logic or the
  * choices change; reports progress; can be cancelled. `highlight` is the fan-in cone of the focused output.
+ * Nothing runs (no worker, no table) until the panel has been on screen (`want`).
  */
 export function useAnalysis(board: BoardFile) {
+  const [seen, setSeen] = useState(false);
   const worker = useRef<Worker | null>(null);
   const latest = useRef(0);
   const [choices, setChoices] = useState<AnalysisChoices>({ select: [], dontCares: {} });
@@ -48,11 +50,12 @@ export function useAnalysis(board: BoardFile) {
   const [error, setError] = useState<string | null>(null);
   const [focus, setFocus] = useState<string | null>(null);
   const [runCount, setRunCount] = useState(0);
-  const key = useMemo(() => logicKey(board, choices.inputs), [board, choices.inputs]);
+  const key = useMemo(() => (seen ? logicKey(board, choices.inputs) : ''), [seen, board, choices.inputs]);
   const boardRef = useRef(board);
   boardRef.current = board;
 
   useEffect(() => {
+    if (!seen) return;
     const w = new Worker(new URL('./analysis-worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
     w.onmessage = (e: MessageEvent<FromWorker>) => {
@@ -70,9 +73,10 @@ export function useAnalysis(board: BoardFile) {
     };
     w.onerror = (e) => { setStatus('error'); setError(e.message || 'the analysis worker failed'); };
     return () => { w.terminate(); worker.current = null; };
-  }, []);
+  }, [seen]);
 
   useEffect(() => {
+    if (key === '') return;
     const t = setTimeout(() => {
       const id = ++latest.current;
       setStatus('running');
@@ -104,9 +108,12 @@ export function useAnalysis(board: BoardFile) {
     return new Set(result.cones[focus]);
   }, [focus, result]);
 
+  const want = useCallback(() => setSeen(true), []);
   return {
     board, choices, status, progress, result, error, focus, highlight,
     setFocus, cancel, rerun, setInputs, setOutputs, setSelect, toggleDontCare, clearDontCares,
+    /** the panel calls this once it is on screen: the analysis runs from then on */
+    want,
   };
 }
 

@@ -1,4 +1,5 @@
 import type { BoardFile } from '../../../shared/board';
+import { circuitKey } from '../../lib/circuit-key';
 import type { DiagnoseResult, Observation, TestVectorsResult } from '../../../shared/bringup';
 
 /**
@@ -32,11 +33,5 @@ export type FromWorker =
   /** an unexpected failure (a bug, not a board problem) */
   | { type: 'error'; id: number; message: string };
 
-/**
- * What decides a board's test vectors and diagnosis: its family, its parts and wires without their
- * places on the sheet, and its modules (an edit inside a module changes the circuit too).
- */
-export function bringupKey(board: BoardFile): string {
-  const circuit = (c: Pick<BoardFile, 'parts' | 'wires'>) => [c.parts.map(({ x: _x, y: _y, ...p }) => p), c.wires.map((w) => [w.from, w.to])];
-  return JSON.stringify([board.family, circuit(board), (board.modules ?? []).map((m) => [m.id, circuit(m)])]);
-}
+/** What decides a board's test vectors and diagnosis (positions do not; module contents do). */
+export const bringupKey = circuitKey;

@@ -4,6 +4,7 @@ import { Select } from '../../components/ui/select';
 import { FAMILY_OPTIONS } from '../../lib/families';
 import type { FamilyId } from '../../../shared/board';
 import { familyOf } from '../../../shared/sim';
+import { useSeen } from '../../lib/use-seen';
 import { SafetyCaution } from '../boards';
 import { ConvertAction } from './convert-action';
 import { LevelView } from './level-view';
@@ -15,8 +16,10 @@ export function BuildPanel({ build, boardId, onWarmUp }: { build: BuildSheetStat
   const { sheet, error, family } = build;
   // the bench simulates the board's own family: the replay is offered when that is the family shown
   const warmUnits = sheet?.warmUpS != null && family === build.board.family ? Math.round(sheet.warmUpS * 1e9 / familyOf(family).timeUnitNs) : null;
+  // the sheet is worked out once the panel is on screen
+  const ref = useSeen<HTMLElement>(build.want);
   return (
-    <section aria-label="Build sheet" data-testid="build-panel" className="space-y-2 border-t border-mat-700 p-3 text-sm">
+    <section ref={ref} aria-label="Build sheet" data-testid="build-panel" className="space-y-2 border-t border-mat-700 p-3 text-sm">
       <header className="flex items-center gap-2">
         <h2 className="font-semibold text-amber-300">Build sheet</h2>
         <Link to={`/boards/${boardId}/build-sheet?family=${family}${build.set ? `&set=${encodeURIComponent(build.set)}` : ''}`} className="ml-auto text-xs text-amber-300 hover:underline" data-testid="build-print-link">Printable page</Link>
