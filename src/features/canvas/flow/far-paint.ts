@@ -5,14 +5,14 @@
  * style, lay out and paint on every frame. Geometry and styles come from far-scene.ts.
  */
 import type { PartNode, WireEdge } from './types';
-import { BADGE_FILL, boxStyle, farWireStroke, overlaps, type Rect } from './far-scene';
+import { BADGE_FILL, boxStyle, farWireStroke, overlaps, straightRoute, type Rect } from './far-scene';
 import { pinEnd, wirePath } from './wire-path';
 import type { farTitle } from './zoom-detail';
 
 export type Title = ReturnType<typeof farTitle>;
 
 /** A wire's path, kept while its two ends stay where they are. */
-interface CachedWire { key: string; path: Path2D; box: Rect }
+interface CachedWire { key: string; path: Path2D | null; route: number[] | null; box: Rect }
 export type WireCache = Map<string, CachedWire>;
 
 /** What one paint drew (the canvas reports it on its element: the bench and the browser tests read it). */
@@ -26,11 +26,13 @@ function wireGeometry(e: WireEdge, from: PartNode, to: PartNode, cache: WireCach
   const key = `${s.x},${s.y},${s.position},${t.x},${t.y},${t.position}${loop ? `,${loop.x},${loop.y},${loop.width},${loop.height}` : ''}`;
   const old = cache.get(e.id);
   if (old && old.key === key) return old;
-  const d = wirePath({ sourceX: s.x, sourceY: s.y, sourcePosition: s.position, targetX: t.x, targetY: t.y, targetPosition: t.position }, loop);
+  const route = loop ? null : straightRoute(s.x, s.y, s.position, t.x, t.y, t.position);
+  const path = route ? null
+    : new Path2D(wirePath({ sourceX: s.x, sourceY: s.y, sourcePosition: s.position, targetX: t.x, targetY: t.y, targetPosition: t.position }, loop));
   // right-angle routes stay within their ends plus the step offset; a self loop goes round its part
   const pad = loop ? 24 + Math.max(loop.width, loop.height) : 24;
   const box = { x: Math.min(s.x, t.x) - pad, y: Math.min(s.y, t.y) - pad, width: Math.abs(s.x - t.x) + 2 * pad, height: Math.abs(s.y - t.y) + 2 * pad };
-  const made = { key, path: new Path2D(d), box };
+  const made = { key, path, route, box };
   cache.set(e.id, made);
   return made;
 }
@@ -67,7 +69,11 @@ export function paintFar(ctx: CanvasRenderingContext2D, nodes: readonly PartNode
     const key = `${st.color}|${st.width}|${st.dash.join(',')}`;
     let group = wires.get(key);
     if (!group) { group = { path: new Path2D(), n: 0, ...st }; wires.set(key, group); }
-    group.path.addPath(g.path);
+    if (g.route) {
+      const r = g.route;
+      group.path.moveTo(r[0], r[1]);
+      for (let k = 2; k < r.length; k += 2) group.path.lineTo(r[k], r[k + 1]);
+    } else if (g.path) group.path.addPath(g.path);
     group.n++;
     wireCount++;
   }

@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
+import { getSmoothStepPath, Position } from '@xyflow/react';
 import type { Part } from '../../../../shared/board';
 import { MARK_COLORS } from '../../../../shared/render';
 import { SIGNAL } from '../lib/colors';
 import type { PartNode } from './types';
 import {
-  boxStyle, coversView, farRegion, farWireStroke, hitPart, packBoxes, sceneBounds, selectionSummary, viewRect, WHOLE_BOARD_MAX_PX,
+  boxStyle, coversView, straightRoute, farRegion, farWireStroke, hitPart, packBoxes, sceneBounds, selectionSummary, viewRect, WHOLE_BOARD_MAX_PX,
 } from './far-scene';
 
 const node = (id: string, x: number, y: number, w: number, h: number, part: Partial<Part> = {}, extra: Partial<PartNode> = {}): PartNode =>
@@ -131,5 +132,31 @@ describe('selectionSummary', () => {
   it('names the first twelve and counts the rest', () => {
     const nodes = Array.from({ length: 15 }, (_, i) => node(`p${i}`, 0, 0, 1, 1, { label: `P${i}` }, { selected: true }));
     expect(selectionSummary(nodes)).toBe('15 parts selected: P0, P1, P2, P3, P4, P5, P6, P7, P8, P9, P10, P11 and 3 more');
+  });
+});
+
+describe('straightRoute', () => {
+  /** The x, y pairs written in an SVG path (React Flow writes corners as quadratic curves around each corner point). */
+  const pairs = (d: string) => [...d.matchAll(/(-?[\d.]+)[ ,](-?[\d.]+)/g)].map((m) => `${Number(m[1])},${Number(m[2])}`);
+  const smooth = (sx: number, sy: number, tx: number, ty: number) =>
+    getSmoothStepPath({ sourceX: sx, sourceY: sy, sourcePosition: Position.Right, targetX: tx, targetY: ty, targetPosition: Position.Left, borderRadius: 4, offset: 12 })[0];
+
+  it('turns where React Flow\'s smooth step turns: halfway across, at the source and target heights', () => {
+    for (const [sx, sy, tx, ty] of [[100, 40, 300, 160], [0, 0, 140, -60], [80, 30, 108, 31]]) {
+      const route = straightRoute(sx, sy, 'right', tx, ty, 'left')!;
+      expect(route).toEqual([sx, sy, (sx + tx) / 2, sy, (sx + tx) / 2, ty, tx, ty]);
+      const drawn = pairs(smooth(sx, sy, tx, ty));
+      // both ends, and both corners (the control point of each rounded corner)
+      for (let k = 0; k < route.length; k += 2) expect(drawn).toContain(`${route[k]},${route[k + 1]}`);
+    }
+  });
+  it('is one straight line when both ends are level', () => {
+    expect(straightRoute(0, 50, 'right', 200, 50, 'left')).toEqual([0, 50, 200, 50]);
+  });
+  it('leaves every other wire to the full path: backwards, too short for the two steps, other sides', () => {
+    expect(straightRoute(300, 0, 'right', 100, 50, 'left')).toBeNull();
+    expect(straightRoute(100, 0, 'right', 124, 50, 'left')).toBeNull();
+    expect(straightRoute(0, 0, 'bottom', 200, 50, 'left')).toBeNull();
+    expect(straightRoute(0, 0, 'right', 200, 50, 'top')).toBeNull();
   });
 });

@@ -144,3 +144,20 @@ export function selectionSummary(nodes: readonly PartNode[], nameOf?: (n: PartNo
   const more = count > names.length ? ` and ${count - names.length} more` : '';
   return `${count} ${count === 1 ? 'part' : 'parts'} selected: ${names.join(', ')}${more}`;
 }
+
+/** The step a wire leaves a pin by before it turns (wire-path.ts: getSmoothStepPath's offset). */
+export const WIRE_STEP = 12;
+
+/**
+ * The corners of a wire from an output on the right of a part to an input on the left of a part further
+ * right — nearly every wire — as a polyline (x, y pairs): along, across at the middle, along; the route
+ * React Flow's smooth-step path takes there (its 4-unit rounded corners are under 2 px when zoomed out).
+ * Null for any other wire, whose path the far drawing takes from wire-path.ts instead. Skips building and
+ * parsing an SVG path per wire on the drawing's first paint.
+ */
+export function straightRoute(sx: number, sy: number, sourceSide: string, tx: number, ty: number, targetSide: string): number[] | null {
+  if (sourceSide !== 'right' || targetSide !== 'left' || tx - sx <= 2 * WIRE_STEP) return null;
+  if (sy === ty) return [sx, sy, tx, ty];
+  const mx = (sx + tx) / 2;
+  return [sx, sy, mx, sy, mx, ty, tx, ty];
+}
