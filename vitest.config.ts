@@ -14,6 +14,10 @@ export default defineConfig({
     testTimeout: 30000,
     hookTimeout: 30000,
     pool: 'forks',
+    // Two test files at a time, even on 2 cores (Vitest's default there is one): most files spend their
+    // time waiting on sockets, child processes, PostgreSQL and timers, not on the CPU, so two overlap
+    // well. Each file still runs in its own fork; `vitest run --maxWorkers=1` runs them one by one.
+    maxWorkers: 2,
     projects: [
       // every test on SQLite; tests/multi-server starts its own PostgreSQL and Redis (or skips, saying why)
       { extends: true, test: { name: 'main', include: every } },
