@@ -2,9 +2,10 @@
  * Playwright fixtures shared by Gatefold's browser tests.
  *
  * Each TEST gets its own running Gatefold: the built client (`dist/`, made by `vite build`, which
- * `npm test` runs before Playwright) served by `node_modules/.bin/tsx server/index.ts` on a free
- * port, with its own SQLite file and upload folder in a fresh temp directory, so specs never see
- * each other's accounts (the first account to sign up is the site admin) and can run side by side.
+ * `npm test` runs before Playwright; or the folder DIST_DIR names) served by
+ * `node_modules/.bin/tsx server/index.ts` on a free port, with its own SQLite file and upload folder in
+ * a fresh temp directory, so specs never see each other's accounts (the first account to sign up is
+ * the site admin) and can run side by side.
  *
  * Usage in a spec:
  *   import { test, expect, signUp, signIn } from './fixtures';
@@ -24,7 +25,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -94,8 +95,10 @@ export const test = base.extend<Options & { gatefold: GatefoldServer }>({
 
   // The fixture callback is named `provide`, not `use`: the React hooks lint rule reserves `use`.
   gatefold: async ({ seedDemo, serverEnv }, provide, testInfo) => {
-    if (!existsSync(join(ROOT, 'dist', 'index.html'))) {
-      throw new Error('dist/index.html is missing: build the client first (node_modules/.bin/vite build; npm test does it)');
+    // the server serves DIST_DIR (relative to the checkout) when it is set, else dist/
+    const index = join(resolve(ROOT, process.env.DIST_DIR ?? 'dist'), 'index.html');
+    if (!existsSync(index)) {
+      throw new Error(`${index} is missing: build the client first (node_modules/.bin/vite build; npm test does it)`);
     }
     const dataDir = mkdtempSync(join(tmpdir(), 'gatefold-e2e-'));
     const port = await freePort();
