@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { Suspense } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { Card, CardBody, CardHeader } from '../../components/ui/card';
 import { ErrorState } from '../../components/ui/error-state';
@@ -51,6 +52,8 @@ export function BoardMembersPage() {
         ) : (
           <p className="text-sm text-slate-400">Only the board's owner adds members and changes roles.</p>
         )}
+        {/* the table's code is a chunk of its own */}
+        <Suspense fallback={<LoadingState />}>
         <MembersTable
           boardId={b.id}
           members={members.data!.members}
@@ -58,6 +61,7 @@ export function BoardMembersPage() {
           myUserId={me.data?.id ?? 0}
           onLeft={() => navigate('/boards', { replace: true })}
         />
+        </Suspense>
         {owner && (
           <section aria-labelledby="pending-heading" className="flex flex-col gap-3">
             <h2 id="pending-heading" className="text-sm font-semibold uppercase tracking-wide text-slate-400">

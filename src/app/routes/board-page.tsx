@@ -1,9 +1,9 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { Fragment, useEffect, useState, type ReactNode } from 'react';
+import { Fragment, Suspense, useEffect, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
-import { LoadingState } from '../../components/ui/spinner';
+import { LoadingState, Spinner } from '../../components/ui/spinner';
 import { isApiError } from '../../lib/api-client';
 import { meQueryOptions } from '../../features/auth';
 import { boardKeys, boardQueryOptions, BoardTitleEditor, DeleteBoardButton, SafetyCaution } from '../../features/boards';
@@ -13,6 +13,8 @@ import { PageColumn } from '../layout';
 import { useIdParam } from '../../lib/use-id-param';
 import { useIdle } from '../../lib/use-idle';
 import { BoardWorkspace, useBoardSession, type BoardSession } from '../../features/canvas';
+// The side panels and the timing strip are lazy (chunks of their own, loaded when they mount once the page
+// is idle after the canvas's first draw): each waits for its code behind its own Suspense boundary below.
 import { BenchPanel, PulseStyle, useLiveSim } from '../../features/bench';
 import { TimingStrip } from '../../features/timing';
 import { AnalysisPanel, useAnalysis } from '../../features/analysis';
@@ -119,18 +121,31 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
         tryOutValues={live ? sim.tryOut.values : undefined} highlight={live ? highlight : undefined} marks={history.marks}
         // the panels and the timing strip (500 waveforms on a large board) are drawn once the browser is
         // idle after the canvas; their places (the side column, the dock) are there from the start
-        panels={<IdleSteps>{[
-          <BenchPanel key="bench" sim={sim} session={session} />,
-          <AnalysisPanel key="analysis" analysis={analysis} />,
-          <BuildPanel key="build" build={build} boardId={board.id} onWarmUp={sim.warmUp} />,
-          <BringupPanel key="bringup" bringup={bringup} me={me?.id ?? null} />,
+        panels={<IdleSteps preload={preloadPanels}>{[
+          <PanelChunk key="bench"><BenchPanel sim={sim} session={session} /></PanelChunk>,
+          <PanelChunk key="analysis"><AnalysisPanel analysis={analysis} /></PanelChunk>,
+          <PanelChunk key="build"><BuildPanel build={build} boardId={board.id} onWarmUp={sim.warmUp} /></PanelChunk>,
+          <PanelChunk key="bringup"><BringupPanel bringup={bringup} me={me?.id ?? null} /></PanelChunk>,
           <Fragment key="history">{history.panel}</Fragment>,
-          <LessonPanel key="lesson" lesson={lesson} session={session} />,
-          isOwner(board.role) ? <ClassPanel key="class" boardId={board.id} viewers={viewers} /> : null,
-          <div key="members" className="p-3"><MemberListPanel boardId={board.id} currentUserId={me?.id} /></div>,
+          <PanelChunk key="lesson"><LessonPanel lesson={lesson} session={session} /></PanelChunk>,
+          isOwner(board.role) ? <PanelChunk key="class"><ClassPanel boardId={board.id} viewers={viewers} /></PanelChunk> : null,
+          <div key="members" className="p-3"><PanelChunk><MemberListPanel boardId={board.id} currentUserId={me?.id} /></PanelChunk></div>,
         ]}</IdleSteps>}
-        bottom={<WhenIdle><TimingStrip {...sim.timing} /></WhenIdle>} />
+        bottom={<WhenIdle><PanelChunk><TimingStrip {...sim.timing} /></PanelChunk></WhenIdle>} />
     </>
+  );
+}
+
+/** The code of the side panels, fetched together once the page is idle after the canvas's first draw. */
+const preloadPanels = () =>
+  Promise.all([BenchPanel, AnalysisPanel, BuildPanel, BringupPanel, LessonPanel, ClassPanel, MemberListPanel].map((panel) => panel.preload()));
+
+/** One lazily loaded panel: a small spinner in its place while its code loads, the rest of the page unaffected. */
+function PanelChunk({ children }: { children: ReactNode }) {
+  return (
+    <Suspense fallback={<div className="flex justify-center p-3 text-amber-glow"><Spinner size="sm" label="Loading panel" /></div>}>
+      {children}
+    </Suspense>
   );
 }
 
@@ -141,11 +156,23 @@ function WhenIdle({ children }: { children: ReactNode }) {
 
 /**
  * The panels one by one, each at an idle moment after the one before (the first after the canvas has
- * drawn), so that mounting them is a few short tasks rather than one long one a drag could meet; the
- * later ones wait at most a few tenths of a second for idle.
+ * drawn and the panels' code has loaded, `preload`), so that mounting them is a few short tasks rather
+ * than one long one a drag could meet; the later ones wait at most a few tenths of a second for idle.
+ * With their code loaded first, the panels mount in order at their full size (a panel further down is
+ * not briefly in view, and so "seen", while the ones above it still wait for their code).
  */
-function IdleSteps({ children }: { children: ReactNode[] }) {
-  const first = useIdle();
+function IdleSteps({ children, preload }: { children: ReactNode[]; preload: () => Promise<unknown> }) {
+  const idle = useIdle();
+  const [loaded, setLoaded] = useState(false);
+  useEffect(() => {
+    if (!idle) return;
+    let live = true;
+    // a chunk that failed to load: the panels mount anyway and ask for their code again
+    const done = () => { if (live) setLoaded(true); };
+    preload().then(done, done);
+    return () => { live = false; };
+  }, [idle, preload]);
+  const first = idle && loaded;
   const [shown, setShown] = useState(1);
   const more = first && shown < children.length;
   useEffect(() => {

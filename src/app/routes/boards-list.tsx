@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { Suspense } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Card, CardBody, CardHeader } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
@@ -39,7 +40,10 @@ export function BoardsListPage() {
               parts from the parts tray.
             </EmptyState>
           ) : (
-            <BoardsTable boards={boards.data} />
+            // the table's code is a chunk of its own
+            <Suspense fallback={<LoadingState />}>
+              <BoardsTable boards={boards.data} />
+            </Suspense>
           )}
         </section>
       </div>

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useState } from 'react';
+import { Suspense, useState } from 'react';
 import { Navigate, useParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
 import { ErrorState } from '../../components/ui/error-state';
@@ -69,7 +69,9 @@ function GuestBoard({ token, boardId, title, name }: { token: string; boardId: n
       <PulseStyle wireIds={sim.pulsingWires} lampIds={sim.oscillatingOutputs} />
       <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values}
         highlight={lesson.highlight}
-        panels={<><BenchPanel sim={sim} session={session} /><LessonPanel lesson={lesson} session={session} /></>} bottom={<TimingStrip {...sim.timing} />} />
+        // the panels and the timing strip are chunks of their own: the canvas does not wait for them
+        panels={<Suspense fallback={null}><BenchPanel sim={sim} session={session} /><LessonPanel lesson={lesson} session={session} /></Suspense>}
+        bottom={<Suspense fallback={null}><TimingStrip {...sim.timing} /></Suspense>} />
     </div>
   );
 }

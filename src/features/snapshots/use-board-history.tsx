@@ -3,7 +3,7 @@
  * the session the canvas should show (the live one, or a read-only one holding the snapshot or the
  * compare), the compare marks, the restore action and everyone's restore notices.
  */
-import { useCallback, type ReactNode } from 'react';
+import { lazy, Suspense, useCallback, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type * as Y from 'yjs';
 import type { BoardRole } from '../../../shared/api';
@@ -11,10 +11,13 @@ import type { BoardFile } from '../../../shared/board';
 import { isOwner } from '../../lib/roles';
 import { notifyError } from '../../lib/notify';
 import { snapshotKeys, useRestoreSnapshot } from './api';
-import { HistoryPanel } from './history-panel';
 import { SnapshotBanner } from './snapshot-banner';
 import { useRestoreNotices } from './use-restore-notices';
 import { useSnapshotView, type SnapshotMarks } from './use-snapshot-view';
+
+// The history panel (its table) is a chunk of its own, loaded when the panel mounts: the board's first
+// draw does not wait for its code.
+const HistoryPanel = lazy(() => import('./history-panel').then((m) => ({ default: m.HistoryPanel })));
 
 interface SessionLike {
   doc: Y.Doc;
@@ -53,6 +56,10 @@ export function useBoardHistory<S extends SessionLike>(boardId: number, role: Bo
     viewing: view.board !== null,
     marks: view.mode === 'compare' ? view.marks : undefined,
     banner: <SnapshotBanner view={view} canRestore={isOwner(role)} onRestore={onRestore} />,
-    panel: <HistoryPanel boardId={boardId} role={role} view={view} onRestore={onRestore} />,
+    panel: (
+      <Suspense fallback={null}>
+        <HistoryPanel boardId={boardId} role={role} view={view} onRestore={onRestore} />
+      </Suspense>
+    ),
   };
 }
