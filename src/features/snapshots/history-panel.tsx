@@ -12,11 +12,8 @@ import { canEdit, isOwner } from '../../lib/roles';
 import { snapshotsQueryOptions, useCopyBoard, useDeleteSnapshot, useRenameSnapshot, useTakeSnapshot } from './api';
 import { HistoryTable, type HistoryActions } from './history-table';
 import type { SnapshotView } from './use-snapshot-view';
+import { isTakeSnapshotKey } from './take-snapshot-key';
 
-/** Ctrl+Alt+S (Cmd+Alt+S): the canvas shortcuts never use Alt, so this cannot clash with them. */
-export function isTakeSnapshotKey(e: { key: string; code?: string; ctrlKey: boolean; metaKey: boolean; altKey: boolean; shiftKey: boolean }): boolean {
-  return (e.ctrlKey || e.metaKey) && e.altKey && !e.shiftKey && (e.code === 'KeyS' || e.key.toLowerCase() === 's');
-}
 
 export interface HistoryPanelProps {
   boardId: number;
