@@ -14,14 +14,17 @@ export type LazyNamed<C extends ComponentType<any>> = ComponentType<ComponentPro
 export function lazyNamed<M extends Record<K, ComponentType<any>>, K extends keyof M>(load: () => Promise<M>, name: K): LazyNamed<M[K]> {
   let loaded: M[K] | undefined;
   let pending: Promise<M> | undefined;
+  const makeLazy = () => lazy(() => preload().then((m) => ({ default: m[name] })));
+  // React.lazy keeps a failed load for good: after a failure (offline) the next instance gets a new one,
+  // which asks for the code again (see ChunkBoundary, which remounts its children to retry)
+  let Lazy = makeLazy();
   const preload = () => {
     pending ??= load().then(
       (m) => { loaded = m[name]; return m; },
-      (err: unknown) => { pending = undefined; throw err; },
+      (err: unknown) => { pending = undefined; Lazy = makeLazy(); throw err; },
     );
     return pending;
   };
-  const Lazy = lazy(() => preload().then((m) => ({ default: m[name] })));
   function LazyNamedComponent(props: ComponentProps<M[K]>) {
     // chosen once per instance: switching from the lazy wrapper to the component would remount it
     const [Component] = useState<ComponentType<ComponentProps<M[K]>>>(() => (loaded ?? Lazy) as ComponentType<ComponentProps<M[K]>>);

@@ -312,7 +312,16 @@ test('an editor who drops off the network keeps editing; the edits reach the oth
   const o = owner.page;
   const e = editor.page;
   await openBoard(o, boardId);
+  // the editor's history panel and timing strip cannot be fetched (as when the connection drops before a
+  // panel's code arrives): each shows a note in its place and the board goes on working (below, offline);
+  // a reload at the end brings them back
+  const chunks = /\/assets\/(history-panel|timing-strip)-[^/]*\.js$/;
+  await e.route(chunks, (route) => route.abort('internetdisconnected'));
   await openBoard(e, boardId);
+  const notes = e.getByText(/could not be loaded: the connection was lost/);
+  await expect(notes).toHaveCount(2, { timeout: 20_000 });
+  await expect(e.getByText(/The timing strip could not be loaded/)).toBeVisible();
+  await e.unroute(chunks);
 
   await editor.ctx.setOffline(true);
   await expect(e.getByTestId('connection-status')).not.toHaveAttribute('data-status', 'live', { timeout: 20_000 });
@@ -327,5 +336,9 @@ test('an editor who drops off the network keeps editing; the edits reach the oth
   await editor.ctx.setOffline(false);
   await expect(e.getByTestId('connection-status')).toHaveAttribute('data-status', 'live', { timeout: 30_000 });
   await expect(o.getByTestId(`part-${gate}`)).toBeVisible({ timeout: 15_000 });
+  await e.reload();
+  await expect(e.getByRole('button', { name: 'Export VCD' })).toBeVisible({ timeout: 20_000 });
+  await expect(notes).toHaveCount(0);
+  await expect(e.getByTestId(`part-${gate}`)).toBeVisible();
   for (const p of [owner, editor]) await p.ctx.close();
 });

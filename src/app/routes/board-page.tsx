@@ -1,9 +1,10 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { Fragment, Suspense, useEffect, useState, type ReactNode } from 'react';
+import { Fragment, useEffect, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorState } from '../../components/ui/error-state';
 import { RoleBadge } from '../../components/ui/role-badge';
-import { LoadingState, Spinner } from '../../components/ui/spinner';
+import { LoadingState } from '../../components/ui/spinner';
+import { ChunkBoundary } from '../../components/ui/chunk-boundary';
 import { isApiError } from '../../lib/api-client';
 import { meQueryOptions } from '../../features/auth';
 import { boardKeys, boardQueryOptions, BoardTitleEditor, DeleteBoardButton, SafetyCaution } from '../../features/boards';
@@ -131,7 +132,7 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
           isOwner(board.role) ? <PanelChunk key="class"><ClassPanel boardId={board.id} viewers={viewers} /></PanelChunk> : null,
           <div key="members" className="p-3"><PanelChunk><MemberListPanel boardId={board.id} currentUserId={me?.id} /></PanelChunk></div>,
         ]}</IdleSteps>}
-        bottom={<WhenIdle><PanelChunk><TimingStrip {...sim.timing} /></PanelChunk></WhenIdle>} />
+        bottom={<WhenIdle><ChunkBoundary what="timing strip"><TimingStrip {...sim.timing} /></ChunkBoundary></WhenIdle>} />
     </>
   );
 }
@@ -140,13 +141,9 @@ function LiveBoard({ board, me, session }: { board: ApiBoard; me: { id: number; 
 const preloadPanels = () =>
   Promise.all([BenchPanel, AnalysisPanel, BuildPanel, BringupPanel, LessonPanel, ClassPanel, MemberListPanel].map((panel) => panel.preload()));
 
-/** One lazily loaded panel: a small spinner in its place while its code loads, the rest of the page unaffected. */
+/** One lazily loaded panel: a small spinner in its place while its code loads, a note and a retry if it cannot be fetched, the rest of the page unaffected. */
 function PanelChunk({ children }: { children: ReactNode }) {
-  return (
-    <Suspense fallback={<div className="flex justify-center p-3 text-amber-glow"><Spinner size="sm" label="Loading panel" /></div>}>
-      {children}
-    </Suspense>
-  );
+  return <ChunkBoundary>{children}</ChunkBoundary>;
 }
 
 /** Its children, from the browser's first idle moment after it mounts (nothing before). */

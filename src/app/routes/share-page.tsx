@@ -1,7 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
-import { Suspense, useState } from 'react';
+import { useState } from 'react';
 import { Navigate, useParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
+import { ChunkBoundary } from '../../components/ui/chunk-boundary';
 import { ErrorState } from '../../components/ui/error-state';
 import { Input } from '../../components/ui/input';
 import { LoadingState } from '../../components/ui/spinner';
@@ -70,8 +71,8 @@ function GuestBoard({ token, boardId, title, name }: { token: string; boardId: n
       <BoardWorkspace session={session} levels={sim.levels} partBadges={sim.partBadges} onTryOut={sim.tryOut.set} tryOutValues={sim.tryOut.values}
         highlight={lesson.highlight}
         // the panels and the timing strip are chunks of their own: the canvas does not wait for them
-        panels={<Suspense fallback={null}><BenchPanel sim={sim} session={session} /><LessonPanel lesson={lesson} session={session} /></Suspense>}
-        bottom={<Suspense fallback={null}><TimingStrip {...sim.timing} /></Suspense>} />
+        panels={<ChunkBoundary what="bench"><BenchPanel sim={sim} session={session} /><LessonPanel lesson={lesson} session={session} /></ChunkBoundary>}
+        bottom={<ChunkBoundary what="timing strip"><TimingStrip {...sim.timing} /></ChunkBoundary>} />
     </div>
   );
 }

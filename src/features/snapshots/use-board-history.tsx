@@ -3,7 +3,9 @@
  * the session the canvas should show (the live one, or a read-only one holding the snapshot or the
  * compare), the compare marks, the restore action and everyone's restore notices.
  */
-import { lazy, Suspense, useCallback, type ReactNode } from 'react';
+import { useCallback, type ReactNode } from 'react';
+import { ChunkBoundary } from '../../components/ui/chunk-boundary';
+import { lazyNamed } from '../../lib/lazy-named';
 import { useQueryClient } from '@tanstack/react-query';
 import type * as Y from 'yjs';
 import type { BoardRole } from '../../../shared/api';
@@ -17,7 +19,7 @@ import { useSnapshotView, type SnapshotMarks } from './use-snapshot-view';
 
 // The history panel (its table) is a chunk of its own, loaded when the panel mounts: the board's first
 // draw does not wait for its code.
-const HistoryPanel = lazy(() => import('./history-panel').then((m) => ({ default: m.HistoryPanel })));
+const HistoryPanel = lazyNamed(() => import('./history-panel'), 'HistoryPanel');
 
 interface SessionLike {
   doc: Y.Doc;
@@ -57,9 +59,9 @@ export function useBoardHistory<S extends SessionLike>(boardId: number, role: Bo
     marks: view.mode === 'compare' ? view.marks : undefined,
     banner: <SnapshotBanner view={view} canRestore={isOwner(role)} onRestore={onRestore} />,
     panel: (
-      <Suspense fallback={null}>
+      <ChunkBoundary what="history panel">
         <HistoryPanel boardId={boardId} role={role} view={view} onRestore={onRestore} />
-      </Suspense>
+      </ChunkBoundary>
     ),
   };
 }
