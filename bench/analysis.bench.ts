@@ -10,6 +10,8 @@ import { fileURLToPath } from 'node:url';
 import type { BenchOptions, BenchRow } from './run';
 import { compileBoard, Simulator } from '../shared/sim';
 import { analyzeBoard, CODE_CHARS, enumerateTable, resolveSpec } from '../shared/analysis';
+import v8 from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { board16, board20, icarusTable, median } from './boards';
 import { ringBoard, shiftRegisterBoard } from './scaling-boards';
 import { minimisationRows } from './minimise-rows';
@@ -96,10 +98,20 @@ function tableRows(): BenchRow[] {
  * (user + system of this process) and of its wall time. The rows compare sizes by CPU time, since on a
  * shared machine the wall time of a run counts whatever else the cores were doing.
  */
-function analyzeMs(board: ReturnType<typeof ringBoard>, runs: number): { cpu: number; wall: number } {
+/** A full collection between runs (V8's gc(), made callable here without a node flag). */
+const collectGarbage: () => void = (() => {
+  v8.setFlagsFromString('--expose-gc');
+  return runInNewContext('gc') as () => void;
+})();
+
+async function analyzeMs(board: ReturnType<typeof ringBoard>, runs: number): Promise<{ cpu: number; wall: number }> {
   const cpu: number[] = [];
   const wall: number[] = [];
   for (let i = 0; i < runs; i++) {
+    // each run starts after a full collection whose concurrent sweeping has had time to end: it pays for its
+    // own garbage, not an earlier run's (process CPU time counts V8's helper threads too)
+    collectGarbage();
+    await new Promise((r) => setTimeout(r, 25));
     const c = process.cpuUsage();
     const t = performance.now();
     analyzeBoard(board);
@@ -110,23 +122,38 @@ function analyzeMs(board: ReturnType<typeof ringBoard>, runs: number): { cpu: nu
   return { cpu: median(cpu), wall: median(wall) };
 }
 
-function scalingRows(full: boolean): BenchRow[] {
+const SCALING_ROUNDS = 11;
+
+/**
+ * Each size is warmed twice, then the sizes take turns for SCALING_ROUNDS rounds (one run of each size per
+ * round) and each row is the median of its runs. Taking turns puts every size in the same state of the
+ * JIT and the heap and under the same load; a size measured in one block after another (as before) let a
+ * collection of the previous size's garbage land on the next size's runs, which made ratios of 0.5 and 2.9
+ * between neighbours in one quiet run.
+ */
+async function scalingRows(full: boolean): Promise<BenchRow[]> {
   const sizes = full ? [1000, 2000, 4000, 8000] : [1000, 2000, 4000];
   const rows: BenchRow[] = [];
   for (const [what, make] of [['ring of gates', ringBoard], ['shift register of six-NAND flip-flops', shiftRegisterBoard]] as const) {
-    for (let i = 0; i < 3; i++) analyzeMs(make(1000), 1); // warm the code, so the ratios compare sizes, not compilation
-    let prev: number | undefined;
-    for (const n of sizes) {
-      const { cpu, wall } = analyzeMs(make(n), 5);
-      rows.push({ name: `analyze, ${what}: ${n.toLocaleString('en')} gates`, value: cpu, unit: 'ms CPU',
-        ...(prev !== undefined ? { goal: { max: 2.2, on: 'ratio' as const }, reference: { name: `${(n / 2).toLocaleString('en')} gates`, value: prev } } : {}),
-        note: `in process, CPU time, median of 5 (wall ${wall.toFixed(0)} ms); the outputs come from the event simulator (loops)` });
-      prev = cpu;
+    const boards = sizes.map((n) => make(n));
+    for (let i = 0; i < 2; i++) for (const b of boards) await analyzeMs(b, 1); // warm the code at every size
+    const cpu: number[][] = sizes.map(() => []);
+    const wall: number[][] = sizes.map(() => []);
+    for (let r = 0; r < SCALING_ROUNDS; r++) {
+      for (const [k, b] of boards.entries()) { const m = await analyzeMs(b, 1); cpu[k].push(m.cpu); wall[k].push(m.wall); }
     }
+    let prev: number | undefined;
+    sizes.forEach((n, k) => {
+      const c = median(cpu[k]);
+      rows.push({ name: `analyze, ${what}: ${n.toLocaleString('en')} gates`, value: c, unit: 'ms CPU',
+        ...(prev !== undefined ? { goal: { max: 2.2, on: 'ratio' as const }, reference: { name: `${(n / 2).toLocaleString('en')} gates`, value: prev } } : {}),
+        note: `in process, CPU time, median of ${SCALING_ROUNDS}, the sizes taking turns (wall ${median(wall[k]).toFixed(0)} ms); the outputs come from the event simulator (loops)` });
+      prev = c;
+    });
   }
   return rows;
 }
 
 export default async function analysisBench(opts: BenchOptions): Promise<BenchRow[]> {
-  return [...tableRows(), ...scalingRows(opts.full), ...(opts.full ? minimisationRows() : [])];
+  return [...tableRows(), ...(await scalingRows(opts.full)), ...(opts.full ? minimisationRows() : [])];
 }
