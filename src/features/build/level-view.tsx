@@ -19,7 +19,7 @@ export function LevelView({ check, settings, fields, onChange }: { check: LevelC
         {check.device}: all inputs low <span className="font-mono" data-testid="level-low">{volts(check.low.grid)}</span> (margin {check.low.margin.toFixed(2)} V below {check.cutoff.off} V, <Verdict pass={check.low.pass} />);
         one input high <span className="font-mono" data-testid="level-high">{volts(check.high.grid)}</span>
         {check.high.clamped && <> (open-circuit {volts(check.high.openCircuit)}, clamped)</>}, margin {check.high.margin.toFixed(2)} V above {check.cutoff.on} V, <Verdict pass={check.high.pass} />.
-        {' '}<strong data-testid="level-verdict"><Verdict pass={check.pass} /></strong>
+        {' '}<strong>Levels, both states: <span data-testid="level-verdict"><Verdict pass={check.pass} /></span></strong>
       </p>
       {check.indicator && (
         <p className="text-[11px] text-slate-300" data-testid="level-indicator">
