@@ -4,6 +4,7 @@ import { parseBoardFile, type BoardFile } from '../../../shared/board';
 import { diagnose, testVectors } from '../../../shared/bringup';
 import { BringupJobs } from './bringup-jobs';
 import type { FromWorker, ToWorker } from './protocol';
+import { DOOR_LAMP } from '../../../tests/collab/door-lamp';
 
 // The worker only moves shared/bringup off the page's thread: its answers must be exactly what
 // testVectors and diagnose give when called directly (their own tests check them against outside sources).
@@ -137,25 +138,8 @@ describe('BringupJobs', () => {
 
   it('works again after an edit inside a module, not after a part moved inside one', () => {
     const m = manual();
-    // a lamp through an inverter module: OPEN lights while KEY is off
-    const door: BoardFile = {
-      format: 'gatefold-board', version: 1, title: 'Door lamp', family: 'ideal',
-      parts: [
-        { id: 'a', kind: 'switch', label: 'KEY', on: false, x: 0, y: 0 },
-        { id: 'u1', kind: 'module', module: 'inv', x: 160, y: 0 },
-        { id: 'l1', kind: 'lamp', label: 'OPEN', x: 400, y: 0 },
-      ],
-      wires: [{ id: 'w1', from: 'a.out', to: 'u1.A' }, { id: 'w2', from: 'u1.Y', to: 'l1.in' }],
-      modules: [{
-        id: 'inv', title: 'Inverter',
-        parts: [
-          { id: 'pa', kind: 'port', dir: 'in', label: 'A', x: 0, y: 0 },
-          { id: 'g1', kind: 'not', x: 120, y: 0 },
-          { id: 'py', kind: 'port', dir: 'out', label: 'Y', x: 240, y: 0 },
-        ],
-        wires: [{ id: 'w1', from: 'pa.out', to: 'g1.in0' }, { id: 'w2', from: 'g1.out', to: 'py.in' }],
-      }],
-    };
+    // a lamp through an inverter module: OPEN lights while KEY is off (the collaboration tests' board)
+    const door = DOOR_LAMP;
     const inv = door.modules![0];
     const movedInside: BoardFile = { ...door, modules: [{ ...inv, parts: inv.parts.map((p) => ({ ...p, x: p.x + 20 })) }] };
     const straight: BoardFile = { ...door, modules: [{ ...inv, parts: inv.parts.filter((p) => p.id !== 'g1'), wires: [{ id: 'w1', from: 'pa.out', to: 'py.in' }] }] };
